@@ -1,0 +1,11 @@
+package org.loopform.cli;
+
+/** loopform's exit codes (see DESIGN.md: 0 done, 1 a failing finding, 2 bad input). */
+final class ExitCodes {
+    static final int OK = 0;
+    static final int FAILED_FINDING = 1;
+    static final int BAD_INPUT = 2;
+
+    private ExitCodes() {
+    }
+}

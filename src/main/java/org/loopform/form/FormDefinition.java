@@ -1,0 +1,164 @@
+package org.loopform.form;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.regex.Pattern;
+
+/**
+ * One controller algorithm form: how a family of controllers writes down the PID law (structure,
+ * gain, integral, derivative, filter, setpoint weights), what it accepts (limits and resolution
+ * per parameter), and how it runs the law each scan. Data, read from a form file; never a subclass.
+ */
+public record FormDefinition(String id, String title, String description, Structure structure,
+                             GainSpec gain, IntegralSpec integral, DerivativeSpec derivative, FilterSpec filter,
+                             Weight b, Weight c, Map<String, ParameterLimit> limits, DiscreteAlgorithm algorithm) {
+
+    private static final Pattern ID = Pattern.compile("[a-z0-9][a-z0-9._-]*");
+
+    public FormDefinition {
+        if (id == null || !ID.matcher(id).matches()) {
+            throw new FormException("id: must be lower-case letters, digits, '.', '_' or '-' (got '" + id + "')");
+        }
+        if (title == null || title.isBlank()) {
+            throw new FormException("title: every form needs a one-line title");
+        }
+        description = description == null ? "" : description;
+        if (structure == null || gain == null || integral == null || derivative == null || filter == null
+                || b == null || c == null || algorithm == null) {
+            throw new FormException("form " + id + " is incomplete");
+        }
+        boolean parallel = structure == Structure.PARALLEL;
+        if (!parallel && (integral.writing() == IntegralWriting.GAIN || integral.writing() == IntegralWriting.PER_SCAN)) {
+            throw new FormException("integral.as: '" + integral.writing().name().toLowerCase() + "' needs structure "
+                    + "parallel; an " + structure.id() + " form writes integral as 'time' or 'rate'");
+        }
+        if (!parallel && derivative.writing() != DerivativeWriting.TIME) {
+            throw new FormException("derivative.as: '" + derivative.writing().name().toLowerCase() + "' needs structure "
+                    + "parallel; an " + structure.id() + " form writes derivative as 'time'");
+        }
+        if (parallel && derivative.writing() == DerivativeWriting.TIME) {
+            throw new FormException("derivative.as: a parallel form writes derivative as 'gain' or 'per_scan' (kd)");
+        }
+        if (parallel && gain.writing() == GainWriting.BAND) {
+            throw new FormException("gain.as: a parallel form writes kp as 'gain'; a band belongs to ideal or series forms");
+        }
+        if (filter.placement() == FilterPlacement.MEASUREMENT && structure != Structure.SERIES
+                && (c.adjustable() || c.defaultValue() != 0)) {
+            throw new FormException("weights.c: a filter on the measurement leaves the setpoint unfiltered, so the "
+                    + "setpoint derivative weight must be fixed at 0 (derivative on measurement)");
+        }
+        if (structure == Structure.SERIES && (c.adjustable()
+                || (c.defaultValue() != 0 && c.defaultValue() != 1))) {
+            throw new FormException("weights.c: a series form takes derivative on error (c: 1) or on measurement "
+                    + "(c: 0), fixed (got " + (c.adjustable() ? "adjustable" : c.defaultValue()) + ")");
+        }
+        limits = Map.copyOf(limits);
+        List<String> names = parametersOf(structure, gain, integral, derivative, filter, b, c).stream()
+                .map(FormParameter::name).filter(n -> !n.equals("action")).toList();
+        for (String key : limits.keySet()) {
+            if (!names.contains(key)) {
+                throw new FormException("limits." + key + ": form " + id + " has no parameter '" + key
+                        + "'; its parameters are " + String.join(", ", names));
+            }
+        }
+    }
+
+    /** True when a conversion needs PV and output ranges. */
+    public boolean needsRanges() {
+        return gain.basis() == GainBasis.ENGINEERING;
+    }
+
+    /** True when a conversion needs the scan time (a per-scan gain). */
+    public boolean needsScan() {
+        return integral.writing() == IntegralWriting.PER_SCAN || derivative.writing() == DerivativeWriting.PER_SCAN;
+    }
+
+    public String gainName() {
+        return gainName(structure, gain);
+    }
+
+    private static String gainName(Structure structure, GainSpec gain) {
+        if (gain.writing() == GainWriting.BAND) {
+            return "pb";
+        }
+        return structure == Structure.PARALLEL ? "kp" : "kc";
+    }
+
+    public String integralName() {
+        return integralName(integral);
+    }
+
+    private static String integralName(IntegralSpec integral) {
+        return switch (integral.writing()) {
+            case TIME -> "ti";
+            case RATE -> "reset";
+            case GAIN, PER_SCAN -> "ki";
+        };
+    }
+
+    public String derivativeName() {
+        return derivativeName(derivative);
+    }
+
+    private static String derivativeName(DerivativeSpec derivative) {
+        return derivative.writing() == DerivativeWriting.TIME ? "td" : "kd";
+    }
+
+    /** The names of the numeric parameters, in the order a person reads them. */
+    public List<String> parameterNames() {
+        return parameters().stream().map(FormParameter::name).filter(n -> !n.equals("action")).toList();
+    }
+
+    /** The limit for {@code name}, or {@link ParameterLimit#NONE}. */
+    public ParameterLimit limit(String name) {
+        return limits.getOrDefault(name, ParameterLimit.NONE);
+    }
+
+    /** Every parameter a person types into this form, with unit and meaning. */
+    public List<FormParameter> parameters() {
+        return parametersOf(structure, gain, integral, derivative, filter, b, c);
+    }
+
+    private static List<FormParameter> parametersOf(Structure structure, GainSpec gain, IntegralSpec integral,
+                                                    DerivativeSpec derivative, FilterSpec filter, Weight b, Weight c) {
+        List<FormParameter> list = new ArrayList<>();
+        list.add(new FormParameter(gainName(structure, gain), FormUnits.gainUnit(gain), gain.writing() == GainWriting.BAND
+                ? "proportional band" : (structure == Structure.PARALLEL ? "proportional gain" : "controller gain"),
+                true, null));
+        list.add(new FormParameter(integralName(integral), FormUnits.integralUnit(gain, integral), switch (integral.writing()) {
+            case TIME -> "integral time per repeat";
+            case RATE -> "reset rate";
+            case GAIN -> "integral gain";
+            case PER_SCAN -> "integral gain per scan";
+        } + offNote(integral), true, null));
+        list.add(new FormParameter(derivativeName(derivative), FormUnits.derivativeUnit(gain, derivative), switch (derivative.writing()) {
+            case TIME -> "derivative time";
+            case GAIN -> "derivative gain";
+            case PER_SCAN -> "derivative gain per scan";
+        } + " (0: off)", true, null));
+        switch (filter.kind()) {
+            case RATIO -> list.add(new FormParameter("n", "ratio", "derivative filter ratio, Tf = Td/N",
+                    false, filter.ratio()));
+            case TIME_CONSTANT -> list.add(new FormParameter("tf", filter.unit().symbol(),
+                    "derivative filter time constant", false, filter.defaultTime()));
+            default -> { }
+        }
+        if (b.adjustable()) {
+            list.add(new FormParameter("b", "ratio", "setpoint weight on proportional action", false, b.defaultValue()));
+        }
+        if (c.adjustable()) {
+            list.add(new FormParameter("c", "ratio", "setpoint weight on derivative action", false, c.defaultValue()));
+        }
+        if (gain.sign() == SignConvention.ACTION) {
+            list.add(new FormParameter("action", "reverse|direct", "controller action", false, null));
+        }
+        return List.copyOf(list);
+    }
+
+    private static String offNote(IntegralSpec integral) {
+        double off = integral.offValue();
+        String v = off == Math.rint(off) ? Long.toString((long) off) : Double.toString(off);
+        return integral.writing() == IntegralWriting.TIME && off > 0 ? " (" + v + " or more: off)" : " (" + v + ": off)";
+    }
+}

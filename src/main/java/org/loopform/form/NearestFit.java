@@ -1,0 +1,183 @@
+package org.loopform.form;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.math3.optim.InitialGuess;
+import org.apache.commons.math3.optim.MaxEval;
+import org.apache.commons.math3.optim.PointValuePair;
+import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
+import org.apache.commons.math3.optim.nonlinear.scalar.ObjectiveFunction;
+import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.NelderMeadSimplex;
+import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.SimplexOptimizer;
+import org.loopform.law.ControlLaw;
+import org.loopform.law.FrequencyBand;
+import org.loopform.law.PidTerms;
+
+/**
+ * The member of a target form's family nearest to a law it cannot write exactly: minimizes the
+ * squared complex log-ratio |ln(C_target(i w) / C_source(i w))|^2 (gain in nepers and phase in
+ * radians weighted alike) over log-spaced frequencies of the band, the feedback path fully and
+ * the setpoint path at {@link #SETPOINT_WEIGHT}, since the feedback path sets stability.
+ * Positive coordinates are searched as logarithms so that no step can change their sign;
+ * adjustable setpoint weights stay within their range through a smooth map.
+ */
+final class NearestFit {
+
+    /** The setpoint path matters for setpoint response only; the feedback path also for stability. */
+    static final double SETPOINT_WEIGHT = 0.1;
+    private static final int FIT_POINTS = 80;
+    private static final int MAX_EVALUATIONS = 40_000;
+
+    private final FormDefinition target;
+    private final ControlLaw source;
+    private final double[] omegas;
+    private final double sign;
+    private final boolean useIntegral;
+    private final boolean useDerivative;
+    private final boolean freeFilter;
+
+    NearestFit(FormDefinition target, ControlLaw source, FrequencyBand band) {
+        this.target = target;
+        this.source = source;
+        this.omegas = band.grid(FIT_POINTS);
+        PidTerms t = source.terms();
+        this.sign = Math.signum(t.p() != 0 ? t.p() : t.d() != 0 ? t.d() : t.i());
+        this.useIntegral = t.i() != 0;
+        this.useDerivative = t.d() != 0 && !(t.tf() > 0 && Math.abs(t.d()) / t.tf() <= Math.abs(t.p()) * 1e-12);
+        this.freeFilter = useDerivative && (target.filter().kind() == FilterKind.RATIO
+                || target.filter().kind() == FilterKind.TIME_CONSTANT);
+    }
+
+    /** The nearest setting, searched from {@code start}. */
+    PidSetting fit(PidSetting start) {
+        double[] x0 = encode(start);
+        if (x0.length == 0) {
+            return start;
+        }
+        double[] best = x0;
+        double bestValue = cost(x0);
+        // Two rounds: the second restarts the simplex at the first result, so a collapsed simplex
+        // does not stop the search short of the minimum.
+        for (int round = 0; round < 3; round++) {
+            double[] steps = new double[best.length];
+            java.util.Arrays.fill(steps, round == 0 ? 0.5 : 0.05);
+            SimplexOptimizer optimizer = new SimplexOptimizer(1e-15, 1e-15);
+            PointValuePair r = optimizer.optimize(new MaxEval(MAX_EVALUATIONS), new ObjectiveFunction(this::cost),
+                    GoalType.MINIMIZE, new InitialGuess(best), new NelderMeadSimplex(steps));
+            if (r.getValue() < bestValue) {
+                best = r.getPoint();
+                bestValue = r.getValue();
+            }
+        }
+        return decode(best);
+    }
+
+    private double cost(double[] x) {
+        PidSetting s;
+        try {
+            s = decode(x);
+        } catch (IllegalArgumentException e) {
+            return Double.MAX_VALUE;
+        }
+        ControlLaw law = StructureLaw.toLaw(s, target.filter().placement());
+        double[] a = new double[2];
+        double[] b = new double[2];
+        double sum = 0;
+        for (double w : omegas) {
+            source.feedbackAt(w, a);
+            law.feedbackAt(w, b);
+            sum += logRatioSquared(a, b);
+            source.setpointAt(w, a);
+            law.setpointAt(w, b);
+            sum += SETPOINT_WEIGHT * logRatioSquared(a, b);
+        }
+        return Double.isFinite(sum) ? sum : Double.MAX_VALUE;
+    }
+
+    private static double logRatioSquared(double[] a, double[] b) {
+        double ma = a[0] * a[0] + a[1] * a[1];
+        double mb = b[0] * b[0] + b[1] * b[1];
+        if (ma == 0 && mb == 0) {
+            return 0;
+        }
+        if (ma == 0 || mb == 0) {
+            return 1e6;
+        }
+        double re = b[0] * a[0] + b[1] * a[1];
+        double im = b[1] * a[0] - b[0] * a[1];
+        double gain = 0.5 * Math.log(mb / ma);
+        double phase = Math.atan2(im, re);
+        return gain * gain + phase * phase;
+    }
+
+    private double[] encode(PidSetting s) {
+        List<Double> x = new ArrayList<>();
+        x.add(Math.log(Math.abs(s.gain())));
+        if (useIntegral) {
+            x.add(Math.log(Math.abs(s.integral())));
+        }
+        if (useDerivative) {
+            x.add(Math.log(Math.max(Math.abs(s.derivative()), 1e-300)));
+        }
+        if (freeFilter) {
+            double td = s.derivativeTimeSeconds();
+            x.add(Math.log(target.filter().kind() == FilterKind.RATIO
+                    ? (s.filterSeconds() > 0 ? td / s.filterSeconds() : target.filter().ratio())
+                    : Math.max(s.filterSeconds(), td / target.filter().ratio())));
+        }
+        if (target.b().adjustable()) {
+            x.add(toUnbounded(s.b(), target.b()));
+        }
+        if (target.c().adjustable() && useDerivative) {
+            x.add(toUnbounded(s.c(), target.c()));
+        }
+        return x.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    private PidSetting decode(double[] x) {
+        int k = 0;
+        double gain = sign * Math.exp(x[k++]);
+        boolean parallel = target.structure() == Structure.PARALLEL;
+        double integral;
+        if (useIntegral) {
+            double v = Math.exp(x[k++]);
+            integral = parallel ? sign * v : v;
+        } else {
+            integral = parallel ? 0.0 : Double.POSITIVE_INFINITY;
+        }
+        double derivative = 0.0;
+        if (useDerivative) {
+            double v = Math.exp(x[k++]);
+            derivative = parallel ? sign * v : v;
+        }
+        double td = parallel ? derivative / gain : derivative;
+        double tf;
+        if (freeFilter) {
+            double v = Math.exp(x[k++]);
+            tf = target.filter().kind() == FilterKind.RATIO ? td / v : v;
+        } else {
+            tf = switch (target.filter().kind()) {
+                case NONE -> 0.0;
+                case FIXED_RATIO, RATIO -> td / target.filter().ratio();
+                case TIME_CONSTANT -> target.filter().unit().toSeconds(target.filter().defaultTime());
+            };
+        }
+        double b = target.b().adjustable() ? fromUnbounded(x[k++], target.b()) : target.b().defaultValue();
+        double c = target.c().adjustable() && useDerivative ? fromUnbounded(x[k++], target.c())
+                : target.c().defaultValue();
+        return new PidSetting(target.structure(), gain, integral, derivative, tf, b, c);
+    }
+
+    private static double toUnbounded(double v, Weight w) {
+        double width = w.max() - w.min();
+        if (width == 0) {
+            return 0;
+        }
+        double u = Math.min(Math.max((v - w.min()) / width, 1e-6), 1 - 1e-6);
+        return Math.log(u / (1 - u));
+    }
+
+    private static double fromUnbounded(double z, Weight w) {
+        return w.min() + (w.max() - w.min()) / (1 + Math.exp(-z));
+    }
+}

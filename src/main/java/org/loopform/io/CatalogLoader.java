@@ -1,0 +1,107 @@
+package org.loopform.io;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.net.URISyntaxException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Enumeration;
+import java.util.List;
+import java.util.jar.JarEntry;
+import java.util.jar.JarFile;
+import java.util.stream.Stream;
+import org.loopform.form.Catalog;
+import org.loopform.form.FormDefinition;
+
+/**
+ * Loads the bundled catalog ({@code forms-catalog/*.yaml}, packed into the jar) and resolves a
+ * form given as a catalog id or as a file path.
+ */
+public final class CatalogLoader {
+
+    private static final String FOLDER = "forms-catalog/";
+    private static volatile Catalog bundled;
+
+    private CatalogLoader() {
+    }
+
+    /** The catalog shipped with loopform. */
+    public static Catalog bundled() {
+        Catalog c = bundled;
+        if (c == null) {
+            synchronized (CatalogLoader.class) {
+                if (bundled == null) {
+                    bundled = load();
+                }
+                c = bundled;
+            }
+        }
+        return c;
+    }
+
+    /**
+     * The form named by {@code idOrPath}: a catalog id, or else a form file. {@code option} names
+     * the flag in messages.
+     */
+    public static FormDefinition resolve(String idOrPath, String option) {
+        Catalog catalog = bundled();
+        var found = catalog.find(idOrPath.trim());
+        if (found.isPresent()) {
+            return found.get();
+        }
+        Path p = Path.of(idOrPath);
+        if (Files.isRegularFile(p)) {
+            return FormFileReader.read(p, idOrPath);
+        }
+        throw new InputException(option + ": unknown form '" + idOrPath + "'; give a catalog id ("
+                + String.join(", ", catalog.ids()) + ") or the path of a form file");
+    }
+
+    private static Catalog load() {
+        List<FormDefinition> forms = new ArrayList<>();
+        for (String name : entryNames()) {
+            try (InputStream in = CatalogLoader.class.getClassLoader().getResourceAsStream(FOLDER + name)) {
+                if (in == null) {
+                    continue;
+                }
+                String text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+                forms.add(FormFileReader.parse(text, FOLDER + name));
+            } catch (IOException e) {
+                throw new IllegalStateException("cannot read bundled form " + name, e);
+            }
+        }
+        return new Catalog(forms);
+    }
+
+    private static List<String> entryNames() {
+        List<String> names = new ArrayList<>();
+        try {
+            Path location = Path.of(CatalogLoader.class.getProtectionDomain().getCodeSource().getLocation().toURI());
+            if (Files.isDirectory(location)) {
+                Path dir = location.resolve(FOLDER);
+                if (Files.isDirectory(dir)) {
+                    try (Stream<Path> s = Files.list(dir)) {
+                        s.map(x -> x.getFileName().toString()).filter(n -> n.endsWith(".yaml")).sorted()
+                                .forEach(names::add);
+                    }
+                }
+            } else {
+                try (JarFile jar = new JarFile(location.toFile())) {
+                    Enumeration<JarEntry> e = jar.entries();
+                    while (e.hasMoreElements()) {
+                        String n = e.nextElement().getName();
+                        if (n.startsWith(FOLDER) && n.endsWith(".yaml") && n.indexOf('/', FOLDER.length()) < 0) {
+                            names.add(n.substring(FOLDER.length()));
+                        }
+                    }
+                }
+            }
+        } catch (IOException | URISyntaxException e) {
+            throw new IllegalStateException("cannot list the bundled catalog", e);
+        }
+        names.sort(null);
+        return names;
+    }
+}
