@@ -11,8 +11,11 @@ package org.loopform.lti;
  */
 record DelaySplit(int delayScans, double fractionSeconds) {
 
-    /** Relative rounding noise of L / h below which the split snaps to a whole scan. */
-    static final double WHOLE_SCAN_RELATIVE_TOLERANCE = 1e-9;
+    /**
+     * Relative distance of L / h from a whole number below which the split snaps to it: a few
+     * thousand ulps, rounding noise from unit conversions, never a real fraction of a scan.
+     */
+    static final double WHOLE_SCAN_RELATIVE_TOLERANCE = 1e-12;
     /** Longest delay line a sampled process keeps; beyond it the scan is far too short for the dead time. */
     static final int MAX_DELAY_SCANS = 10_000_000;
 
