@@ -38,7 +38,8 @@ class ZeroOrderHoldFirstOrderTest {
         assertThat(s.delayScans()).isEqualTo((int) expected[3]);
     }
 
-    // a, b, dead time, scan: fractions of a scan across (0, 1), several whole scans, long and short lags
+    // a, b, dead time, scan: fractions of a scan across (0, 1), several whole scans, long and short
+    // lags, and a stiff one (a h = 200) that needs many squarings
     private static final String CASES = """
             0.5, 1.0, 0.13, 1.0
             0.5, 1.0, 0.5, 1.0
@@ -47,6 +48,7 @@ class ZeroOrderHoldFirstOrderTest {
             3.0, 6.0, 0.07, 0.1
             0.01, 0.02, 7.4, 2.0
             10.0, 5.0, 1.25, 0.3
+            200.0, 100.0, 0.33, 1.0
             """;
 
     @Nested
