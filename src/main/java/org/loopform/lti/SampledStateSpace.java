@@ -1,0 +1,181 @@
+package org.loopform.lti;
+
+/**
+ * A process sampled through a zero-order hold at scan time h, with its dead time
+ * {@code L = d h + tau} ({@code 0 <= tau < h}) carried exactly:
+ *
+ * <pre>
+ *   x(k+1) = A x(k) + B0 u(k-d) + B1 u(k-d-1)
+ *   y(k)   = C x(k) + D u(k-d-1)
+ * </pre>
+ *
+ * where u(k) is the input held over scan k, {@code [k h, (k+1) h)}, and y(k) is the output
+ * sampled at {@code t = k h} just before u(k) takes effect. B1 carries the input still arriving
+ * through the delay during the first tau of a scan, B0 the one arriving for the remaining
+ * {@code h - tau} (Astrom &amp; Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 2,
+ * sampling with a time delay - from memory). Immutable; accessors return copies.
+ */
+public final class SampledStateSpace {
+
+    private final int order;
+    private final double[] stateRowMajor;
+    private final double[] inputNow;
+    private final double[] inputPrevious;
+    private final double[] output;
+    private final double feedthrough;
+    private final int delayScans;
+    private final double fractionalDelaySeconds;
+    private final double scanSeconds;
+
+    SampledStateSpace(double[][] a, double[] b0, double[] b1, double[] c, double d,
+            DelaySplit delay, double scanSeconds) {
+        DelaySplit.requireScan(scanSeconds);
+        this.order = b0.length;
+        this.stateRowMajor = new double[order * order];
+        for (int i = 0; i < order; i++) {
+            for (int j = 0; j < order; j++) {
+                stateRowMajor[i * order + j] = a[i][j];
+            }
+        }
+        this.inputNow = b0.clone();
+        this.inputPrevious = b1.clone();
+        this.output = c.clone();
+        this.feedthrough = d;
+        this.delayScans = delay.delayScans();
+        this.fractionalDelaySeconds = delay.fractionSeconds();
+        this.scanSeconds = scanSeconds;
+        requireFinite("A", stateRowMajor);
+        requireFinite("B0", inputNow);
+        requireFinite("B1", inputPrevious);
+        requireFinite("C", output);
+        requireFinite("D", new double[] {d});
+    }
+
+    /** Number of states (not counting the delay line). */
+    public int order() {
+        return order;
+    }
+
+    /** A = e^(A_c h). */
+    public double[][] a() {
+        double[][] copy = new double[order][order];
+        for (int i = 0; i < order; i++) {
+            System.arraycopy(stateRowMajor, i * order, copy[i], 0, order);
+        }
+        return copy;
+    }
+
+    /** B0: the input u(k-d), effective over the last {@code h - tau} of the scan. */
+    public double[] b0() {
+        return inputNow.clone();
+    }
+
+    /** B1: the input u(k-d-1), still effective over the first tau of the scan; zero when tau = 0. */
+    public double[] b1() {
+        return inputPrevious.clone();
+    }
+
+    public double[] c() {
+        return output.clone();
+    }
+
+    /** Direct feedthrough D of the continuous model; it acts on u(k-d-1) at the sample instant. */
+    public double d() {
+        return feedthrough;
+    }
+
+    /** Whole scans d of the dead time. */
+    public int delayScans() {
+        return delayScans;
+    }
+
+    /** The remainder tau of the dead time, seconds, in [0, h). */
+    public double fractionalDelaySeconds() {
+        return fractionalDelaySeconds;
+    }
+
+    public double scanSeconds() {
+        return scanSeconds;
+    }
+
+    /** A fresh simulator of this model, at rest. */
+    public SampledProcess newProcess() {
+        return new SampledProcess(this);
+    }
+
+    /**
+     * Frequency response of the pulse transfer function at {@code z = e^(i omega h)}, omega in
+     * rad/s, written into {@code out} as {re, im}:
+     * {@code H(z) = z^-d [C (zI - A)^-1 (B0 + B1 z^-1) + D z^-1]}.
+     * Allocates a small complex work matrix; infinite or NaN at a pole on the unit circle
+     * (omega = 0 for an integrating process).
+     */
+    public void responseAt(double omegaRadPerSecond, double[] out) {
+        double theta = omegaRadPerSecond * scanSeconds;
+        double zRe = Math.cos(theta);
+        double zIm = Math.sin(theta);
+        // z^-1 = conj(z) on the unit circle
+        double invRe = zRe;
+        double invIm = -zIm;
+        int n = order;
+        double[] mRe = new double[n * n];
+        double[] mIm = new double[n * n];
+        double[] rRe = new double[n];
+        double[] rIm = new double[n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                mRe[i * n + j] = -stateRowMajor[i * n + j];
+            }
+            mRe[i * n + i] += zRe;
+            mIm[i * n + i] = zIm;
+            rRe[i] = inputNow[i] + inputPrevious[i] * invRe;
+            rIm[i] = inputPrevious[i] * invIm;
+        }
+        ComplexLinearSolve.solveInPlace(n, mRe, mIm, rRe, rIm);
+        double hRe = feedthrough * invRe;
+        double hIm = feedthrough * invIm;
+        for (int i = 0; i < n; i++) {
+            hRe += output[i] * rRe[i];
+            hIm += output[i] * rIm[i];
+        }
+        // z^-d = e^(-i d theta)
+        double delayPhase = -delayScans * theta;
+        double cos = Math.cos(delayPhase);
+        double sin = Math.sin(delayPhase);
+        out[0] = hRe * cos - hIm * sin;
+        out[1] = hRe * sin + hIm * cos;
+    }
+
+    /** Frequency response at {@code z = e^(i omega h)} as a new {re, im} pair. */
+    public double[] responseAt(double omegaRadPerSecond) {
+        double[] out = new double[2];
+        responseAt(omegaRadPerSecond, out);
+        return out;
+    }
+
+    // Package-private views for the simulator, which copies them once.
+    double[] stateRowMajor() {
+        return stateRowMajor;
+    }
+
+    double[] inputNowVector() {
+        return inputNow;
+    }
+
+    double[] inputPreviousVector() {
+        return inputPrevious;
+    }
+
+    double[] outputVector() {
+        return output;
+    }
+
+    private static void requireFinite(String name, double[] values) {
+        for (double v : values) {
+            if (!Double.isFinite(v)) {
+                throw new IllegalArgumentException("sampled model " + name + " entries must be finite (got " + v
+                        + "); the scan time may be far too long for the process's fastest unstable mode");
+            }
+        }
+    }
+}
