@@ -107,7 +107,28 @@ def margins(row):
                           options={"xatol": 1e-13 * w[k]})
     wms = res.x if res.fun < abs(1 + l[k]) else w[k]
     ms = 1.0 / min(res.fun, abs(1 + l[k]))
-    return gm, wpc, pm_deg, wc, dm, ms, wms
+    return gm, wpc, pm_deg, wc, dm, ms, wms, unstable_poles(row, w, l)
+
+
+def unstable_poles(row, w, l):
+    """Closed-loop poles outside the stability region, found without looking at crossings.
+
+    Sampled loop: numpy.roots of den(z) + K num(z), counting roots with |z| >= 1.
+    Continuous loop (no open-loop poles in the right half plane): the argument principle on
+    1 + L along the imaginary axis, indented right of the integrators at the origin. The arc
+    around the origin turns arg(1 + L) by twice its value at the band bottom, so the count is
+    -(unwrapped arg(1 + L) at the band top) / pi, the phase anchored in (-270, 90] degrees at a
+    band bottom low enough that |L| >> 1 there for an integrating loop.
+    """
+    _, domain, num, den, _, k, _, _, _, _, _, _ = row
+    if domain == "z":
+        char = np.polyadd(den, k * np.array(num))
+        return int(np.sum(np.abs(np.roots(char)) >= 1.0))
+    phase = anchored_unwrapped_phase(1 + l)
+    count = -phase[-1] / math.pi
+    # the remainder is arg(1 + L) at the band top, small where |L| << 1
+    assert abs(count - round(count)) < 0.05, (row[0], count)
+    return int(round(count))
 
 
 def fmt(x):
@@ -117,16 +138,17 @@ def fmt(x):
 def main():
     header = ["id", "domain", "process_num", "process_den", "dead_time_s", "kc", "ti_s", "td_s", "n",
               "scan_s", "band_low_rad_s", "band_high_rad_s", "gain_margin", "phase_crossover_rad_s",
-              "phase_margin_deg", "crossover_rad_s", "delay_margin_s", "ms", "ms_rad_s"]
+              "phase_margin_deg", "crossover_rad_s", "delay_margin_s", "ms", "ms_rad_s",
+              "closed_loop_unstable_poles"]
     with open(OUT, "w", newline="") as f:
         out = csv.writer(f, lineterminator="\n")
         out.writerow(header)
         for row in LOOPS:
-            gm, wpc, pm, wc, dm, ms, wms = margins(row)
+            gm, wpc, pm, wc, dm, ms, wms, poles = margins(row)
             out.writerow([row[0], row[1], " ".join(repr(c) for c in row[2]), " ".join(repr(c) for c in row[3])]
                          + [repr(float(v)) for v in row[4:12]]
-                         + [fmt(gm), fmt(wpc), fmt(pm), fmt(wc), fmt(dm), fmt(ms), fmt(wms)])
-            print(row[0], "GM", fmt(gm), "PM", fmt(pm), "wc", fmt(wc), "Ms", fmt(ms))
+                         + [fmt(gm), fmt(wpc), fmt(pm), fmt(wc), fmt(dm), fmt(ms), fmt(wms), str(poles)])
+            print(row[0], "GM", fmt(gm), "PM", fmt(pm), "wc", fmt(wc), "Ms", fmt(ms), "unstable", poles)
 
 
 if __name__ == "__main__":

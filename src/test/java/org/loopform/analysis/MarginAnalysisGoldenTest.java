@@ -36,7 +36,7 @@ class MarginAnalysisGoldenTest {
 
     record Golden(String id, LoopResponse loop, FrequencyBand band, OptionalDouble gainMargin,
             OptionalDouble phaseCrossover, OptionalDouble phaseMarginDegrees, OptionalDouble crossover,
-            OptionalDouble delayMarginSeconds, double ms, double msRadPerSecond) {
+            OptionalDouble delayMarginSeconds, double ms, double msRadPerSecond, int unstablePoles) {
         @Override
         public String toString() {
             return id;
@@ -65,6 +65,17 @@ class MarginAnalysisGoldenTest {
         assertThat(margins.maximumSensitivity()).isCloseTo(golden.ms(), within(RELATIVE * golden.ms()));
         assertThat(margins.maximumSensitivityRadPerSecond())
                 .isCloseTo(golden.msRadPerSecond(), within(RELATIVE * golden.msRadPerSecond()));
+    }
+
+    /** The reference counts closed-loop poles by the argument principle on 1 + L, or by numpy.roots. */
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("goldenLoops")
+    void stability_verdict_matches_the_closed_loop_pole_count(Golden golden) {
+        LoopMargins margins = MarginAnalysis.over(golden.band()).analyze(golden.loop());
+
+        assertThat(margins.stability()).isEqualTo(
+                golden.unstablePoles() == 0 ? ClosedLoopStability.STABLE : ClosedLoopStability.UNSTABLE);
+        assertThat(margins.marginsPositive()).isEqualTo(golden.unstablePoles() == 0);
     }
 
     private static void assertCloseRelative(OptionalDouble actual, OptionalDouble expected) {
@@ -106,7 +117,8 @@ class MarginAnalysisGoldenTest {
                 ? Loops.sampled(num.times(k), den, scanSeconds)
                 : LoopResponse.of(Loops.idealPid(k, ti, td, n).times(new TransferFunction(num, den)), deadTimeSeconds);
         return new Golden(f[0], loop, band, optional(f[12]), optional(f[13]), optional(f[14]), optional(f[15]),
-                optional(f[16]), Double.parseDouble(f[17]), Double.parseDouble(f[18]));
+                optional(f[16]), Double.parseDouble(f[17]), Double.parseDouble(f[18]),
+                Integer.parseInt(f[19]));
     }
 
     private static double[] coefficients(String field) {
