@@ -42,6 +42,10 @@ final class MarginSearch {
     private double crossoverRadPerSecond;
     private double smallestDelayMarginSeconds = Double.POSITIVE_INFINITY;
     private int clockwiseEncirclements;
+    /** Smallest |1 + L|^2 met at a phase crossover, and the grid interval that brackets it. */
+    private double crossingReturnDifferenceSquared = Double.POSITIVE_INFINITY;
+    private double crossingRadPerSecond;
+    private int crossingInterval;
 
     MarginSearch(LoopResponse loop, double[] grid) {
         this.loop = loop;
@@ -72,6 +76,7 @@ final class MarginSearch {
                 if (reIm[0] < 0) {
                     // below to above the negative real axis: the phase falls through -180 (mod 360)
                     branchOffsetRadians += startsBelowAxis ? -TWO_PI : TWO_PI;
+                    noteReturnDifference(omega, reIm[0], k);
                     phaseCrossover(omega, -reIm[0], startsBelowAxis);
                 }
             }
@@ -113,6 +118,19 @@ final class MarginSearch {
         }
     }
 
+    /**
+     * Near a phase crossover {@code |1 + L| = 1 - |L|} dips: where dead time turns the phase
+     * faster than the grid samples it, the dip there can be deeper than any grid point shows.
+     */
+    private void noteReturnDifference(double omega, double realPart, int interval) {
+        double returnDifferenceSquared = (1 + realPart) * (1 + realPart);
+        if (returnDifferenceSquared < crossingReturnDifferenceSquared) {
+            crossingReturnDifferenceSquared = returnDifferenceSquared;
+            crossingRadPerSecond = omega;
+            crossingInterval = interval;
+        }
+    }
+
     private LoopMargins margins(boolean bandMissesPartOfPlot) {
         int best = 0;
         for (int k = 1; k < grid.length; k++) {
@@ -122,11 +140,19 @@ final class MarginSearch {
         }
         double peakRadPerSecond = grid[best];
         double smallestReturnDifferenceSquared = returnDifferenceSquared(best);
+        int low = best - 1;
+        int high = best + 1;
+        if (crossingReturnDifferenceSquared < smallestReturnDifferenceSquared) {
+            peakRadPerSecond = crossingRadPerSecond;
+            smallestReturnDifferenceSquared = crossingReturnDifferenceSquared;
+            low = crossingInterval - 1;
+            high = crossingInterval + 2;
+        }
         UnivariatePointValuePair refined = new BrentOptimizer(MINIMUM_RELATIVE_ACCURACY, ABSOLUTE_FLOOR_RAD_PER_SECOND)
                 .optimize(new MaxEval(MAX_EVALUATIONS),
                         new UnivariateObjectiveFunction(this::returnDifferenceSquaredAt),
                         GoalType.MINIMIZE,
-                        new SearchInterval(grid[Math.max(best - 1, 0)], grid[Math.min(best + 1, grid.length - 1)],
+                        new SearchInterval(grid[Math.max(low, 0)], grid[Math.min(high, grid.length - 1)],
                                 peakRadPerSecond));
         if (refined.getValue() < smallestReturnDifferenceSquared) {
             peakRadPerSecond = refined.getPoint();
