@@ -2,7 +2,10 @@ package org.loopform.analysis;
 
 /**
  * What the Nyquist plot over the analysed band says about closed-loop stability, for an open
- * loop with no poles in the right half plane.
+ * loop with no poles in the right half plane. Each pass of the plot across the negative real
+ * axis left of -1 is half an encirclement (its mirror image at negative frequencies gives the
+ * other half); the closed loop is stable when they cancel. Nyquist criterion after Astrom and
+ * Murray, Feedback Systems, 2008, section 9.2 (from memory for the section number).
  */
 public enum ClosedLoopStability {
     /** The plot does not encircle -1. */

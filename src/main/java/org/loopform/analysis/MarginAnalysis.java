@@ -8,7 +8,9 @@ import java.util.Objects;
  * of {@code |L| - 1} (gain crossover) and of {@code Im L} on the negative real axis (phase
  * crossover) is refined by Brent's root finder, and the grid minimum of {@code |1 + L|} is
  * refined by Brent's minimizer, each to a relative frequency accuracy better than
- * {@value #STATED_FREQUENCY_RELATIVE_ACCURACY}.
+ * {@value #STATED_FREQUENCY_RELATIVE_ACCURACY}. Both are Brent's methods: R. P. Brent,
+ * Algorithms for Minimization without Derivatives, Prentice-Hall, 1973, chapters 4 and 5, as
+ * implemented in Apache Commons Math 3.6.1. A full analysis evaluates the loop about 270 times.
  *
  * <p>With several gain crossovers the reported phase margin is the smallest one (and the delay
  * margin the smallest {@code PM / omega}); with several phase crossovers the reported gain
