@@ -1,0 +1,38 @@
+package org.loopform.analysis;
+
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.util.OptionalDouble;
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Test;
+
+@DisplayName("Loop margins record")
+class LoopMarginsTest {
+
+    private static final OptionalDouble NONE = OptionalDouble.empty();
+
+    @Test
+    void rejects_a_negative_gain_margin_and_names_it() {
+        assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(-2), OptionalDouble.of(1), NONE, NONE, NONE,
+                1.2, 1, ClosedLoopStability.STABLE))
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("gain margin")
+                .hasMessageContaining("got -2.0");
+    }
+
+    @Test
+    void rejects_a_phase_margin_without_its_crossover() {
+        assertThatThrownBy(() -> new LoopMargins(NONE, NONE, OptionalDouble.of(45), NONE, NONE,
+                1.2, 1, ClosedLoopStability.STABLE))
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("must come together");
+    }
+
+    @Test
+    void rejects_an_infinite_maximum_sensitivity() {
+        assertThatThrownBy(() -> new LoopMargins(NONE, NONE, NONE, NONE, NONE,
+                Double.POSITIVE_INFINITY, 1, ClosedLoopStability.UNSTABLE))
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("got Infinity");
+    }
+}

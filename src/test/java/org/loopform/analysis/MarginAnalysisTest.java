@@ -1,0 +1,121 @@
+package org.loopform.analysis;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Nested;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.loopform.lti.Polynomial;
+import org.loopform.lti.TransferFunction;
+
+@DisplayName("Margin analysis")
+class MarginAnalysisTest {
+
+    private static final FrequencyBand BAND = FrequencyBand.of(1e-3, 1e3);
+
+    @Nested
+    @DisplayName("on loops with known margins")
+    class KnownMargins {
+
+        // Derived exactly: L = k e^(-Ls)/s crosses over at wc = k with PM = 90 deg - k L rad,
+        // has its phase crossover at pi/(2L) with GM = pi/(2 k L), and delay margin PM/wc.
+        @ParameterizedTest
+        @CsvSource({"0.25, 1.0", "0.5, 2.0", "2.0, 0.1"})
+        void integrator_with_dead_time(double gainPerSecond, double deadTimeSeconds) {
+            TransferFunction integrator = new TransferFunction(Polynomial.constant(gainPerSecond), Polynomial.ofAscending(0, 1));
+
+            LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(integrator, deadTimeSeconds));
+
+            double pmRadians = Math.PI / 2 - gainPerSecond * deadTimeSeconds;
+            assertThat(margins.crossoverRadPerSecond().getAsDouble()).isCloseTo(gainPerSecond, within(1e-6 * gainPerSecond));
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(Math.toDegrees(pmRadians), within(1e-4));
+            assertThat(margins.delayMarginSeconds().getAsDouble())
+                    .isCloseTo(pmRadians / gainPerSecond, within(1e-6 * pmRadians / gainPerSecond));
+            double gm = Math.PI / (2 * gainPerSecond * deadTimeSeconds);
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(gm, within(1e-6 * gm));
+            assertThat(margins.stability()).isEqualTo(ClosedLoopStability.STABLE);
+        }
+
+        // Derived exactly from Ku = 8 for 1/(s + 1)^3: a P gain k gives GM = 8/k at w = sqrt(3).
+        @ParameterizedTest
+        @CsvSource({"7.9, STABLE", "8.1, UNSTABLE", "1.0, STABLE", "20.0, UNSTABLE"})
+        void third_order_lag_under_p_control_is_stable_below_ku(double gain, ClosedLoopStability expected) {
+            LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(gain))));
+
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isCloseTo(Math.sqrt(3), within(1e-6));
+            assertThat(margins.stability()).isEqualTo(expected);
+            assertThat(margins.marginsPositive()).isEqualTo(expected == ClosedLoopStability.STABLE);
+        }
+
+        // Dead time makes the phase run down without bound: at w = 100 rad/s and L = 1 s it has
+        // turned by about 100 rad. Derived: with gain 0.5 for 1/(s + 1), |L| < 1 everywhere.
+        @Test
+        void dead_time_far_beyond_crossover_leaves_the_gain_margin_finite() {
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-2, 1e2))
+                    .analyze(LoopResponse.of(Loops.lag(1).times(TransferFunction.gain(0.5)), 1.0));
+
+            assertThat(margins.phaseMarginDegrees()).isEmpty();
+            assertThat(margins.crossoverRadPerSecond()).isEmpty();
+            assertThat(margins.delayMarginSeconds()).isEmpty();
+            // smallest GM at the first phase crossover, where w + atan w = pi
+            double w = margins.phaseCrossoverRadPerSecond().getAsDouble();
+            assertThat(w + Math.atan(w)).isCloseTo(Math.PI, within(1e-8));
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(2 * Math.hypot(1, w), within(1e-8));
+            assertThat(margins.stability()).isEqualTo(ClosedLoopStability.STABLE);
+        }
+    }
+
+    @Nested
+    @DisplayName("on loops the band cannot judge")
+    class Undetermined {
+
+        @Test
+        void gain_above_one_at_the_band_top_leaves_stability_undetermined() {
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-2, 1e-1))
+                    .analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(2))));
+
+            assertThat(margins.stability()).isEqualTo(ClosedLoopStability.UNDETERMINED);
+            assertThat(margins.phaseMarginDegrees()).isEmpty();
+            assertThat(margins.gainMargin()).isEmpty();
+        }
+    }
+
+    @Nested
+    @DisplayName("validates its inputs")
+    class Validation {
+
+        @Test
+        void band_must_rise() {
+            assertThatThrownBy(() -> FrequencyBand.of(10, 1))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("got 1.0 rad/s");
+        }
+
+        @Test
+        void band_below_nyquist_ends_at_pi_over_h() {
+            assertThat(FrequencyBand.belowNyquist(0.01, 0.5).highRadPerSecond()).isEqualTo(Math.PI / 0.5);
+            assertThatThrownBy(() -> FrequencyBand.belowNyquist(0.01, 0))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("scan time");
+        }
+
+        @Test
+        void grid_needs_a_few_points() {
+            assertThatThrownBy(() -> MarginAnalysis.over(BAND, 3))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("got 3");
+        }
+
+        @Test
+        void dead_time_must_not_be_negative() {
+            assertThatThrownBy(() -> LoopResponse.of(Loops.lag(1), -0.5))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("got -0.5 s");
+        }
+    }
+}
