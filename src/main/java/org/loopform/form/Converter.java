@@ -58,25 +58,19 @@ public final class Converter {
         boolean exact = startLaw.sameAs(law, ControlLaw.SAME_LAW_TOLERANCE);
         PidSetting result = start;
         ControlLaw targetLaw = startLaw;
-        LawDeviation deviation = LawDeviation.NONE;
         if (!exact) {
             PidSetting fitted = new NearestFit(to, law, band).fit(start);
             ControlLaw fittedLaw = StructureLaw.toLaw(fitted, to.filter().placement());
-            LawDeviation startDeviation = LawDeviation.between(law, startLaw, band);
-            LawDeviation fittedDeviation = LawDeviation.between(law, fittedLaw, band);
-            if (score(fittedDeviation) <= score(startDeviation)) {
+            if (score(LawDeviation.ofFeedback(law, fittedLaw, band), LawDeviation.ofSetpoint(law, fittedLaw, band))
+                    <= score(LawDeviation.ofFeedback(law, startLaw, band), LawDeviation.ofSetpoint(law, startLaw, band))) {
                 result = fitted;
                 targetLaw = fittedLaw;
-                deviation = fittedDeviation;
-            } else {
-                deviation = startDeviation;
             }
             exact = targetLaw.sameAs(law, ControlLaw.SAME_LAW_TOLERANCE);
-            if (exact) {
-                deviation = LawDeviation.NONE;
-            }
         }
+        LawDeviation deviation = LawDeviation.NONE;
         if (!exact) {
+            deviation = LawDeviation.ofFeedback(law, targetLaw, band);
             explainInexact(law, targetLaw, to, band, deviation, findings);
         }
 
@@ -91,8 +85,10 @@ public final class Converter {
                 band, findings);
     }
 
-    private static double score(LawDeviation d) {
-        return d.gainDb() / FIT_FAIL_GAIN_DB + d.phaseDegrees() / FIT_FAIL_PHASE_DEG;
+    /** Feedback path first: a setpoint-path gain never buys a feedback-path loss. */
+    private static double score(LawDeviation feedback, LawDeviation setpoint) {
+        return 1e3 * (feedback.gainDb() / FIT_FAIL_GAIN_DB + feedback.phaseDegrees() / FIT_FAIL_PHASE_DEG)
+                + setpoint.gainDb() / FIT_FAIL_GAIN_DB + setpoint.phaseDegrees() / FIT_FAIL_PHASE_DEG;
     }
 
     /** Puts a candidate onto what the target can hold: its filter rule and its fixed weights. */
@@ -141,7 +137,7 @@ public final class Converter {
                 ? Severity.FAIL : Severity.WARN;
         String bandText = "over " + Numbers.significant(band.lowRadPerSecond(), 3) + " to "
                 + Numbers.significant(band.highRadPerSecond(), 3) + " rad/s";
-        String devText = "deviates by up to " + Numbers.significant(deviation.gainDb(), 3) + " dB and "
+        String devText = "deviates in its feedback path by up to " + Numbers.significant(deviation.gainDb(), 3) + " dB and "
                 + Numbers.significant(deviation.phaseDegrees(), 3) + " deg " + bandText;
         boolean explained = false;
         if (to.structure() == Structure.SERIES && StructureLaw.seriesDiscriminant(s) < 0) {
@@ -185,29 +181,22 @@ public final class Converter {
             }
             explained = true;
         }
-        if (!explained && target.sameFeedbackAs(law, ControlLaw.SAME_LAW_TOLERANCE)) {
-            LawDeviation sp = setpointDeviation(law, target, band);
-            findings.add(new Finding(Topic.REALIZABILITY, Severity.WARN, sp.gainDb(), ROUNDING_GAIN_DB, "dB", POLICY,
-                    "The feedback path is exact, but target " + to.id() + " cannot weight the setpoint as the source "
-                            + "does (setpoint weights b, c): the setpoint path deviates by up to "
-                            + Numbers.significant(sp.gainDb(), 3) + " dB and " + Numbers.significant(sp.phaseDegrees(), 3)
-                            + " deg; setpoint responses will differ, disturbance responses will not."));
-            explained = true;
-        }
-        if (!explained) {
+        boolean feedbackExact = target.sameFeedbackAs(law, ControlLaw.SAME_LAW_TOLERANCE);
+        if (!explained && !feedbackExact) {
             findings.add(new Finding(Topic.REALIZABILITY, fitSeverity, deviation.gainDb(), FIT_FAIL_GAIN_DB, "dB",
                     POLICY, "Target " + to.id() + " cannot write the source law exactly; the nearest setting "
                     + devText + "."));
         }
-    }
-
-    private static LawDeviation setpointDeviation(ControlLaw a, ControlLaw b, FrequencyBand band) {
-        // compare setpoint paths only: swap each law's setpoint terms into its feedback slot
-        PidTerms ta = a.terms();
-        PidTerms tb = b.terms();
-        return LawDeviation.between(
-                new ControlLaw(new PidTerms(ta.pr(), ta.i(), ta.dr(), ta.tf(), ta.pr(), ta.dr())),
-                new ControlLaw(new PidTerms(tb.pr(), tb.i(), tb.dr(), tb.tf(), tb.pr(), tb.dr())), band);
+        LawDeviation sp = LawDeviation.ofSetpoint(law, target, band);
+        if (sp.gainDb() > ROUNDING_GAIN_DB || sp.phaseDegrees() > ROUNDING_PHASE_DEG) {
+            findings.add(new Finding(Topic.REALIZABILITY, Severity.WARN, sp.gainDb(), ROUNDING_GAIN_DB, "dB", POLICY,
+                    (feedbackExact ? "The feedback path is exact, but t" : "T") + "arget " + to.id()
+                            + " cannot weight the setpoint as the source does (setpoint weights b, c"
+                            + (to.c().adjustable() ? "" : "; its c is fixed at " + Numbers.plain(to.c().defaultValue()))
+                            + "): the setpoint path deviates by up to " + Numbers.significant(sp.gainDb(), 3) + " dB and "
+                            + Numbers.significant(sp.phaseDegrees(), 3) + " deg " + bandText
+                            + ". Setpoint responses will differ; disturbance responses follow the feedback path."));
+        }
     }
 
     private static void checkLimits(FormDefinition to, WrittenTuning written, PidSetting s, List<Finding> findings) {

@@ -16,15 +16,15 @@ import org.loopform.law.PidTerms;
 /**
  * The member of a target form's family nearest to a law it cannot write exactly: minimizes the
  * squared complex log-ratio |ln(C_target(i w) / C_source(i w))|^2 (gain in nepers and phase in
- * radians weighted alike) over log-spaced frequencies of the band, the feedback path fully and
- * the setpoint path at {@link #SETPOINT_WEIGHT}, since the feedback path sets stability.
- * Positive coordinates are searched as logarithms so that no step can change their sign;
- * adjustable setpoint weights stay within their range through a smooth map.
+ * radians weighted alike) over log-spaced frequencies of the band. The setpoint weights b and c
+ * do not enter the feedback path, so the fit runs in two stages: first gain, integral, derivative
+ * and filter against the feedback path (which sets stability and disturbance response), then
+ * the adjustable weights against the setpoint path with the rest held. Positive coordinates are
+ * searched as logarithms so that no step can change their sign; weights stay within their range
+ * through a smooth map.
  */
 final class NearestFit {
 
-    /** The setpoint path matters for setpoint response only; the feedback path also for stability. */
-    static final double SETPOINT_WEIGHT = 0.1;
     private static final int FIT_POINTS = 80;
     private static final int MAX_EVALUATIONS = 40_000;
 
@@ -50,48 +50,81 @@ final class NearestFit {
 
     /** The nearest setting, searched from {@code start}. */
     PidSetting fit(PidSetting start) {
-        double[] x0 = encode(start);
-        if (x0.length == 0) {
-            return start;
+        double[] x = minimize(encode(start), v -> cost(decode(v, start.b(), start.c()), true));
+        PidSetting feedbackFitted = decode(x, start.b(), start.c());
+        double[] w = encodeWeights(feedbackFitted);
+        if (w.length == 0) {
+            return feedbackFitted;
         }
+        double[] wBest = minimize(w, v -> cost(withWeights(feedbackFitted, v), false));
+        return withWeights(feedbackFitted, wBest);
+    }
+
+    private static double[] minimize(double[] x0, java.util.function.ToDoubleFunction<double[]> f) {
+        if (x0.length == 0) {
+            return x0;
+        }
+        org.apache.commons.math3.analysis.MultivariateFunction safe = v -> {
+            try {
+                double c = f.applyAsDouble(v);
+                return Double.isFinite(c) ? c : Double.MAX_VALUE;
+            } catch (IllegalArgumentException e) {
+                return Double.MAX_VALUE;
+            }
+        };
         double[] best = x0;
-        double bestValue = cost(x0);
-        // Two rounds: the second restarts the simplex at the first result, so a collapsed simplex
-        // does not stop the search short of the minimum.
+        double bestValue = safe.value(x0);
+        // Three rounds: each restarts the simplex at the last result, so a collapsed simplex does
+        // not stop the search short of the minimum.
         for (int round = 0; round < 3; round++) {
             double[] steps = new double[best.length];
             java.util.Arrays.fill(steps, round == 0 ? 0.5 : 0.05);
             SimplexOptimizer optimizer = new SimplexOptimizer(1e-15, 1e-15);
-            PointValuePair r = optimizer.optimize(new MaxEval(MAX_EVALUATIONS), new ObjectiveFunction(this::cost),
+            PointValuePair r = optimizer.optimize(new MaxEval(MAX_EVALUATIONS), new ObjectiveFunction(safe),
                     GoalType.MINIMIZE, new InitialGuess(best), new NelderMeadSimplex(steps));
             if (r.getValue() < bestValue) {
                 best = r.getPoint();
                 bestValue = r.getValue();
             }
         }
-        return decode(best);
+        return best;
     }
 
-    private double cost(double[] x) {
-        PidSetting s;
-        try {
-            s = decode(x);
-        } catch (IllegalArgumentException e) {
-            return Double.MAX_VALUE;
-        }
+    /** The fit's objective over the band, for the feedback path or the setpoint path. */
+    private double cost(PidSetting s, boolean feedback) {
         ControlLaw law = StructureLaw.toLaw(s, target.filter().placement());
         double[] a = new double[2];
         double[] b = new double[2];
         double sum = 0;
         for (double w : omegas) {
-            source.feedbackAt(w, a);
-            law.feedbackAt(w, b);
+            if (feedback) {
+                source.feedbackAt(w, a);
+                law.feedbackAt(w, b);
+            } else {
+                source.setpointAt(w, a);
+                law.setpointAt(w, b);
+            }
             sum += logRatioSquared(a, b);
-            source.setpointAt(w, a);
-            law.setpointAt(w, b);
-            sum += SETPOINT_WEIGHT * logRatioSquared(a, b);
         }
-        return Double.isFinite(sum) ? sum : Double.MAX_VALUE;
+        return sum;
+    }
+
+    private double[] encodeWeights(PidSetting s) {
+        List<Double> x = new ArrayList<>();
+        if (target.b().adjustable()) {
+            x.add(toUnbounded(s.b(), target.b()));
+        }
+        if (target.c().adjustable() && useDerivative) {
+            x.add(toUnbounded(s.c(), target.c()));
+        }
+        return x.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
+    private PidSetting withWeights(PidSetting s, double[] w) {
+        int k = 0;
+        double b = target.b().adjustable() ? fromUnbounded(w[k++], target.b()) : s.b();
+        double c = target.c().adjustable() && useDerivative ? fromUnbounded(w[k++], target.c()) : s.c();
+        return s.withWeights(b, c);
     }
 
     private static double logRatioSquared(double[] a, double[] b) {
@@ -125,16 +158,10 @@ final class NearestFit {
                     ? (s.filterSeconds() > 0 ? td / s.filterSeconds() : target.filter().ratio())
                     : Math.max(s.filterSeconds(), td / target.filter().ratio())));
         }
-        if (target.b().adjustable()) {
-            x.add(toUnbounded(s.b(), target.b()));
-        }
-        if (target.c().adjustable() && useDerivative) {
-            x.add(toUnbounded(s.c(), target.c()));
-        }
         return x.stream().mapToDouble(Double::doubleValue).toArray();
     }
 
-    private PidSetting decode(double[] x) {
+    private PidSetting decode(double[] x, double b, double c) {
         int k = 0;
         double gain = sign * Math.exp(x[k++]);
         boolean parallel = target.structure() == Structure.PARALLEL;
@@ -162,9 +189,6 @@ final class NearestFit {
                 case TIME_CONSTANT -> target.filter().unit().toSeconds(target.filter().defaultTime());
             };
         }
-        double b = target.b().adjustable() ? fromUnbounded(x[k++], target.b()) : target.b().defaultValue();
-        double c = target.c().adjustable() && useDerivative ? fromUnbounded(x[k++], target.c())
-                : target.c().defaultValue();
         return new PidSetting(target.structure(), gain, integral, derivative, tf, b, c);
     }
 

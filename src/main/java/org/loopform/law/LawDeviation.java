@@ -2,8 +2,8 @@ package org.loopform.law;
 
 /**
  * How far one law's frequency response strays from another's over a band: the largest gain
- * difference in dB and the largest phase difference in degrees, each taken over both paths
- * (feedback and setpoint), with the frequency where the gain one is largest.
+ * difference in dB and the largest phase difference in degrees, over the feedback path, the
+ * setpoint path or both, with the frequency where the gain difference is largest.
  */
 public record LawDeviation(double gainDb, double phaseDegrees, double worstRadPerSecond) {
 
@@ -19,8 +19,23 @@ public record LawDeviation(double gainDb, double phaseDegrees, double worstRadPe
     /** Number of log-spaced points on which laws are compared. */
     static final int GRID_POINTS = 400;
 
-    /** The deviation of {@code actual} from {@code reference} over {@code band}. */
+    /** The deviation of {@code actual} from {@code reference} over {@code band}, both paths. */
     public static LawDeviation between(ControlLaw reference, ControlLaw actual, FrequencyBand band) {
+        return over(reference, actual, band, true, true);
+    }
+
+    /** The deviation of the feedback paths C_y only: what stability and disturbance response see. */
+    public static LawDeviation ofFeedback(ControlLaw reference, ControlLaw actual, FrequencyBand band) {
+        return over(reference, actual, band, true, false);
+    }
+
+    /** The deviation of the setpoint paths C_r only: what setpoint responses see. */
+    public static LawDeviation ofSetpoint(ControlLaw reference, ControlLaw actual, FrequencyBand band) {
+        return over(reference, actual, band, false, true);
+    }
+
+    private static LawDeviation over(ControlLaw reference, ControlLaw actual, FrequencyBand band,
+                                     boolean feedback, boolean setpoint) {
         double[] a = new double[2];
         double[] b = new double[2];
         double worstGain = 0;
@@ -28,6 +43,9 @@ public record LawDeviation(double gainDb, double phaseDegrees, double worstRadPe
         double worstAt = band.lowRadPerSecond();
         for (double w : band.grid(GRID_POINTS)) {
             for (int path = 0; path < 2; path++) {
+                if (path == 0 && !feedback || path == 1 && !setpoint) {
+                    continue;
+                }
                 if (path == 0) {
                     reference.feedbackAt(w, a);
                     actual.feedbackAt(w, b);

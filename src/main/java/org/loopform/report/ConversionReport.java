@@ -39,7 +39,7 @@ public final class ConversionReport {
             sb.append("Exact: the target writes the same control law (both paths compared as rational functions).")
                     .append(nl);
         } else {
-            sb.append("Not exact: nearest setting; the law deviates by up to ")
+            sb.append("Not exact: nearest setting; its feedback path deviates by up to ")
                     .append(Numbers.significant(c.deviation().gainDb(), 3)).append(" dB and ")
                     .append(Numbers.significant(c.deviation().phaseDegrees(), 3)).append(" deg over ")
                     .append(Numbers.significant(c.band().lowRadPerSecond(), 3)).append(" to ")
