@@ -1,0 +1,41 @@
+package org.loopform.audit;
+
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import org.loopform.form.FormDefinition;
+import org.loopform.form.FormException;
+import org.loopform.process.ProcessModel;
+import org.loopform.units.Span;
+
+/**
+ * One loop to carry across: its tag (ISA-5.1 style, e.g. TIC-104), its process model if known,
+ * its tuning as written in the source form (and the source's own scan time if the source is a
+ * sampled controller whose algorithm should be simulated), the target form and scan time, and
+ * the PV and output ranges. {@code where} names the file and line it came from, for messages.
+ */
+public record LoopSpec(String tag, ProcessModel process, FormDefinition sourceForm, Map<String, String> tuning,
+                       Double sourceScanSeconds, FormDefinition targetForm, Double targetScanSeconds,
+                       Span pvRange, Span outputRange, String where) {
+
+    public LoopSpec {
+        if (tag == null || tag.isBlank()) {
+            throw new FormException("tag: every loop needs a tag, e.g. TIC-104");
+        }
+        if (sourceForm == null || targetForm == null) {
+            throw new FormException("loop " + tag + " needs a source form (tuning.form) and a target form (target.form)");
+        }
+        tuning = Collections.unmodifiableMap(new LinkedHashMap<>(tuning));
+        where = where == null ? "" : where;
+    }
+
+    public boolean hasProcess() {
+        return process != null;
+    }
+
+    /** The loop with another target scan time (for --scan and --sweep-scan). */
+    public LoopSpec withTargetScan(double scanSeconds) {
+        return new LoopSpec(tag, process, sourceForm, tuning, sourceScanSeconds, targetForm, scanSeconds, pvRange,
+                outputRange, where);
+    }
+}
