@@ -1,0 +1,97 @@
+package org.loopform.scan;
+
+import org.loopform.form.Discretization;
+import org.loopform.form.PidSetting;
+
+/**
+ * What a scan time does to a setting's derivative: N h / Td (which equals h / Tf when
+ * Tf = Td / N), the discrete filter pole, whether the derivative rings or does not decay, and the
+ * phase lead it keeps. Filter poles per discretization as in Wittenmark, Astrom and Arzen,
+ * "Computer Control: An Overview", IFAC Professional Brief, 2002, Table 3: forward 1 - h/Tf
+ * (unstable when h > 2 Tf), backward Tf/(Tf + h), trapezoidal (2 Tf - h)/(2 Tf + h) (negative,
+ * so ringing, when h > 2 Tf), step (ramp) invariant exp(-h/Tf).
+ *
+ * @param scanSeconds           scan time h, s
+ * @param filterSeconds         derivative filter time constant Tf, s (0: none)
+ * @param derivativeTimeSeconds derivative time Td, s (0: no derivative action)
+ * @param method                the derivative discretization
+ */
+public record ScanFacts(double scanSeconds, double filterSeconds, double derivativeTimeSeconds,
+                        Discretization method) {
+
+    public ScanFacts {
+        ScanController.checkScan(scanSeconds);
+        if (!(filterSeconds >= 0) || !Double.isFinite(filterSeconds)) {
+            throw new IllegalArgumentException("filter time constant must be >= 0 s (got " + filterSeconds + " s)");
+        }
+        if (!(derivativeTimeSeconds >= 0) || !Double.isFinite(derivativeTimeSeconds)) {
+            throw new IllegalArgumentException("derivative time must be >= 0 s (got " + derivativeTimeSeconds + " s)");
+        }
+        if (method == null) {
+            throw new IllegalArgumentException("scan facts need the derivative discretization");
+        }
+    }
+
+    /** The facts for {@code setting} run with derivative discretization {@code method} at scan time h. */
+    public static ScanFacts of(PidSetting setting, Discretization method, double scanSeconds) {
+        return new ScanFacts(scanSeconds, setting.filterSeconds(), Math.abs(setting.derivativeTimeSeconds()), method);
+    }
+
+    public boolean hasDerivative() {
+        return derivativeTimeSeconds > 0;
+    }
+
+    /** N h / Td with N = Td / Tf, that is h / Tf; infinite without a filter. */
+    public double nhOverTd() {
+        return filterSeconds == 0 ? Double.POSITIVE_INFINITY : scanSeconds / filterSeconds;
+    }
+
+    /** The discrete derivative filter's pole in z (0 without a filter: a plain backward difference). */
+    public double filterPole() {
+        return filter().pole();
+    }
+
+    /** True when the filter pole lies in (-1, 0): each scan the derivative flips sign while it decays. */
+    public boolean rings() {
+        double pole = filterPole();
+        return pole < 0 && pole > -1;
+    }
+
+    /** True when the filter pole has magnitude 1 or more: the derivative term does not decay (forward, h >= 2 Tf). */
+    public boolean unstable() {
+        return Math.abs(filterPole()) >= 1;
+    }
+
+    /**
+     * The phase of the discrete filtered derivative {@code D(e^(i omega h))}, degrees; the
+     * continuous one, {@code Td s/(1 + Tf s)}, leads by 90 - atan(omega Tf). The hold's h/2 delay
+     * is the process side's and is not included.
+     */
+    public double phaseLeadDegrees(double omegaRadPerSecond) {
+        checkFrequency(omegaRadPerSecond);
+        double[] d = new double[2];
+        filter().responseAt(omegaRadPerSecond * scanSeconds, d);
+        return Math.toDegrees(Math.atan2(d[1], d[0]));
+    }
+
+    /** The continuous filtered derivative's phase lead, 90 - atan(omega Tf), degrees (common practice). */
+    public double continuousPhaseLeadDegrees(double omegaRadPerSecond) {
+        checkFrequency(omegaRadPerSecond);
+        return 90.0 - Math.toDegrees(Math.atan(omegaRadPerSecond * filterSeconds));
+    }
+
+    /** How much phase lead the discrete derivative loses against the continuous one at omega, degrees. */
+    public double phaseLeadLostDegrees(double omegaRadPerSecond) {
+        return continuousPhaseLeadDegrees(omegaRadPerSecond) - phaseLeadDegrees(omegaRadPerSecond);
+    }
+
+    private DerivativeFilter filter() {
+        return DerivativeFilter.of(method, filterSeconds, scanSeconds);
+    }
+
+    private static void checkFrequency(double omega) {
+        if (!(omega > 0) || !Double.isFinite(omega)) {
+            throw new IllegalArgumentException("frequency must be > 0 rad/s and finite (got " + omega + " rad/s)");
+        }
+    }
+}
