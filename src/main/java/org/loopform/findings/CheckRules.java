@@ -1,0 +1,174 @@
+package org.loopform.findings;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.loopform.analysis.ClosedLoopStability;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.form.AlgorithmKind;
+import org.loopform.form.AntiWindup;
+import org.loopform.form.FormDefinition;
+import org.loopform.law.LawDeviation;
+import org.loopform.scan.ScanFacts;
+import org.loopform.units.Numbers;
+
+/**
+ * The deployment checker's rules: each turns one figure of the target loop into a finding with
+ * its threshold (from {@link CheckPolicy}) and the threshold's source.
+ */
+public final class CheckRules {
+
+    static final String WITTENMARK_2002 = "Wittenmark, Astrom & Arzen, Computer Control: An Overview, IFAC 2002, Table 3";
+    static final String ASTROM_WITTENMARK = "Astrom & Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 "
+            + "(from memory)";
+    static final String MS_SOURCE = "Astrom & Hagglund 1995, as cited in Octave control package docs: Ms 1.3 to 2";
+    static final String COMMON = "common practice";
+
+    private CheckRules() {
+    }
+
+    /** What the rules look at. {@code design} and {@code target} are null without a process model. */
+    public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
+                         LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond) {
+    }
+
+    public static List<Finding> evaluate(Inputs in, CheckPolicy policy) {
+        List<Finding> out = new ArrayList<>();
+        scanAllowed(in, out);
+        sampling(in, policy, out);
+        derivative(in, policy, out);
+        discretization(in, policy, out);
+        robustness(in, policy, out);
+        windup(in, out);
+        return out;
+    }
+
+    private static void scanAllowed(Inputs in, List<Finding> out) {
+        if (!in.targetForm().algorithm().allowsScan(in.scanSeconds())) {
+            out.add(new Finding(Topic.SAMPLING, Severity.FAIL, in.scanSeconds(), null, "s", "target form " + in.targetForm().id(),
+                    "Scan time " + Numbers.plain(in.scanSeconds()) + " s is not one that " + in.targetForm().id()
+                            + " allows; pick one of its scan times (loopform forms show " + in.targetForm().id() + ")."));
+        }
+    }
+
+    private static void sampling(Inputs in, CheckPolicy p, List<Finding> out) {
+        LoopMargins m = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
+        if (m == null || m.crossoverRadPerSecond().isEmpty()) {
+            return;
+        }
+        double wc = m.crossoverRadPerSecond().getAsDouble();
+        double hwc = in.scanSeconds() * wc;
+        double lostDeg = Math.toDegrees(hwc / 2);
+        Severity s = hwc > p.samplingFail() ? Severity.FAIL : hwc > p.samplingWarn() ? Severity.WARN : null;
+        if (s != null) {
+            out.add(new Finding(Topic.SAMPLING, s, hwc, s == Severity.FAIL ? p.samplingFail() : p.samplingWarn(), "rad",
+                    ASTROM_WITTENMARK, "The scan is slow for this loop: scan time times crossover is "
+                    + Numbers.significant(hwc, 3) + " rad (crossover " + Numbers.significant(wc, 3) + " rad/s); the hold"
+                    + " alone, a delay of about h/2, costs " + Numbers.significant(lostDeg, 3) + " deg of phase at"
+                    + " crossover. Use a scan of at most " + Numbers.significant(p.samplingWarn() / wc, 3) + " s."));
+        }
+    }
+
+    private static void derivative(Inputs in, CheckPolicy p, List<Finding> out) {
+        ScanFacts f = in.facts();
+        if (!f.hasDerivative()) {
+            return;
+        }
+        if (f.filterSeconds() > 0 && f.nhOverTd() > p.derivativeNhTdWarn()) {
+            out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, f.nhOverTd(), p.derivativeNhTdWarn(), "ratio",
+                    ASTROM_WITTENMARK, "The derivative is spoiled by the scan: N h / Td = "
+                    + Numbers.significant(f.nhOverTd(), 3) + " (the filter time constant Td/N = "
+                    + Numbers.significant(f.filterSeconds(), 3) + " s is shorter than the scan's reach). Scan faster, or"
+                    + " accept that derivative action is mostly lost."));
+        } else if (f.filterSeconds() == 0 && in.scanSeconds() > f.derivativeTimeSeconds()) {
+            out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, in.scanSeconds() / f.derivativeTimeSeconds(), 1.0,
+                    "ratio", COMMON, "The scan time is longer than the derivative time, so the unfiltered derivative"
+                    + " acts as one-scan spikes."));
+        }
+        LoopMargins m = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
+        if (m != null && m.crossoverRadPerSecond().isPresent()) {
+            double wc = m.crossoverRadPerSecond().getAsDouble();
+            if (wc < Math.PI / in.scanSeconds()) {
+                double cont = f.continuousPhaseLeadDegrees(wc);
+                double kept = f.phaseLeadDegrees(wc);
+                double fraction = cont > 1e-9 ? kept / cont : 1.0;
+                if (cont > 1.0 && fraction < p.derivativeLeadKeptWarn()) {
+                    out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, fraction, p.derivativeLeadKeptWarn(),
+                            "fraction", COMMON, "At crossover (" + Numbers.significant(wc, 3) + " rad/s) the sampled"
+                            + " derivative keeps " + Numbers.significant(kept, 3) + " deg of the "
+                            + Numbers.significant(cont, 3) + " deg of phase lead the continuous derivative gives."));
+                }
+            }
+        }
+    }
+
+    private static void discretization(Inputs in, CheckPolicy p, List<Finding> out) {
+        ScanFacts f = in.facts();
+        if (f.hasDerivative() && f.unstable()) {
+            out.add(new Finding(Topic.DISCRETIZATION, Severity.FAIL, in.scanSeconds() / f.filterSeconds(), 2.0, "ratio",
+                    WITTENMARK_2002, "The forward-difference derivative is unstable at this scan: h / Tf = "
+                    + Numbers.significant(in.scanSeconds() / f.filterSeconds(), 3) + " > 2, filter pole "
+                    + Numbers.significant(f.filterPole(), 3) + " outside the unit circle."));
+        } else if (f.hasDerivative() && f.rings()) {
+            out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, in.scanSeconds() / f.filterSeconds(), 2.0, "ratio",
+                    WITTENMARK_2002, "The trapezoidal derivative rings at this scan: h / Tf = "
+                    + Numbers.significant(in.scanSeconds() / f.filterSeconds(), 3) + " > 2 puts the filter pole at "
+                    + Numbers.significant(f.filterPole(), 3) + " (negative), so the derivative term alternates in sign"
+                    + " every scan."));
+        }
+        LawDeviation d = in.mismatch();
+        if (d != null && (d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
+            out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
+                    "The controller as the target runs it departs from the design law by up to "
+                    + Numbers.significant(d.gainDb(), 3) + " dB and " + Numbers.significant(d.phaseDegrees(), 3)
+                    + " deg over its band (to " + Numbers.significant(in.mismatchBandHighRadPerSecond(), 3)
+                    + " rad/s, at most the Nyquist frequency)."));
+        }
+    }
+
+    private static void robustness(Inputs in, CheckPolicy p, List<Finding> out) {
+        LoopMargins t = in.targetLoop();
+        if (t == null) {
+            return;
+        }
+        if (t.stability() == ClosedLoopStability.UNSTABLE || !t.marginsPositive()) {
+            out.add(new Finding(Topic.ROBUSTNESS, Severity.FAIL, t.phaseMarginDegrees().isPresent()
+                    ? t.phaseMarginDegrees().getAsDouble() : null, 0.0, "deg", COMMON,
+                    "The target loop is unstable as it will run (negative margin): do not deploy this tuning."));
+            return;
+        }
+        if (t.maximumSensitivity() > p.msWarn()) {
+            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.maximumSensitivity(), p.msWarn(), "ratio", MS_SOURCE,
+                    "The target loop's maximum sensitivity Ms is " + Numbers.significant(t.maximumSensitivity(), 3)
+                            + ", above " + Numbers.plain(p.msWarn()) + ": it amplifies disturbances near "
+                            + Numbers.significant(t.maximumSensitivityRadPerSecond(), 3) + " rad/s and is close to"
+                            + " instability."));
+        }
+        LoopMargins d = in.designLoop();
+        if (d != null && t.maximumSensitivity() > d.maximumSensitivity() * (1 + p.msIncreaseWarn())) {
+            double rise = t.maximumSensitivity() / d.maximumSensitivity() - 1;
+            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, 100 * rise, 100 * p.msIncreaseWarn(), "%", COMMON,
+                    "Robustness is lost in the migration: Ms rises from " + Numbers.significant(d.maximumSensitivity(), 3)
+                            + " (design) to " + Numbers.significant(t.maximumSensitivity(), 3) + " (target)."));
+        }
+        if (t.phaseMarginDegrees().isPresent() && t.phaseMarginDegrees().getAsDouble() < p.phaseMarginWarnDegrees()) {
+            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.phaseMarginDegrees().getAsDouble(),
+                    p.phaseMarginWarnDegrees(), "deg", COMMON, "The target loop's phase margin is "
+                    + Numbers.significant(t.phaseMarginDegrees().getAsDouble(), 3) + " deg, below "
+                    + Numbers.plain(p.phaseMarginWarnDegrees()) + " deg."));
+        }
+        if (t.gainMargin().isPresent() && t.gainMargin().getAsDouble() < p.gainMarginWarn()) {
+            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.gainMargin().getAsDouble(), p.gainMarginWarn(),
+                    "ratio", COMMON, "The target loop's gain margin is " + Numbers.significant(t.gainMargin().getAsDouble(), 3)
+                    + ", below " + Numbers.plain(p.gainMarginWarn()) + "."));
+        }
+    }
+
+    private static void windup(Inputs in, List<Finding> out) {
+        var a = in.targetForm().algorithm();
+        if (a.kind() == AlgorithmKind.POSITIONAL && a.antiWindup() == AntiWindup.NONE) {
+            out.add(new Finding(Topic.WINDUP, Severity.WARN, null, null, "", COMMON, "Target " + in.targetForm().id()
+                    + " runs a positional algorithm without anti-windup: after the output saturates, the integral keeps"
+                    + " growing and the loop overshoots when it comes off the limit."));
+        }
+    }
+}
