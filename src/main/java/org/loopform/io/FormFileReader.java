@@ -178,8 +178,11 @@ public final class FormFileReader {
                 return value;
             }
         } catch (FormException | UnitException e) {
-            String m = e.getMessage();
-            problems.add(n.file() + ":" + n.line() + ": " + (m.startsWith(key) ? "" : key + ": ") + m);
+            // a value already reported stands in as 0 and may break the record; report the cause only
+            if (problems.size() == before) {
+                String m = e.getMessage();
+                problems.add(n.file() + ":" + n.line() + ": " + (m.startsWith(key) ? "" : key + ": ") + m);
+            }
         }
         fellBack.add(key);
         return fallback.get();
@@ -215,8 +218,10 @@ public final class FormFileReader {
             return fallback;
         }
         String t = text(n).trim().toLowerCase(Locale.ROOT);
+        List<String> accepted = allowed.length > 0 ? List.of(allowed) : null;
         for (E e : type.getEnumConstants()) {
-            if (e.name().toLowerCase(Locale.ROOT).equals(t)) {
+            String name = e.name().toLowerCase(Locale.ROOT);
+            if (name.equals(t) && (accepted == null || accepted.contains(name))) {
                 return e;
             }
         }
@@ -387,7 +392,8 @@ public final class FormFileReader {
         try {
             return new DiscreteAlgorithm(kind, integral, derivative, aw, tracking, low, high, allowed, minScan, maxScan);
         } catch (FormException ex) {
-            problems.add(n.where() + ex.getMessage());
+            // the record's messages already start with "algorithm: "
+            problems.add(n.file() + ":" + n.line() + ": " + ex.getMessage());
             return d;
         }
     }
