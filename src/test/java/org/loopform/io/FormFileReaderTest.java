@@ -63,6 +63,18 @@ class FormFileReaderTest {
         }
 
         @Test
+        void the_example_in_the_readme_is_a_valid_form() throws IOException {
+            String readme = Files.readString(CATALOG.resolve("README.md"));
+            int start = readme.indexOf("```yaml\n") + "```yaml\n".length();
+            String yaml = readme.substring(start, readme.indexOf("```", start));
+            FormDefinition f = FormFileReader.parse(yaml, "README.md example");
+            assertThat(f.id()).isEqualTo("example-series-band");
+            assertThat(f.parameterNames()).containsExactly("pb", "ti", "td");
+            assertThat(f.integral().isOff(100)).isTrue();
+            assertThat(f.algorithm().allowedScansSeconds()).containsExactly(0.25, 0.5, 1.0);
+        }
+
+        @Test
         void reads_a_band_and_repeats_form_as_written() {
             FormDefinition f = FormFileReader.read(CATALOG.resolve("ideal-pb-repeats.yaml"), "ideal-pb-repeats.yaml");
             assertThat(f.structure()).isEqualTo(Structure.IDEAL);
