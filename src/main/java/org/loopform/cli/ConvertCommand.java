@@ -30,7 +30,7 @@ import picocli.CommandLine.Spec;
                 "  loopform convert --from ideal --to ideal-pb-repeats kc=1.2 ti=60 td=4",
                 "  loopform convert --from series-pb-min --to ideal pb=80 ti=2.5min td=0.4 action=reverse",
                 "  loopform convert --from ideal --to parallel-eu kc=1.5 ti=90s td=0 --pv-range 0..150 --out-range 0..100",
-                "", "Values may carry a unit that overrides the form's: ti=90s, td=0.5min, reset=2/min, pb=40%.",
+                "", "Values may carry a unit that overrides the form's: ti=90s, td=0.5min, reset=2/min, pb=40%%.",
                 "Exit codes: 0 done; 1 a finding of severity fail (for example a value beyond the target's limits);"
                         + " 2 bad input.", "", Cautions.SHORT})
 final class ConvertCommand implements Callable<Integer> {

@@ -17,40 +17,42 @@ public record FormDefinition(String id, String title, String description, Struct
     private static final Pattern ID = Pattern.compile("[a-z0-9][a-z0-9._-]*");
 
     public FormDefinition {
-        if (id == null || !ID.matcher(id).matches()) {
-            throw new FormException("id: must be lower-case letters, digits, '.', '_' or '-' (got '" + id + "')");
-        }
-        if (title == null || title.isBlank()) {
-            throw new FormException("title: every form needs a one-line title");
-        }
         description = description == null ? "" : description;
         if (structure == null || gain == null || integral == null || derivative == null || filter == null
                 || b == null || c == null || algorithm == null) {
             throw new FormException("form " + id + " is incomplete");
         }
+        // every rule is checked, so that one read of a form file reports all of them
+        List<String> problems = new ArrayList<>();
+        if (id == null || !ID.matcher(id).matches()) {
+            problems.add("id: must be lower-case letters, digits, '.', '_' or '-' (got '" + id + "')");
+        }
+        if (title == null || title.isBlank()) {
+            problems.add("title: every form needs a one-line title");
+        }
         boolean parallel = structure == Structure.PARALLEL;
         if (!parallel && (integral.writing() == IntegralWriting.GAIN || integral.writing() == IntegralWriting.PER_SCAN)) {
-            throw new FormException("integral.as: '" + integral.writing().name().toLowerCase() + "' needs structure "
+            problems.add("integral.as: '" + integral.writing().name().toLowerCase() + "' needs structure "
                     + "parallel; an " + structure.id() + " form writes integral as 'time' or 'rate'");
         }
         if (!parallel && derivative.writing() != DerivativeWriting.TIME) {
-            throw new FormException("derivative.as: '" + derivative.writing().name().toLowerCase() + "' needs structure "
+            problems.add("derivative.as: '" + derivative.writing().name().toLowerCase() + "' needs structure "
                     + "parallel; an " + structure.id() + " form writes derivative as 'time'");
         }
         if (parallel && derivative.writing() == DerivativeWriting.TIME) {
-            throw new FormException("derivative.as: a parallel form writes derivative as 'gain' or 'per_scan' (kd)");
+            problems.add("derivative.as: a parallel form writes derivative as 'gain' or 'per_scan' (kd)");
         }
         if (parallel && gain.writing() == GainWriting.BAND) {
-            throw new FormException("gain.as: a parallel form writes kp as 'gain'; a band belongs to ideal or series forms");
+            problems.add("gain.as: a parallel form writes kp as 'gain'; a band belongs to ideal or series forms");
         }
         if (filter.placement() == FilterPlacement.MEASUREMENT && structure != Structure.SERIES
                 && (c.adjustable() || c.defaultValue() != 0)) {
-            throw new FormException("weights.c: a filter on the measurement leaves the setpoint unfiltered, so the "
+            problems.add("weights.c: a filter on the measurement leaves the setpoint unfiltered, so the "
                     + "setpoint derivative weight must be fixed at 0 (derivative on measurement)");
         }
         if (structure == Structure.SERIES && (c.adjustable()
                 || (c.defaultValue() != 0 && c.defaultValue() != 1))) {
-            throw new FormException("weights.c: a series form takes derivative on error (c: 1) or on measurement "
+            problems.add("weights.c: a series form takes derivative on error (c: 1) or on measurement "
                     + "(c: 0), fixed (got " + (c.adjustable() ? "adjustable" : c.defaultValue()) + ")");
         }
         limits = Map.copyOf(limits);
@@ -58,9 +60,12 @@ public record FormDefinition(String id, String title, String description, Struct
                 .map(FormParameter::name).filter(n -> !n.equals("action")).toList();
         for (String key : limits.keySet()) {
             if (!names.contains(key)) {
-                throw new FormException("limits." + key + ": form " + id + " has no parameter '" + key
+                problems.add("limits." + key + ": form " + id + " has no parameter '" + key
                         + "'; its parameters are " + String.join(", ", names));
             }
+        }
+        if (!problems.isEmpty()) {
+            throw new FormException(problems);
         }
     }
 

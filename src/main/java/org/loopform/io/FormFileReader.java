@@ -44,6 +44,8 @@ public final class FormFileReader {
             "derivative", "filter", "weights", "limits", "algorithm");
 
     private final List<String> problems = new ArrayList<>();
+    /** Sections that could not be read and stand in with their defaults. */
+    private final Set<String> fellBack = new java.util.HashSet<>();
 
     private FormFileReader() {
     }
@@ -70,8 +72,12 @@ public final class FormFileReader {
         String id = requiredText(root, top, "id");
         String title = requiredText(root, top, "title");
         String description = top.containsKey("description") ? text(top.get("description")) : "";
+        int beforeStructure = problems.size();
         Structure structure = top.containsKey("structure")
                 ? choice(top.get("structure"), Structure.class, null) : missing(root, "structure", Structure.class);
+        if (problems.size() != beforeStructure) {
+            fellBack.add("structure");
+        }
 
         GainSpec gain = section(top, "gain", Set.of("as", "basis", "sign"), n -> new GainSpec(
                 choice(n.get("as"), GainWriting.class, GainWriting.GAIN, "gain", "band"),
@@ -105,12 +111,18 @@ public final class FormFileReader {
         DiscreteAlgorithm algorithm = top.containsKey("algorithm") ? algorithm(top.get("algorithm"))
                 : DiscreteAlgorithm.defaults();
 
-        if (problems.isEmpty()) {
+        // the cross-field rules run on what was read, unless a section they depend on stands in with
+        // its defaults (a rule about a default the file never wrote would only confuse)
+        if (problems.isEmpty() || java.util.Collections.disjoint(fellBack,
+                Set.of("structure", "gain", "integral", "derivative", "filter", "weights"))) {
             try {
-                return new FormDefinition(id, title, description, structure, gain, integral, derivative, filter,
-                        weights[0], weights[1], limits, algorithm);
+                FormDefinition form = new FormDefinition(id, title, description, structure, gain, integral, derivative,
+                        filter, weights[0], weights[1], limits, algorithm);
+                if (problems.isEmpty()) {
+                    return form;
+                }
             } catch (FormException e) {
-                problems.add(locate(root, e.getMessage()));
+                e.problems().forEach(p -> problems.add(locate(root, p)));
             }
         }
         throw new InputException(problems);
@@ -155,18 +167,25 @@ public final class FormFileReader {
         if (!n.isMapping()) {
             problems.add(n.where() + "expected a mapping with keys " + String.join(", ", known.stream().sorted()
                     .toList()));
+            fellBack.add(key);
             return fallback.get();
         }
         problems.addAll(n.unknownKeys(known));
         int before = problems.size();
         try {
             T value = reader.read(n.entries());
-            return problems.size() == before ? value : fallback.get();
+            if (problems.size() == before) {
+                return value;
+            }
         } catch (FormException | UnitException e) {
-            String m = e.getMessage();
-            problems.add(n.file() + ":" + n.line() + ": " + (m.startsWith(key) ? "" : key + ": ") + m);
-            return fallback.get();
+            // a value already reported stands in as 0 and may break the record; report the cause only
+            if (problems.size() == before) {
+                String m = e.getMessage();
+                problems.add(n.file() + ":" + n.line() + ": " + (m.startsWith(key) ? "" : key + ": ") + m);
+            }
         }
+        fellBack.add(key);
+        return fallback.get();
     }
 
     private String requiredText(YamlNode root, Map<String, YamlNode> top, String key) {
@@ -199,8 +218,10 @@ public final class FormFileReader {
             return fallback;
         }
         String t = text(n).trim().toLowerCase(Locale.ROOT);
+        List<String> accepted = allowed.length > 0 ? List.of(allowed) : null;
         for (E e : type.getEnumConstants()) {
-            if (e.name().toLowerCase(Locale.ROOT).equals(t)) {
+            String name = e.name().toLowerCase(Locale.ROOT);
+            if (name.equals(t) && (accepted == null || accepted.contains(name))) {
                 return e;
             }
         }
@@ -371,7 +392,8 @@ public final class FormFileReader {
         try {
             return new DiscreteAlgorithm(kind, integral, derivative, aw, tracking, low, high, allowed, minScan, maxScan);
         } catch (FormException ex) {
-            problems.add(n.where() + ex.getMessage());
+            // the record's messages already start with "algorithm: "
+            problems.add(n.file() + ":" + n.line() + ": " + ex.getMessage());
             return d;
         }
     }
