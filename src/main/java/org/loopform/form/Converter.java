@@ -40,8 +40,17 @@ public final class Converter {
     /** Converts {@code values} written in {@code from} into {@code to}. */
     public static Conversion convert(FormDefinition from, Map<String, String> values, FormDefinition to,
                                      WritingContext ctx) {
+        return convertBetween(from, values, ctx, to, ctx);
+    }
+
+    /**
+     * As {@link #convert}, with the source's values read in {@code fromCtx} and the target's written
+     * in {@code ctx} (they differ when source and target controllers scan at different rates).
+     */
+    public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
+                                            FormDefinition to, WritingContext ctx) {
         List<Finding> findings = new ArrayList<>();
-        PidSetting src = FormCodec.decode(from, values, ctx, "source");
+        PidSetting src = FormCodec.decode(from, values, fromCtx, "source");
         if (from.gain().sign() == SignConvention.ACTION && values.keySet().stream()
                 .noneMatch(k -> k.trim().equalsIgnoreCase("action"))) {
             findings.add(new Finding(Topic.UNITS, Severity.INFO, null, null, "", POLICY,
@@ -163,18 +172,18 @@ public final class Converter {
             };
             if (sourceFiltered && targetFiltered) {
                 double changeDb = 20 * Math.log10(hfTarget / hfSource);
-                findings.add(new Finding(Topic.FILTER, Severity.WARN, changeDb, 0.0, "dB", POLICY,
+                findings.add(new Finding(Topic.FILTER, fitSeverity, changeDb, 0.0, "dB", POLICY,
                         "Target " + to.id() + " " + what + ": the high-frequency derivative gain changes from "
                                 + Numbers.significant(hfSource, 4) + " to " + Numbers.significant(hfTarget, 4)
                                 + " %/% (" + Numbers.significant(changeDb, 3) + " dB); the nearest setting "
                                 + devText + "."));
             } else if (targetFiltered) {
-                findings.add(new Finding(Topic.FILTER, Severity.WARN, hfTarget, null, "%/%", POLICY,
+                findings.add(new Finding(Topic.FILTER, fitSeverity, hfTarget, null, "%/%", POLICY,
                         "The source law has no derivative filter (derivative gain unlimited at high frequency); target "
                                 + to.id() + " " + what + " and caps it at " + Numbers.significant(hfTarget, 4)
                                 + " %/%. The target law " + devText + "."));
             } else {
-                findings.add(new Finding(Topic.FILTER, Severity.WARN, hfSource, null, "%/%", POLICY,
+                findings.add(new Finding(Topic.FILTER, fitSeverity, hfSource, null, "%/%", POLICY,
                         "Target " + to.id() + " has no derivative filter: its derivative gain grows without bound "
                                 + "where the source law capped it at " + Numbers.significant(hfSource, 4)
                                 + " %/%. The target law " + devText + "."));

@@ -1,0 +1,79 @@
+package org.loopform.analysis;
+
+import org.loopform.law.ControlLaw;
+import org.loopform.law.LawDeviation;
+import org.loopform.scan.PulseLaw;
+
+/**
+ * How the controller the target runs (its pulse transfer functions on the unit circle) departs
+ * from the design law (its continuous frequency response): gain ratio in dB and phase difference
+ * in degrees, over both paths, on a log-spaced grid. Under a scan the controller's response is
+ * only defined up to the Nyquist frequency pi/h, so the band must stay below it.
+ */
+public final class ControllerMismatch {
+
+    /** Points on the comparison grid. */
+    public static final int GRID_POINTS = 200;
+
+    private ControllerMismatch() {
+    }
+
+    /** The largest deviation over {@code band}. */
+    public static LawDeviation over(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band) {
+        Curve c = curve(design, target, band, GRID_POINTS);
+        double g = 0;
+        double p = 0;
+        double at = band.lowRadPerSecond();
+        for (int k = 0; k < c.omegas().length; k++) {
+            double gk = Math.max(Math.abs(c.feedbackGainDb()[k]), Math.abs(c.setpointGainDb()[k]));
+            if (gk > g) {
+                g = gk;
+                at = c.omegas()[k];
+            }
+            p = Math.max(p, Math.max(Math.abs(c.feedbackPhaseDeg()[k]), Math.abs(c.setpointPhaseDeg()[k])));
+        }
+        return new LawDeviation(g, p, at);
+    }
+
+    /** The mismatch curves over the band, for plots: gain ratio (dB) and phase difference (deg) per path. */
+    public static Curve curve(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band, int points) {
+        double[] w = band.grid(points);
+        double[] fg = new double[points];
+        double[] fp = new double[points];
+        double[] sg = new double[points];
+        double[] sp = new double[points];
+        double[] a = new double[2];
+        double[] b = new double[2];
+        for (int k = 0; k < points; k++) {
+            design.feedbackAt(w[k], a);
+            target.feedbackAt(w[k], b);
+            fg[k] = gainDb(a, b);
+            fp[k] = phaseDeg(a, b);
+            design.setpointAt(w[k], a);
+            target.setpointAt(w[k], b);
+            sg[k] = gainDb(a, b);
+            sp[k] = phaseDeg(a, b);
+        }
+        return new Curve(w, fg, fp, sg, sp);
+    }
+
+    private static double gainDb(double[] a, double[] b) {
+        double ma = Math.hypot(a[0], a[1]);
+        double mb = Math.hypot(b[0], b[1]);
+        if (ma == 0 && mb == 0) {
+            return 0;
+        }
+        return 20 * Math.log10(mb / ma);
+    }
+
+    private static double phaseDeg(double[] a, double[] b) {
+        double re = b[0] * a[0] + b[1] * a[1];
+        double im = b[1] * a[0] - b[0] * a[1];
+        return re == 0 && im == 0 ? 0 : Math.toDegrees(Math.atan2(im, re));
+    }
+
+    /** Mismatch curves: frequencies (rad/s) and, per path, gain ratio (dB) and phase difference (deg). */
+    public record Curve(double[] omegas, double[] feedbackGainDb, double[] feedbackPhaseDeg, double[] setpointGainDb,
+                        double[] setpointPhaseDeg) {
+    }
+}

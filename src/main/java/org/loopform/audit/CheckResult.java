@@ -1,0 +1,41 @@
+package org.loopform.audit;
+
+import java.util.List;
+import org.loopform.analysis.ControllerMismatch;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.StepMetrics;
+import org.loopform.findings.Finding;
+import org.loopform.findings.Severity;
+import org.loopform.form.Conversion;
+import org.loopform.law.LawDeviation;
+import org.loopform.simulate.ClosedLoopRun;
+
+/**
+ * Everything a check found out about one loop: the conversion, the design and target loops'
+ * margins and step responses (null without a process model), the controller mismatch, the
+ * findings and the verdict. {@code referencePhaseErrorDegrees} states how closely the design
+ * loop's fine-step simulation follows the continuous loop (the phase its hold adds at crossover).
+ */
+public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversion,
+                          LoopMargins designMargins, LoopMargins targetMargins,
+                          StepMetrics designSetpoint, StepMetrics designLoad,
+                          StepMetrics targetSetpoint, StepMetrics targetLoad,
+                          ClosedLoopRun designRun, ClosedLoopRun targetRun,
+                          LawDeviation mismatch, ControllerMismatch.Curve mismatchCurve,
+                          double referenceStepSeconds, double referencePhaseErrorDegrees,
+                          List<Finding> findings) {
+
+    public CheckResult {
+        findings = List.copyOf(findings);
+    }
+
+    public boolean hasProcess() {
+        return targetMargins != null;
+    }
+
+    /** pass, warn or fail: the worst finding, where info counts as pass. */
+    public Verdict verdict() {
+        Severity w = Finding.worst(findings);
+        return w == Severity.FAIL ? Verdict.FAIL : w == Severity.WARN ? Verdict.WARN : Verdict.PASS;
+    }
+}

@@ -1,0 +1,206 @@
+package org.loopform.audit;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.loopform.analysis.ControllerMismatch;
+import org.loopform.analysis.FrequencyBand;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.LoopResponse;
+import org.loopform.analysis.MarginAnalysis;
+import org.loopform.analysis.StepMetrics;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.CheckRules;
+import org.loopform.findings.Finding;
+import org.loopform.form.AlgorithmKind;
+import org.loopform.form.AntiWindup;
+import org.loopform.form.Conversion;
+import org.loopform.form.Converter;
+import org.loopform.form.DiscreteAlgorithm;
+import org.loopform.form.Discretization;
+import org.loopform.form.FormCodec;
+import org.loopform.form.FormDefinition;
+import org.loopform.form.FormException;
+import org.loopform.form.PidSetting;
+import org.loopform.form.WritingContext;
+import org.loopform.law.ControlLaw;
+import org.loopform.law.LawDeviation;
+import org.loopform.lti.SampledStateSpace;
+import org.loopform.process.ProcessModel;
+import org.loopform.scan.PulseLaw;
+import org.loopform.scan.ScanController;
+import org.loopform.scan.ScanFacts;
+import org.loopform.simulate.ClosedLoopRun;
+import org.loopform.simulate.LoopSimulator;
+import org.loopform.simulate.StepTest;
+
+/**
+ * Checks one loop's deployment: converts its tuning to the target form, rounds it as the target
+ * stores it, and compares the design loop (the source law, continuous, or the source's own
+ * algorithm at its own scan) with the target loop (the target's algorithm at the target scan,
+ * the process sampled exactly) in the frequency and time domains; then applies the rules.
+ */
+public final class LoopCheck {
+
+    /** Steps of the design loop's fine-step reference over the horizon. */
+    static final int REFERENCE_STEPS = 4000;
+    /** Horizon in units of 1/crossover: about ten closed-loop time constants for a 60 deg margin loop. */
+    static final double HORIZON_CROSSOVERS = 60.0;
+    /** Most target-loop steps simulated; a longer horizon is cut. */
+    static final int MAX_TARGET_STEPS = 200_000;
+
+    private LoopCheck() {
+    }
+
+    public static CheckResult run(LoopSpec loop, CheckPolicy policy) {
+        if (loop.targetScanSeconds() == null) {
+            throw new FormException(loop.where() + ": target.scan: required; give the target's scan time, e.g."
+                    + " 'scan: 0.5 s' (or --scan)");
+        }
+        double h = loop.targetScanSeconds();
+        FormDefinition target = loop.targetForm();
+        WritingContext ctx = new WritingContext(loop.pvRange(), loop.outputRange(), h);
+        Conversion conversion;
+        try {
+            WritingContext sourceCtx = new WritingContext(loop.pvRange(), loop.outputRange(),
+                    loop.sourceScanSeconds() != null ? loop.sourceScanSeconds() : h);
+            conversion = Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx, target, ctx);
+        } catch (FormException e) {
+            throw new FormException(loop.where() + ": loop " + loop.tag() + ": tuning: " + e.getMessage());
+        }
+        PidSetting entered = enteredSetting(conversion, target, ctx);
+        ControlLaw designLaw = conversion.sourceLaw();
+        PulseLaw targetPulse = PulseLaw.of(entered, target.filter().placement(), target.algorithm(), h);
+        ScanFacts facts = ScanFacts.of(entered, target.algorithm().derivative(), h);
+
+        org.loopform.law.FrequencyBand lawBand = org.loopform.law.FrequencyBand.implied(designLaw.terms(), h);
+        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, lawBand);
+        ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
+
+        List<Finding> findings = new ArrayList<>(conversion.findings());
+        LoopMargins designMargins = null;
+        LoopMargins targetMargins = null;
+        StepMetrics ds = null;
+        StepMetrics dl = null;
+        StepMetrics ts = null;
+        StepMetrics tl = null;
+        ClosedLoopRun designRun = null;
+        ClosedLoopRun targetRun = null;
+        double refStep = 0;
+        double refError = 0;
+        if (loop.hasProcess()) {
+            ProcessModel p = loop.process();
+            double low = lawBand.lowRadPerSecond() / 10;
+            double high = continuousTop(designLaw, p);
+            Double sourceScan = loop.sourceScanSeconds();
+            if (sourceScan != null) {
+                PidSetting src = conversion.sourceSetting();
+                PulseLaw sourcePulse = PulseLaw.of(src, loop.sourceForm().filter().placement(),
+                        loop.sourceForm().algorithm(), sourceScan);
+                SampledStateSpace sampled = p.sampled(sourceScan);
+                designMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / sourceScan),
+                        sourceScan)).analyze(sampledLoop(sourcePulse, sampled));
+            } else {
+                designMargins = MarginAnalysis.over(FrequencyBand.of(low, high)).analyze(continuousLoop(designLaw, p));
+            }
+            SampledStateSpace sampledTarget = p.sampled(h);
+            targetMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / h), h))
+                    .analyze(sampledLoop(targetPulse, sampledTarget));
+
+            double horizon = horizon(designMargins, targetMargins, designLaw, p);
+            horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
+            StepTest test = StepTest.standard(horizon);
+            targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
+            if (sourceScan != null) {
+                designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
+                        sourceScan), p.sampled(sourceScan), test);
+                refStep = sourceScan;
+            } else {
+                refStep = referenceStep(horizon, conversion.sourceSetting(), p);
+                PidSetting src = conversion.sourceSetting();
+                if (src.filterSeconds() == 0 && src.derivative() != 0) {
+                    // an unfiltered derivative cannot be simulated as such: filter it at the reference step
+                    src = src.withFilterSeconds(refStep);
+                }
+                designRun = LoopSimulator.run(ScanController.limited(src, loop.sourceForm().filter().placement(),
+                        referenceAlgorithm(loop.sourceForm().algorithm()), refStep), p.sampled(refStep), test);
+                double wc = designMargins.crossoverRadPerSecond().orElse(1.0 / horizon);
+                refError = Math.toDegrees(wc * refStep / 2);
+            }
+            double sp = test.operatingPvPercent() + test.setpointStepPercent();
+            ds = StepMetrics.ofSetpointStep(designRun.setpoint(), test.operatingPvPercent(), sp);
+            dl = StepMetrics.ofLoadStep(designRun.load(), test.operatingPvPercent(), 0.02 * test.loadStepPercent());
+            ts = StepMetrics.ofSetpointStep(targetRun.setpoint(), test.operatingPvPercent(), sp);
+            tl = StepMetrics.ofLoadStep(targetRun.load(), test.operatingPvPercent(), 0.02 * test.loadStepPercent());
+        }
+        findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
+                mismatch, lawBand.highRadPerSecond()), policy));
+        return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
+                mismatch, curve, refStep, refError, findings);
+    }
+
+    private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
+        try {
+            return FormCodec.decode(target, FormCodec.asText(c.entered()), ctx, "target");
+        } catch (FormException e) {
+            return c.targetSetting(); // the conversion already reported that rounding breaks the tuning
+        }
+    }
+
+    /** The design loop runs the law on a fine step, trapezoidal integral and step-invariant filter, with clamping. */
+    private static DiscreteAlgorithm referenceAlgorithm(DiscreteAlgorithm source) {
+        return new DiscreteAlgorithm(AlgorithmKind.POSITIONAL, Discretization.TRAPEZOIDAL, Discretization.STEP_INVARIANT,
+                AntiWindup.CLAMPING, 0.0, source.outputLowPercent(), source.outputHighPercent(), List.of(), 0.0,
+                Double.MAX_VALUE);
+    }
+
+    private static double referenceStep(double horizon, PidSetting s, ProcessModel p) {
+        double step = horizon / REFERENCE_STEPS;
+        if (s.filterSeconds() > 0) {
+            step = Math.min(step, s.filterSeconds() / 4);
+        }
+        if (p.deadTimeSeconds() > 0) {
+            step = Math.min(step, p.deadTimeSeconds() / 20);
+        }
+        return Math.max(step, horizon / (4.0 * MAX_TARGET_STEPS));
+    }
+
+    private static double horizon(LoopMargins design, LoopMargins target, ControlLaw law, ProcessModel p) {
+        double wc = design.crossoverRadPerSecond().orElse(target.crossoverRadPerSecond().orElse(Double.NaN));
+        if (Double.isFinite(wc) && wc > 0) {
+            return Math.max(HORIZON_CROSSOVERS / wc, 5 * p.deadTimeSeconds());
+        }
+        double ti = law.terms().i() != 0 ? Math.abs(law.terms().p() / law.terms().i()) : 0;
+        return 20 * Math.max(ti, p.deadTimeSeconds() + 1.0);
+    }
+
+    /** Top of the continuous band: a decade above the law's corners, and no more than 20/L with dead time L. */
+    private static double continuousTop(ControlLaw law, ProcessModel p) {
+        double high = org.loopform.law.FrequencyBand.implied(law.terms(), 0).highRadPerSecond() * 10;
+        if (p.deadTimeSeconds() > 0) {
+            high = Math.min(high, 20 / p.deadTimeSeconds());
+        }
+        return high;
+    }
+
+    private static LoopResponse continuousLoop(ControlLaw law, ProcessModel p) {
+        double[] c = new double[2];
+        double[] g = new double[2];
+        return (w, out) -> {
+            law.feedbackAt(w, c);
+            p.responseAt(w, g);
+            out[0] = c[0] * g[0] - c[1] * g[1];
+            out[1] = c[0] * g[1] + c[1] * g[0];
+        };
+    }
+
+    private static LoopResponse sampledLoop(PulseLaw controller, SampledStateSpace p) {
+        double[] c = new double[2];
+        double[] g = new double[2];
+        return (w, out) -> {
+            controller.feedbackAt(w, c);
+            p.responseAt(w, g);
+            out[0] = c[0] * g[0] - c[1] * g[1];
+            out[1] = c[0] * g[1] + c[1] * g[0];
+        };
+    }
+}

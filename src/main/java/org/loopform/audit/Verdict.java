@@ -1,0 +1,12 @@
+package org.loopform.audit;
+
+import java.util.Locale;
+
+/** A loop's verdict: the worst of its findings (info counts as pass). */
+public enum Verdict {
+    PASS, WARN, FAIL;
+
+    public String id() {
+        return name().toLowerCase(Locale.ROOT);
+    }
+}

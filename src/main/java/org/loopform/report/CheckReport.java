@@ -1,0 +1,151 @@
+package org.loopform.report;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.OptionalDouble;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.StepMetrics;
+import org.loopform.audit.CheckResult;
+import org.loopform.form.Conversion;
+import org.loopform.form.FormUnits;
+import org.loopform.units.Numbers;
+
+/** A loop check as a side-by-side table for people and as JSON for tools. */
+public final class CheckReport {
+
+    private CheckReport() {
+    }
+
+    private static String fmt(OptionalDouble v, int digits) {
+        return v.isPresent() ? Numbers.significant(v.getAsDouble(), digits) : "none";
+    }
+
+    private static String fmt(double v, int digits) {
+        return Numbers.significant(v, digits);
+    }
+
+    public static String text(CheckResult r) {
+        String nl = System.lineSeparator();
+        Conversion c = r.conversion();
+        StringBuilder sb = new StringBuilder();
+        sb.append(r.loop().tag()).append(": ").append(c.from().id()).append(" -> ").append(c.to().id()).append(" at a ")
+                .append(Numbers.plain(r.scanSeconds())).append(" s scan").append("    verdict: ")
+                .append(r.verdict().id().toUpperCase(java.util.Locale.ROOT)).append(nl).append(nl);
+        TextTable values = new TextTable("enter", "value", "unit", "converted");
+        c.entered().values().forEach((k, v) -> values.row(k, c.to().limit(k).resolution() == null
+                ? Numbers.significant(v, 6) : Numbers.plain(v), FormUnits.of(c.to(), k),
+                Numbers.significant(c.parameters().values().get(k), 6)));
+        if (c.entered().action() != null) {
+            values.row("action", c.entered().action().id(), "", c.entered().action().id());
+        }
+        sb.append(values.render(2));
+        sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
+                + fmt(c.deviation().gainDb(), 3) + " dB and " + fmt(c.deviation().phaseDegrees(), 3) + " deg").append(nl);
+        sb.append("  controller as run vs design law: up to ").append(fmt(r.mismatch().gainDb(), 3)).append(" dB, ")
+                .append(fmt(r.mismatch().phaseDegrees(), 3)).append(" deg").append(nl).append(nl);
+        if (r.hasProcess()) {
+            TextTable t = new TextTable("figure", "design", "target", "unit");
+            LoopMargins d = r.designMargins();
+            LoopMargins g = r.targetMargins();
+            t.row("phase margin", fmt(d.phaseMarginDegrees(), 3), fmt(g.phaseMarginDegrees(), 3), "deg");
+            t.row("gain margin", fmt(d.gainMargin(), 3), fmt(g.gainMargin(), 3), "ratio");
+            t.row("crossover", fmt(d.crossoverRadPerSecond(), 3), fmt(g.crossoverRadPerSecond(), 3), "rad/s");
+            t.row("max sensitivity Ms", fmt(d.maximumSensitivity(), 3), fmt(g.maximumSensitivity(), 3), "ratio");
+            t.row("delay margin", fmt(d.delayMarginSeconds(), 3), fmt(g.delayMarginSeconds(), 3), "s");
+            StepMetrics ds = r.designSetpoint();
+            StepMetrics ts = r.targetSetpoint();
+            t.row("setpoint step IAE", fmt(ds.integralAbsoluteErrorPercentSeconds(), 4),
+                    fmt(ts.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
+            t.row("setpoint overshoot", fmt(ds.overshootPercent(), 3), fmt(ts.overshootPercent(), 3), "% of step");
+            t.row("setpoint settling (2 %)", fmt(ds.settlingTimeSeconds(), 4), fmt(ts.settlingTimeSeconds(), 4), "s");
+            StepMetrics dl = r.designLoad();
+            StepMetrics tl = r.targetLoad();
+            t.row("load step IAE", fmt(dl.integralAbsoluteErrorPercentSeconds(), 4),
+                    fmt(tl.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
+            t.row("load step peak", fmt(dl.peakDeviationPercent(), 4), fmt(tl.peakDeviationPercent(), 4), "%");
+            t.row("output travel (load)", fmt(dl.outputTravelPercent(), 4), fmt(tl.outputTravelPercent(), 4), "%");
+            sb.append(t.render(2));
+            sb.append("  Steps of 10 % (setpoint) and 10 % at the process input (load) about 50 %; ");
+            if (r.referencePhaseErrorDegrees() > 0) {
+                sb.append("the design loop is simulated on a ").append(fmt(r.referenceStepSeconds(), 3))
+                        .append(" s step, whose hold adds ").append(fmt(r.referencePhaseErrorDegrees(), 2))
+                        .append(" deg of lag at crossover.");
+            } else {
+                sb.append("the design loop runs the source's own algorithm at its scan.");
+            }
+            sb.append(nl);
+        } else {
+            sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
+        }
+        sb.append(nl).append(FindingText.render(r.findings()));
+        sb.append(nl).append(Cautions.SHORT).append(nl);
+        return sb.toString();
+    }
+
+    private static void put(ObjectNode n, String key, OptionalDouble v) {
+        Json.putNumber(n, key, v.isPresent() ? v.getAsDouble() : null);
+    }
+
+    static ObjectNode figures(LoopMargins m, StepMetrics sp, StepMetrics load) {
+        ObjectNode n = Json.object();
+        put(n, "phase_margin_deg", m.phaseMarginDegrees());
+        put(n, "gain_margin", m.gainMargin());
+        put(n, "crossover_rad_s", m.crossoverRadPerSecond());
+        Json.putNumber(n, "ms", m.maximumSensitivity());
+        put(n, "delay_margin_s", m.delayMarginSeconds());
+        n.put("stability", m.stability().name().toLowerCase(java.util.Locale.ROOT));
+        ObjectNode s = n.putObject("setpoint");
+        Json.putNumber(s, "iae", sp.integralAbsoluteErrorPercentSeconds());
+        put(s, "overshoot_pct", sp.overshootPercent());
+        put(s, "settling_s", sp.settlingTimeSeconds());
+        ObjectNode l = n.putObject("load");
+        Json.putNumber(l, "iae", load.integralAbsoluteErrorPercentSeconds());
+        Json.putNumber(l, "peak", load.peakDeviationPercent());
+        Json.putNumber(l, "output_travel", load.outputTravelPercent());
+        return n;
+    }
+
+    public static ObjectNode node(CheckResult r) {
+        ObjectNode n = Json.object();
+        Conversion c = r.conversion();
+        n.put("tag", r.loop().tag());
+        n.put("verdict", r.verdict().id());
+        n.put("scan_s", r.scanSeconds());
+        ObjectNode p = n.putObject("parameters");
+        p.put("from", c.from().id());
+        p.put("to", c.to().id());
+        p.put("exact", c.exact());
+        ObjectNode conv = p.putObject("converted");
+        c.parameters().values().forEach(conv::put);
+        ObjectNode ent = p.putObject("entered");
+        c.entered().values().forEach(ent::put);
+        ObjectNode units = p.putObject("units");
+        c.parameters().values().keySet().forEach(k -> units.put(k, FormUnits.of(c.to(), k)));
+        if (c.entered().action() != null) {
+            p.put("action", c.entered().action().id());
+        }
+        ObjectNode dev = p.putObject("deviation");
+        dev.put("gain_db", c.deviation().gainDb());
+        dev.put("phase_deg", c.deviation().phaseDegrees());
+        if (r.hasProcess()) {
+            n.set("design", figures(r.designMargins(), r.designSetpoint(), r.designLoad()));
+            n.set("target", figures(r.targetMargins(), r.targetSetpoint(), r.targetLoad()));
+        } else {
+            n.putNull("design");
+            n.putNull("target");
+        }
+        ObjectNode mm = n.putObject("controller_mismatch");
+        mm.put("gain_db", r.mismatch().gainDb());
+        mm.put("phase_deg", r.mismatch().phaseDegrees());
+        if (r.hasProcess()) {
+            ObjectNode ref = n.putObject("reference");
+            ref.put("step_s", r.referenceStepSeconds());
+            ref.put("phase_error_deg", r.referencePhaseErrorDegrees());
+        }
+        n.set("findings", Json.findings(r.findings()));
+        return n;
+    }
+
+    public static String json(CheckResult r) {
+        return Json.write(node(r));
+    }
+}
