@@ -64,8 +64,8 @@ class AntiWindupTest {
     }
 
     // The velocity form limits the accumulated output, so nothing winds up (Wittenmark, Astrom &
-    // Arzen, "Computer Control: An Overview", IFAC Professional Brief, 2002, incremental
-    // algorithms). By hand: u stays at 100; then du = K (e(k) - e(k-1)) + K h/Ti e(k)
+    // Arzen, "Computer Control: An Overview", IFAC Professional Brief, 2002, the incremental
+    // algorithm). By hand: u stays at 100; then du = K (e(k) - e(k-1)) + K h/Ti e(k)
     // = 0.5 (-20) + 0.5 (-10) = -15, u = 85.
     @Test
     void velocity_form_leaves_the_limit_as_soon_as_the_error_reverses() {
