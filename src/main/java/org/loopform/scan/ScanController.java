@@ -23,9 +23,10 @@ import org.loopform.form.Structure;
  *   velocity:   v(k) = u(k-1) + P(k) - P(k-1) + dI(k) + D(k) - D(k-1)
  *   u(k) = v(k) limited to the algorithm's output range (when limits are on)
  * </pre>
- * The velocity form is the one of Wittenmark, Astrom and Arzen, "Computer Control: An Overview",
- * IFAC Professional Brief, 2002, section on incremental algorithms: its limits clamp the
- * accumulated output, so windup does not arise and the anti-windup setting is not used.
+ * For an unfiltered ideal PID with backward differences the velocity increments are those of
+ * Wittenmark, Astrom and Arzen, "Computer Control: An Overview", IFAC Professional Brief, 2002
+ * (the incremental algorithm); its limits clamp the accumulated output, so windup does not arise
+ * and the anti-windup setting is not used.
  * Positional anti-windup: clamping skips this scan's increment when the output is beyond a limit
  * and the increment drives it further (conditional integration); back-calculation adds
  * {@code (h/Tt)(u(k) - v(k))} to the integral after the output is written (Astrom and
