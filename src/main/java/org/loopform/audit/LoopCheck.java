@@ -43,8 +43,10 @@ public final class LoopCheck {
 
     /** Steps of the design loop's fine-step reference over the horizon. */
     static final int REFERENCE_STEPS = 4000;
-    /** Horizon in units of 1/crossover: about ten closed-loop time constants for a 60 deg margin loop. */
-    static final double HORIZON_CROSSOVERS = 60.0;
+    /** Horizon in units of 1/crossover: about five closed-loop time constants for a 60 deg margin loop. */
+    static final double HORIZON_CROSSOVERS = 30.0;
+    /** The controller comparison reaches this many times the crossover, where a model gives one. */
+    static final double MISMATCH_CROSSOVERS = 10.0;
     /** Most target-loop steps simulated; a longer horizon is cut. */
     static final int MAX_TARGET_STEPS = 200_000;
 
@@ -73,8 +75,6 @@ public final class LoopCheck {
         ScanFacts facts = ScanFacts.of(entered, target.algorithm().derivative(), h);
 
         org.loopform.law.FrequencyBand lawBand = org.loopform.law.FrequencyBand.implied(designLaw.terms(), h);
-        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, lawBand);
-        ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
 
         List<Finding> findings = new ArrayList<>(conversion.findings());
         LoopMargins designMargins = null;
@@ -132,10 +132,29 @@ public final class LoopCheck {
             ts = StepMetrics.ofSetpointStep(targetRun.setpoint(), test.operatingPvPercent(), sp);
             tl = StepMetrics.ofLoadStep(targetRun.load(), test.operatingPvPercent(), 0.02 * test.loadStepPercent());
         }
+        org.loopform.law.FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h, designMargins);
+        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, mismatchBand);
+        ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
-                mismatch, lawBand.highRadPerSecond()), policy));
+                mismatch, mismatchBand.highRadPerSecond()), policy));
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
                 mismatch, curve, refStep, refError, findings);
+    }
+
+    /**
+     * Where the controllers are compared: from the tuning's lowest corner up to its derivative filter
+     * corner (the highest corner without a filter), cut at the Nyquist frequency and, with a model,
+     * at ten times the crossover; above that the loop no longer follows the controller.
+     */
+    private static org.loopform.law.FrequencyBand mismatchBand(org.loopform.law.FrequencyBand lawBand, ControlLaw law,
+                                                               double h, LoopMargins design) {
+        double top = law.terms().tf() > 0 ? 1.0 / law.terms().tf() : lawBand.highRadPerSecond();
+        top = Math.min(top, Math.PI / h);
+        if (design != null && design.crossoverRadPerSecond().isPresent()) {
+            top = Math.min(top, MISMATCH_CROSSOVERS * design.crossoverRadPerSecond().getAsDouble());
+        }
+        double low = Math.min(lawBand.lowRadPerSecond(), top / 100);
+        return new org.loopform.law.FrequencyBand(low, top);
     }
 
     private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
