@@ -66,8 +66,55 @@ public final class LoopFileReader {
         return List.of(loop(root));
     }
 
+    /**
+     * The loops of a YAML loop list as rows, in order: a block that cannot be read becomes a bad
+     * row with its problems, and so does a repeated tag; file-level problems are thrown.
+     */
+    public static List<org.loopform.audit.LoopRow> rows(Path path, String shownName,
+                                                         org.loopform.audit.LoopDefaults defaults) {
+        YamlNode root = YamlSource.read(path, shownName);
+        List<YamlNode> items;
+        if (root.isMapping() && root.get("loops").isPresent()) {
+            List<String> bad = root.unknownKeys(Set.of("loops"));
+            if (!bad.isEmpty()) {
+                throw new InputException(bad);
+            }
+            items = root.get("loops").get().items();
+        } else if (root.isMapping()) {
+            items = List.of(root);
+        } else {
+            throw new InputException(root.where() + "a loop list is a mapping with 'loops:' holding loop blocks");
+        }
+        List<org.loopform.audit.LoopRow> rows = new ArrayList<>();
+        Map<String, String> seen = new LinkedHashMap<>();
+        for (int i = 0; i < items.size(); i++) {
+            YamlNode item = items.get(i);
+            String where = item.file() + ":" + item.line();
+            String tag = item.isMapping() && item.get("tag").isPresent() && item.get("tag").get().isScalar()
+                    ? item.get("tag").get().text() : "";
+            try {
+                LoopSpec spec = loop(item, defaults.targetForm() != null);
+                String first = seen.putIfAbsent(spec.tag(), where);
+                if (first != null) {
+                    rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag "
+                            + tag + " (first at " + first + "); every loop needs its own tag")));
+                } else {
+                    rows.add(org.loopform.audit.LoopRow.of(i, defaults.apply(spec)));
+                }
+            } catch (IllegalArgumentException e) {
+                rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, e instanceof InputException ie ? ie.problems()
+                        : List.of(where + ": " + e.getMessage())));
+            }
+        }
+        return rows;
+    }
+
     /** Reads one loop block. */
     public static LoopSpec loop(YamlNode n) {
+        return loop(n, false);
+    }
+
+    private static LoopSpec loop(YamlNode n, boolean targetOptional) {
         List<String> problems = new ArrayList<>(n.unknownKeys(LOOP_KEYS));
         if (!problems.isEmpty()) {
             throw new InputException(problems);
@@ -93,6 +140,10 @@ public final class LoopFileReader {
         }
         FormDefinition from = resolveForm(tuning, "form", fromId);
         Double sourceScan = t.containsKey("scan") ? seconds(tuning, "scan", t.remove("scan")) : null;
+        if (targetOptional && !e.containsKey("target")) {
+            return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, from, null, pv, out,
+                    n.file() + ":" + n.line());
+        }
         YamlNode target = required(n, e, "target");
         Map<String, String> tg = scalars(target);
         List<String> badTarget = target.unknownKeys(Set.of("form", "scan"));
@@ -104,6 +155,11 @@ public final class LoopFileReader {
         }
         FormDefinition to = resolveForm(target, "form", tg.get("form"));
         Double targetScan = tg.containsKey("scan") ? seconds(target, "scan", tg.get("scan")) : null;
+        return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, to, targetScan, pv, out,
+                n.file() + ":" + n.line());
+    }
+
+    private static ProcessModel process(YamlNode n, Map<String, YamlNode> e, Span pv, Span out) {
         ProcessModel process = null;
         if (e.containsKey("process")) {
             YamlNode p = e.get("process");
@@ -120,7 +176,7 @@ public final class LoopFileReader {
             process = ProcessReader.read(pv2, pvr, outr, key -> (pe.containsKey(key) ? pe.get(key).where()
                     : p.file() + ":" + p.line() + ": process." + key + ": "));
         }
-        return new LoopSpec(tag, process, from, t, sourceScan, to, targetScan, pv, out, n.file() + ":" + n.line());
+        return process;
     }
 
     private static YamlNode required(YamlNode n, Map<String, YamlNode> e, String key) {

@@ -1,0 +1,119 @@
+package org.loopform.audit;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import org.loopform.findings.Finding;
+import org.loopform.findings.Severity;
+import org.loopform.findings.Topic;
+
+/**
+ * The audit's counts, gathered as results stream past: loops by verdict, findings by topic and
+ * severity, bad rows, and the worst loops (kept to {@link #WORST_KEPT}, so memory stays bounded).
+ */
+public final class AuditSummary {
+
+    /** How many of the worst loops the summary keeps, worst first. */
+    public static final int WORST_KEPT = 25;
+
+    /** One of the worst loops: tag, verdict, counts of fail and warn findings, and its worst finding's words. */
+    public record Worst(int index, String tag, Verdict verdict, int fails, int warns, String headline) {
+    }
+
+    private final Map<Verdict, Integer> byVerdict = new EnumMap<>(Verdict.class);
+    private final Map<Topic, int[]> byTopic = new TreeMap<>();
+    private final List<Worst> worst = new ArrayList<>();
+    private final List<String> badRows = new ArrayList<>();
+    private int loops;
+    private int exact;
+    private int badRowCount;
+
+    private static final Comparator<Worst> WORST_FIRST = Comparator.comparing(Worst::verdict).reversed()
+            .thenComparing(Comparator.comparingInt(Worst::fails).reversed())
+            .thenComparing(Comparator.comparingInt(Worst::warns).reversed())
+            .thenComparingInt(Worst::index);
+
+    public void add(LoopOutcome o) {
+        loops++;
+        if (!o.ok()) {
+            badRowCount++;
+            badRows.addAll(o.problems());
+            return;
+        }
+        CheckResult r = o.result();
+        byVerdict.merge(r.verdict(), 1, Integer::sum);
+        if (r.conversion().exact()) {
+            exact++;
+        }
+        int fails = 0;
+        int warns = 0;
+        Finding headline = null;
+        for (Finding f : r.findings()) {
+            int[] c = byTopic.computeIfAbsent(f.topic(), t -> new int[Severity.values().length]);
+            c[f.severity().ordinal()]++;
+            if (f.severity() == Severity.FAIL) {
+                fails++;
+            } else if (f.severity() == Severity.WARN) {
+                warns++;
+            }
+            if (headline == null || f.severity().compareTo(headline.severity()) > 0) {
+                headline = f;
+            }
+        }
+        if (r.verdict() != Verdict.PASS) {
+            worst.add(new Worst(o.row().index(), r.loop().tag(), r.verdict(), fails, warns,
+                    headline == null ? "" : headline.topic().id() + ": " + headline.message()));
+            worst.sort(WORST_FIRST);
+            if (worst.size() > WORST_KEPT) {
+                worst.remove(worst.size() - 1);
+            }
+        }
+    }
+
+    public int loops() {
+        return loops;
+    }
+
+    public int checked() {
+        return loops - badRowCount();
+    }
+
+    public int exactConversions() {
+        return exact;
+    }
+
+    public int count(Verdict v) {
+        return byVerdict.getOrDefault(v, 0);
+    }
+
+    /** Findings by topic: counts indexed by {@link Severity#ordinal()}. */
+    public Map<Topic, int[]> byTopic() {
+        Map<Topic, int[]> m = new TreeMap<>();
+        byTopic.forEach((k, v) -> m.put(k, v.clone()));
+        return m;
+    }
+
+    public List<Worst> worst() {
+        return List.copyOf(worst);
+    }
+
+    public List<String> badRows() {
+        return List.copyOf(badRows);
+    }
+
+    /** Rows that could not be read or checked. */
+    public int badRowCount() {
+        return badRowCount;
+    }
+
+    /** The worst verdict over all loops (FAIL also when a row was bad). */
+    public Verdict worstVerdict() {
+        if (count(Verdict.FAIL) > 0) {
+            return Verdict.FAIL;
+        }
+        return count(Verdict.WARN) > 0 ? Verdict.WARN : Verdict.PASS;
+    }
+}

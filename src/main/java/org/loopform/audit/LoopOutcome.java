@@ -1,0 +1,14 @@
+package org.loopform.audit;
+
+import java.util.List;
+
+/** What the audit made of one row: a check result, or the problems that stopped it. */
+public record LoopOutcome(LoopRow row, CheckResult result, List<String> problems) {
+    public LoopOutcome {
+        problems = List.copyOf(problems);
+    }
+
+    public boolean ok() {
+        return result != null;
+    }
+}
