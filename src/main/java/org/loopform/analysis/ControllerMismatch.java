@@ -18,19 +18,30 @@ public final class ControllerMismatch {
     private ControllerMismatch() {
     }
 
-    /** The largest deviation over {@code band}. */
+    /** The largest deviation over {@code band}, both paths. */
     public static LawDeviation over(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band) {
+        return over(design, target, band, false);
+    }
+
+    /** The largest deviation over {@code band}, of the feedback path alone or of both paths. */
+    public static LawDeviation over(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band,
+                                    boolean feedbackOnly) {
         Curve c = curve(design, target, band, GRID_POINTS);
         double g = 0;
         double p = 0;
         double at = band.lowRadPerSecond();
         for (int k = 0; k < c.omegas().length; k++) {
-            double gk = Math.max(Math.abs(c.feedbackGainDb()[k]), Math.abs(c.setpointGainDb()[k]));
+            double gk = Math.abs(c.feedbackGainDb()[k]);
+            double pk = Math.abs(c.feedbackPhaseDeg()[k]);
+            if (!feedbackOnly) {
+                gk = Math.max(gk, Math.abs(c.setpointGainDb()[k]));
+                pk = Math.max(pk, Math.abs(c.setpointPhaseDeg()[k]));
+            }
             if (gk > g) {
                 g = gk;
                 at = c.omegas()[k];
             }
-            p = Math.max(p, Math.max(Math.abs(c.feedbackPhaseDeg()[k]), Math.abs(c.setpointPhaseDeg()[k])));
+            p = Math.max(p, pk);
         }
         return new LawDeviation(g, p, at);
     }

@@ -133,10 +133,13 @@ public final class LoopCheck {
             tl = StepMetrics.ofLoadStep(targetRun.load(), test.operatingPvPercent(), 0.02 * test.loadStepPercent());
         }
         org.loopform.law.FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h, designMargins);
-        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, mismatchBand);
+        // what the loop sees: the design law against the controller as run, feedback path
+        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, mismatchBand, true);
+        // what the scan alone changes: the target's own continuous law against its discrete run
+        LawDeviation discretization = ControllerMismatch.over(conversion.enteredLaw(), targetPulse, mismatchBand);
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
-                mismatch, mismatchBand.highRadPerSecond()), policy));
+                discretization, mismatchBand.highRadPerSecond()), policy));
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
                 mismatch, curve, refStep, refError, findings);
     }

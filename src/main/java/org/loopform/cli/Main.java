@@ -15,7 +15,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "loopform", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = {"Carries PID tuning between controller algorithm forms exactly, or says how close it can get"
                 + " and why."},
-        subcommands = {FormsCommand.class, ConvertCommand.class, CheckCommand.class, AutoComplete.GenerateCompletion.class},
+        subcommands = {FormsCommand.class, ConvertCommand.class, CheckCommand.class, AuditCommand.class, DemoCommand.class, AutoComplete.GenerateCompletion.class},
         footer = {"", "Exit codes: 0 done, nothing failed; 1 done, a finding of severity fail; 2 bad input or usage.",
                 "", Cautions.SHORT})
 public final class Main implements Runnable {

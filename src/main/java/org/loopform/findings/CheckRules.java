@@ -118,7 +118,7 @@ public final class CheckRules {
         LawDeviation d = in.mismatch();
         if (d != null && (d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
             out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
-                    "The controller as the target runs it departs from the design law by up to "
+                    "At this scan the controller as the target runs it departs from its own continuous law by up to "
                     + Numbers.significant(d.gainDb(), 3) + " dB and " + Numbers.significant(d.phaseDegrees(), 3)
                     + " deg over its band (to " + Numbers.significant(in.mismatchBandHighRadPerSecond(), 3)
                     + " rad/s, at most the Nyquist frequency)."));

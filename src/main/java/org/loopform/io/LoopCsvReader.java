@@ -183,7 +183,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         }
         FormDefinition from = form(formId, where, "form");
         FormDefinition to = null;
-        if (c.containsKey("target_form")) {
+        if (defaults.targetForm() == null && c.containsKey("target_form")) {
             to = form(c.get("target_form"), where, "target_form");
         } else if (defaults.targetForm() == null) {
             throw new InputException(where + ": target_form: required (or give --to FORM for all loops)");

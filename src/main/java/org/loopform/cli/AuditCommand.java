@@ -1,0 +1,120 @@
+package org.loopform.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.loopform.audit.LoopDefaults;
+import org.loopform.audit.LoopRow;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.Severity;
+import org.loopform.form.FormDefinition;
+import org.loopform.io.CatalogLoader;
+import org.loopform.io.LoopCsvReader;
+import org.loopform.io.LoopFileReader;
+import org.loopform.io.PolicyFileReader;
+import org.loopform.report.Cautions;
+import org.loopform.units.Numbers;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code loopform audit}: a whole loop list carried to the target and checked, with a report to sign. */
+@Command(name = "audit", mixinStandardHelpOptions = true,
+        description = {"Converts and checks every loop of a migration (a CSV or YAML loop list), in parallel, and"
+                + " writes loops.csv, loops.json, entry-sheet.csv and report.html into --out."},
+        footer = {"", "CSV header (snake_case, any order): tag, form, kc|pb|kp, ti|reset|ki, td|kd, n, b, c, action,"
+                + " scan, pv_range, output_range, model, process_gain, time_constant, time_constant_2, dead_time,"
+                + " target_form, target_scan. Empty cells are absent; cells may carry units (30s).",
+                "", "Exit codes: 0 no fail; 1 a fail (or a warn with --fail-on warn); 2 bad input (bad rows are"
+                + " reported by file, line and field, the other loops are still checked and written).",
+                "", Cautions.SHORT})
+final class AuditCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(paramLabel = "LOOPS", description = "The loop list: .csv, or .yaml/.yml with a 'loops:' list.")
+    Path input;
+
+    @Option(names = "--to", paramLabel = "ID|FILE", description = "Target form for every loop (overrides the list).")
+    String to;
+
+    @Option(names = "--scan", paramLabel = "DURATION", converter = DurationConverter.class,
+            description = "Target scan time for every loop (overrides the list).")
+    Double scanSeconds;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Write the outputs into DIR (created whole at the end).")
+    Path out;
+
+    @Option(names = "--force", description = "Replace DIR if it exists and is not empty.")
+    boolean force;
+
+    @Option(names = "--no-report", negatable = false, description = "Skip report.html (CSV and JSON only).")
+    boolean noReport;
+
+    @Option(names = "--fail-on", paramLabel = "warn|fail", defaultValue = "fail",
+            description = "Exit 1 on loops with this verdict or worse (default: ${DEFAULT-VALUE}).")
+    String failOn;
+
+    @Option(names = "--policy", paramLabel = "FILE", description = "Thresholds overriding the defaults (see 'check').")
+    Path policyFile;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
+    Integer threads;
+
+    @Mixin
+    FormatOption format;
+
+    @Override
+    public Integer call() {
+        Severity fail = Severity.parse(failOn).filter(x -> x != Severity.INFO).orElseThrow(() ->
+                new org.loopform.units.UnitException("--fail-on: must be warn or fail (got '" + failOn + "')"));
+        FormDefinition target = to == null ? null : CatalogLoader.resolve(to, "--to");
+        LoopDefaults defaults = new LoopDefaults(target, scanSeconds);
+        CheckPolicy policy = policyFile == null ? CheckPolicy.DEFAULT
+                : PolicyFileReader.read(policyFile, policyFile.toString());
+        String name = input.toString();
+        String lower = name.toLowerCase(Locale.ROOT);
+        List<Path> inputs = new ArrayList<>(List.of(input));
+        if (policyFile != null) {
+            inputs.add(policyFile);
+        }
+        if (to != null && CatalogLoader.bundled().find(to).isEmpty()) {
+            inputs.add(Path.of(to));
+        }
+        String settings = (to != null ? "target " + target.id() : "targets from the list")
+                + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
+                + (policyFile != null ? ", policy " + policyFile : ", default policy");
+        int n = threads != null ? Math.max(1, threads) : Runtime.getRuntime().availableProcessors();
+        if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
+            List<LoopRow> rows = LoopFileReader.rows(input, name, defaults);
+            return AuditRunner.run(rows.iterator(), settings(name, fail, policy, n, inputs, settings, rows.size()),
+                    spec.commandLine().getOut());
+        }
+        try (LoopCsvReader reader = LoopCsvReader.open(input, name, defaults)) {
+            Iterator<LoopRow> rows = reader;
+            return AuditRunner.run(rows, settings(name, fail, policy, n, inputs, settings, lineCount(input)),
+                    spec.commandLine().getOut());
+        }
+    }
+
+    private AuditRunner.Settings settings(String name, Severity fail, CheckPolicy policy, int n, List<Path> inputs,
+                                          String settings, long expected) {
+        return new AuditRunner.Settings(name, out, force, !noReport, policy, fail, format.format, n, inputs, settings,
+                expected);
+    }
+
+    private static long lineCount(Path p) {
+        try (var lines = java.nio.file.Files.lines(p)) {
+            return Math.max(0, lines.count() - 1);
+        } catch (java.io.IOException | java.io.UncheckedIOException e) {
+            return -1;
+        }
+    }
+}

@@ -1,0 +1,72 @@
+package org.loopform.cli;
+
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.loopform.audit.LoopDefaults;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.Severity;
+import org.loopform.form.FormDefinition;
+import org.loopform.io.FormFileReader;
+import org.loopform.io.LoopCsvReader;
+import org.loopform.report.Cautions;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code loopform demo}: the audit of the bundled, invented Plant K-7 migration. */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = {"Audits the bundled example (an invented plant's migration, examples/plant-k7-loops.csv, into"
+                + " the invented target form examples/plant-k7-target.yaml) and writes the report into"
+                + " ./loopform-demo/ (or --out)."},
+        footer = {"", Cautions.SHORT})
+final class DemoCommand implements Callable<Integer> {
+
+    static final String LOOPS = "examples/plant-k7-loops.csv";
+    static final String TARGET = "examples/plant-k7-target.yaml";
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopform-demo",
+            description = "Where to write the report (default: ${DEFAULT-VALUE}); an earlier demo there is replaced.")
+    Path out;
+
+    @Mixin
+    FormatOption format;
+
+    @Override
+    public Integer call() throws Exception {
+        FormDefinition target = FormFileReader.parse(resource(TARGET), TARGET);
+        try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(LOOPS);
+             LoopCsvReader rows = LoopCsvReader.of(new InputStreamReader(in, StandardCharsets.UTF_8), LOOPS, null,
+                     new LoopDefaults(target, null))) {
+            boolean replace = java.nio.file.Files.exists(out.resolve("report.html"));
+            int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, replace, true,
+                    CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
+                    List.of(), "target " + target.id() + " (invented), scans from the list, default policy", -1),
+                    spec.commandLine().getOut());
+            if (format.format == OutputFormat.text) {
+                spec.commandLine().getOut().println("Open " + out.resolve("report.html").toAbsolutePath()
+                        + " in a browser. The plant and its loops are invented for this demonstration.");
+                spec.commandLine().getOut().flush();
+            }
+            // the demo shows loops that fail on purpose; that is its point, not an error of the run
+            return code == ExitCodes.BAD_INPUT ? code : ExitCodes.OK;
+        }
+    }
+
+    private static String resource(String name) throws java.io.IOException {
+        try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(name)) {
+            if (in == null) {
+                throw new IllegalStateException("the bundled example " + name + " is missing from the jar");
+            }
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        }
+    }
+}

@@ -1,0 +1,228 @@
+package org.loopform.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.OptionalDouble;
+import java.util.stream.Collectors;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.StepMetrics;
+import org.loopform.audit.AuditSummary;
+import org.loopform.audit.CheckResult;
+import org.loopform.audit.LoopOutcome;
+import org.loopform.audit.Verdict;
+import org.loopform.findings.Severity;
+import org.loopform.findings.Topic;
+import org.loopform.form.Conversion;
+import org.loopform.form.FormUnits;
+import org.loopform.form.WrittenTuning;
+import org.loopform.units.Numbers;
+
+/** An audit's per-loop rows (loops.csv, entry-sheet.csv, loops.json) and its summary JSON. */
+public final class AuditRows {
+    private AuditRows() {
+    }
+
+    /** loops.csv columns; figures carry their unit in the column name. */
+    public static final List<String> LOOP_COLUMNS = List.of("tag", "verdict", "where", "source_form", "source_values",
+            "target_form", "scan_s", "exact", "converted", "entered", "deviation_gain_db", "deviation_phase_deg",
+            "design_pm_deg", "target_pm_deg", "design_gm", "target_gm", "design_crossover_rad_s",
+            "target_crossover_rad_s", "design_ms", "target_ms", "design_delay_margin_s", "target_delay_margin_s",
+            "design_sp_iae_pct_s", "target_sp_iae_pct_s", "design_sp_overshoot_pct", "target_sp_overshoot_pct",
+            "design_load_iae_pct_s", "target_load_iae_pct_s", "design_load_peak_pct", "target_load_peak_pct",
+            "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "problems");
+
+    /** entry-sheet.csv columns: one row per value to type in. */
+    public static final List<String> ENTRY_COLUMNS = List.of("tag", "target_form", "parameter", "value", "unit",
+            "verdict");
+
+    private static String num(double v) {
+        return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
+    }
+
+    private static String num(OptionalDouble v) {
+        return v.isPresent() ? num(v.getAsDouble()) : "";
+    }
+
+    static String values(Map<String, String> given) {
+        return given.entrySet().stream().map(e -> e.getKey() + "=" + e.getValue()).collect(Collectors.joining("; "));
+    }
+
+    static String written(WrittenTuning t, Conversion c, boolean entered) {
+        List<String> parts = new ArrayList<>();
+        t.values().forEach((k, v) -> parts.add(k + "=" + (entered && c.to().limit(k).resolution() != null
+                ? Numbers.plain(v) : Numbers.significant(v, 6)) + " " + FormUnits.of(c.to(), k)));
+        if (t.action() != null) {
+            parts.add("action=" + t.action().id());
+        }
+        return String.join("; ", parts);
+    }
+
+    public static List<String> loopRow(LoopOutcome o) {
+        List<String> r = new ArrayList<>();
+        if (!o.ok()) {
+            r.add(o.row().tag());
+            r.add("bad_input");
+            r.add(o.row().where());
+            while (r.size() < LOOP_COLUMNS.size() - 1) {
+                r.add("");
+            }
+            r.add(String.join(" | ", o.problems()));
+            return r;
+        }
+        CheckResult c = o.result();
+        Conversion v = c.conversion();
+        r.add(c.loop().tag());
+        r.add(c.verdict().id());
+        r.add(c.loop().where());
+        r.add(v.from().id());
+        r.add(values(c.loop().tuning()));
+        r.add(v.to().id());
+        r.add(Numbers.plain(c.scanSeconds()));
+        r.add(Boolean.toString(v.exact()));
+        r.add(written(v.parameters(), v, false));
+        r.add(written(v.entered(), v, true));
+        r.add(num(v.deviation().gainDb()));
+        r.add(num(v.deviation().phaseDegrees()));
+        LoopMargins d = c.designMargins();
+        LoopMargins t = c.targetMargins();
+        boolean p = c.hasProcess();
+        r.add(p ? num(d.phaseMarginDegrees()) : "");
+        r.add(p ? num(t.phaseMarginDegrees()) : "");
+        r.add(p ? num(d.gainMargin()) : "");
+        r.add(p ? num(t.gainMargin()) : "");
+        r.add(p ? num(d.crossoverRadPerSecond()) : "");
+        r.add(p ? num(t.crossoverRadPerSecond()) : "");
+        r.add(p ? num(d.maximumSensitivity()) : "");
+        r.add(p ? num(t.maximumSensitivity()) : "");
+        r.add(p ? num(d.delayMarginSeconds()) : "");
+        r.add(p ? num(t.delayMarginSeconds()) : "");
+        StepMetrics ds = c.designSetpoint();
+        StepMetrics ts = c.targetSetpoint();
+        StepMetrics dl = c.designLoad();
+        StepMetrics tl = c.targetLoad();
+        r.add(p ? num(ds.integralAbsoluteErrorPercentSeconds()) : "");
+        r.add(p ? num(ts.integralAbsoluteErrorPercentSeconds()) : "");
+        r.add(p ? num(ds.overshootPercent()) : "");
+        r.add(p ? num(ts.overshootPercent()) : "");
+        r.add(p ? num(dl.integralAbsoluteErrorPercentSeconds()) : "");
+        r.add(p ? num(tl.integralAbsoluteErrorPercentSeconds()) : "");
+        r.add(p ? num(dl.peakDeviationPercent()) : "");
+        r.add(p ? num(tl.peakDeviationPercent()) : "");
+        r.add(num(c.mismatch().gainDb()));
+        r.add(num(c.mismatch().phaseDegrees()));
+        r.add(Long.toString(c.findings().stream().filter(f -> f.severity() == Severity.FAIL).count()));
+        r.add(Long.toString(c.findings().stream().filter(f -> f.severity() == Severity.WARN).count()));
+        r.add(c.findings().stream().filter(f -> f.severity() != Severity.INFO)
+                .map(f -> f.topic().id() + " (" + f.severity().id() + ")").collect(Collectors.joining("; ")));
+        r.add("");
+        return r;
+    }
+
+    public static List<List<String>> entryRows(LoopOutcome o) {
+        List<List<String>> rows = new ArrayList<>();
+        if (!o.ok()) {
+            return rows;
+        }
+        CheckResult c = o.result();
+        Conversion v = c.conversion();
+        v.entered().values().forEach((k, x) -> rows.add(List.of(c.loop().tag(), v.to().id(), k,
+                v.to().limit(k).resolution() != null ? Numbers.plain(x) : Numbers.significant(x, 6),
+                FormUnits.of(v.to(), k), c.verdict().id())));
+        if (v.entered().action() != null) {
+            rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id()));
+        }
+        return rows;
+    }
+
+    public static ObjectNode loopJson(LoopOutcome o) {
+        if (o.ok()) {
+            ObjectNode n = CheckReport.node(o.result());
+            n.put("where", o.result().loop().where());
+            return n;
+        }
+        ObjectNode n = Json.object();
+        n.put("tag", o.row().tag());
+        n.put("verdict", "bad_input");
+        n.put("where", o.row().where());
+        ArrayNode a = n.putArray("problems");
+        o.problems().forEach(a::add);
+        return n;
+    }
+
+    public static ObjectNode summaryJson(AuditSummary s) {
+        ObjectNode n = Json.object();
+        n.put("loops", s.loops());
+        n.put("checked", s.checked());
+        n.put("bad_rows", s.badRowCount());
+        n.put("exact_conversions", s.exactConversions());
+        ObjectNode v = n.putObject("verdicts");
+        for (Verdict x : Verdict.values()) {
+            v.put(x.id(), s.count(x));
+        }
+        ObjectNode topics = n.putObject("topics");
+        s.byTopic().forEach((t, counts) -> {
+            ObjectNode tn = topics.putObject(t.id());
+            for (Severity sev : Severity.values()) {
+                tn.put(sev.id(), counts[sev.ordinal()]);
+            }
+        });
+        ArrayNode w = n.putArray("worst");
+        for (AuditSummary.Worst x : s.worst()) {
+            ObjectNode wn = w.addObject();
+            wn.put("tag", x.tag());
+            wn.put("verdict", x.verdict().id());
+            wn.put("fails", x.fails());
+            wn.put("warns", x.warns());
+            wn.put("headline", x.headline());
+        }
+        ArrayNode b = n.putArray("bad_row_problems");
+        s.badRows().forEach(b::add);
+        return n;
+    }
+
+    /** The stdout summary: counts, the worst loops, bad rows. */
+    public static String summaryText(AuditSummary s, String outFolder) {
+        String nl = System.lineSeparator();
+        StringBuilder sb = new StringBuilder();
+        sb.append("Audit of ").append(s.loops()).append(" loops: ").append(s.count(Verdict.PASS)).append(" pass, ")
+                .append(s.count(Verdict.WARN)).append(" warn, ").append(s.count(Verdict.FAIL)).append(" fail, ")
+                .append(s.badRowCount()).append(" bad rows; ").append(s.exactConversions()).append(" of ")
+                .append(s.checked()).append(" conversions exact.").append(nl);
+        Map<Topic, int[]> topics = s.byTopic();
+        if (!topics.isEmpty()) {
+            sb.append(nl);
+            TextTable t = new TextTable("topic", "fail", "warn", "info");
+            topics.forEach((k, c) -> t.row(k.id(), Integer.toString(c[Severity.FAIL.ordinal()]),
+                    Integer.toString(c[Severity.WARN.ordinal()]), Integer.toString(c[Severity.INFO.ordinal()])));
+            sb.append(t.render(2));
+        }
+        if (!s.worst().isEmpty()) {
+            sb.append(nl).append("Loops needing attention, worst first:").append(nl);
+            TextTable t = new TextTable("tag", "verdict", "fails", "warns", "worst finding");
+            int shown = 0;
+            for (AuditSummary.Worst w : s.worst()) {
+                if (shown++ == 12) {
+                    break;
+                }
+                String h = w.headline().length() > 90 ? w.headline().substring(0, 87) + "..." : w.headline();
+                t.row(w.tag(), w.verdict().id(), Integer.toString(w.fails()), Integer.toString(w.warns()), h);
+            }
+            sb.append(t.render(2));
+        }
+        if (!s.badRows().isEmpty()) {
+            sb.append(nl).append("Bad rows (not checked):").append(nl);
+            s.badRows().stream().limit(20).forEach(p -> sb.append("  ").append(p).append(nl));
+            if (s.badRows().size() > 20) {
+                sb.append("  ... and ").append(s.badRows().size() - 20).append(" more in loops.csv").append(nl);
+            }
+        }
+        if (outFolder != null) {
+            sb.append(nl).append("Written to ").append(outFolder).append(nl);
+        }
+        return sb.toString();
+    }
+
+}
