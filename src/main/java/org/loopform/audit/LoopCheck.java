@@ -42,9 +42,9 @@ import org.loopform.simulate.StepTest;
 public final class LoopCheck {
 
     /** Steps of the design loop's fine-step reference over the horizon. */
-    static final int REFERENCE_STEPS = 4000;
-    /** Horizon in units of 1/crossover: about five closed-loop time constants for a 60 deg margin loop. */
-    static final double HORIZON_CROSSOVERS = 30.0;
+    static final int REFERENCE_STEPS = 2000;
+    /** Horizon in units of 1/crossover: a well-damped loop settles within about 5 to 10 / crossover. */
+    static final double HORIZON_CROSSOVERS = 20.0;
     /** The controller comparison reaches this many times the crossover, where a model gives one. */
     static final double MISMATCH_CROSSOVERS = 10.0;
     /** Most target-loop steps simulated; a longer horizon is cut. */
