@@ -146,10 +146,10 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         if (!hasNext()) {
             throw new NoSuchElementException();
         }
-        long consumed = parser.getCurrentLineNumber();
         CSVRecord rec = records.next();
         int i = index++;
-        String where = name + ":" + (consumed + 1);
+        // the parser has read this record (and no further) here: its line is the current line
+        String where = name + ":" + parser.getCurrentLineNumber();
         Map<String, String> cells = new LinkedHashMap<>();
         rec.toMap().forEach((k, v) -> {
             if (v != null && !v.isBlank()) {
@@ -199,8 +199,9 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         c.keySet().stream().filter(tuning::containsKey).forEach(k -> ordered.put(k, tuning.get(k)));
         Span pv = span(c, "pv_range", where);
         Span out = span(c, "output_range", where);
-        Double scan = c.containsKey("scan") ? seconds(c.get("scan"), where, "scan") : null;
-        Double targetScan = c.containsKey("target_scan") ? seconds(c.get("target_scan"), where, "target_scan") : scan;
+        Double scan = c.containsKey("scan") ? Double.valueOf(seconds(c.get("scan"), where, "scan")) : null;
+        Double targetScan = c.containsKey("target_scan") ? Double.valueOf(seconds(c.get("target_scan"), where,
+                "target_scan")) : scan;
         ProcessModel process = null;
         if (c.containsKey("model")) {
             Map<String, String> pm = new LinkedHashMap<>();
