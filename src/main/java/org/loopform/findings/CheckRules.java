@@ -6,6 +6,7 @@ import org.loopform.analysis.ClosedLoopStability;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.form.AlgorithmKind;
 import org.loopform.form.AntiWindup;
+import org.loopform.form.Discretization;
 import org.loopform.form.FormDefinition;
 import org.loopform.law.LawDeviation;
 import org.loopform.scan.ScanFacts;
@@ -109,11 +110,14 @@ public final class CheckRules {
                     + Numbers.significant(in.scanSeconds() / f.filterSeconds(), 3) + " > 2, filter pole "
                     + Numbers.significant(f.filterPole(), 3) + " outside the unit circle."));
         } else if (f.hasDerivative() && f.rings()) {
-            out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, in.scanSeconds() / f.filterSeconds(), 2.0, "ratio",
-                    WITTENMARK_2002, "The trapezoidal derivative rings at this scan: h / Tf = "
-                    + Numbers.significant(in.scanSeconds() / f.filterSeconds(), 3) + " > 2 puts the filter pole at "
-                    + Numbers.significant(f.filterPole(), 3) + " (negative), so the derivative term alternates in sign"
-                    + " every scan."));
+            // the pole turns negative at h / Tf = 2 for trapezoidal (2Tf - h)/(2Tf + h), at 1 for forward 1 - h/Tf
+            double ringsAbove = f.method() == Discretization.FORWARD ? 1.0 : 2.0;
+            out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, in.scanSeconds() / f.filterSeconds(), ringsAbove,
+                    "ratio", WITTENMARK_2002, "The " + f.method().name().toLowerCase(java.util.Locale.ROOT).replace('_', '-')
+                    + " derivative rings at this scan: h / Tf = "
+                    + Numbers.significant(in.scanSeconds() / f.filterSeconds(), 3) + " > " + Numbers.plain(ringsAbove)
+                    + " puts the filter pole at " + Numbers.significant(f.filterPole(), 3) + " (negative), so the"
+                    + " derivative term alternates in sign every scan."));
         }
         LawDeviation d = in.mismatch();
         if (d != null && (d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {

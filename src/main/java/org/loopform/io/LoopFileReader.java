@@ -7,7 +7,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import org.loopform.audit.LoopSpec;
+import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
+import org.loopform.form.FormException;
+import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
@@ -141,6 +144,7 @@ public final class LoopFileReader {
         FormDefinition from = resolveForm(tuning, "form", fromId);
         Double sourceScan = t.containsKey("scan") ? seconds(tuning, "scan", t.remove("scan")) : null;
         if (targetOptional && !e.containsKey("target")) {
+            checkTuning(tuning, from, t, new WritingContext(pv, out, sourceScan));
             return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, from, null, pv, out,
                     n.file() + ":" + n.line());
         }
@@ -155,6 +159,7 @@ public final class LoopFileReader {
         }
         FormDefinition to = resolveForm(target, "form", tg.get("form"));
         Double targetScan = tg.containsKey("scan") ? seconds(target, "scan", tg.get("scan")) : null;
+        checkTuning(tuning, from, t, new WritingContext(pv, out, sourceScan != null ? sourceScan : targetScan));
         return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, to, targetScan, pv, out,
                 n.file() + ":" + n.line());
     }
@@ -177,6 +182,32 @@ public final class LoopFileReader {
                     : p.file() + ":" + p.line() + ": process." + key + ": "));
         }
         return process;
+    }
+
+    /**
+     * Decodes the tuning once while its lines are known, so a bad parameter is reported at its own
+     * line rather than the loop's. Problems that depend on what the command line adds (a scan time
+     * given by --scan) are left for the check to report.
+     */
+    private static void checkTuning(YamlNode tuning, FormDefinition form, Map<String, String> values,
+                                    WritingContext ctx) {
+        try {
+            FormCodec.decode(form, values, ctx, "tuning");
+        } catch (FormException e) {
+            String message = e.getMessage();
+            for (String key : values.keySet()) {
+                if (message.startsWith(key + ": ")) {
+                    throw new InputException(tuning.get(key).orElse(tuning).where()
+                            + message.substring(key.length() + 2));
+                }
+                if (message.startsWith("unknown parameter '" + key + "'")) {
+                    throw new InputException(tuning.get(key).orElse(tuning).where() + message);
+                }
+            }
+            if (message.startsWith("missing parameter")) {
+                throw new InputException(tuning.where() + message);
+            }
+        }
     }
 
     private static YamlNode required(YamlNode n, Map<String, YamlNode> e, String key) {
