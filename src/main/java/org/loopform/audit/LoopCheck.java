@@ -44,7 +44,7 @@ public final class LoopCheck {
     /** Steps of the design loop's fine-step reference over the horizon. */
     static final int REFERENCE_STEPS = 2000;
     /** Horizon in units of 1/crossover: a well-damped loop settles within about 5 to 10 / crossover. */
-    static final double HORIZON_CROSSOVERS = 20.0;
+    static final double HORIZON_CROSSOVERS = 30.0;
     /** The controller comparison reaches this many times the crossover, where a model gives one. */
     static final double MISMATCH_CROSSOVERS = 10.0;
     /** Most target-loop steps simulated; a longer horizon is cut. */
