@@ -42,7 +42,7 @@ import org.loopform.simulate.StepTest;
 public final class LoopCheck {
 
     /** Steps of the design loop's fine-step reference over the horizon. */
-    static final int REFERENCE_STEPS = 2000;
+    static final int REFERENCE_STEPS = 4000;
     /** Horizon in units of 1/crossover: a well-damped loop settles within about 5 to 10 / crossover. */
     static final double HORIZON_CROSSOVERS = 30.0;
     /** The controller comparison reaches this many times the crossover, where a model gives one. */
