@@ -22,7 +22,7 @@ public final class SvgPlot {
      */
     public record Size(int width, int height, int maxPoints) {
         public static final Size STANDARD = new Size(640, 260, 1500);
-        public static final Size COMPACT = new Size(440, 220, 300);
+        public static final Size COMPACT = new Size(400, 200, 300);
 
         public Size {
             if (width <= LEFT + RIGHT || height <= TOP + BOTTOM || maxPoints < 4) {
