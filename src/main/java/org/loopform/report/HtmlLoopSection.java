@@ -28,6 +28,9 @@ final class HtmlLoopSection {
 
     /** Digits of a converted value: enough to type it in without losing the design. */
     private static final int VALUE_DIGITS = 6;
+    /** A feedback-path deviation below these (dB, deg) prints as 0, so the words say "matches" instead. */
+    private static final double MATCH_DB = 1e-3;
+    private static final double MATCH_DEG = 1e-2;
 
     static void write(Writer w, LoopOutcome o, boolean withPlots) throws IOException {
         if (!o.ok()) {
@@ -199,6 +202,8 @@ final class HtmlLoopSection {
         StringBuilder sb = new StringBuilder("<p><b>Conversion:</b> ");
         if (c.exact()) {
             sb.append("exact; the target form writes the same control law.");
+        } else if (c.deviation().gainDb() < MATCH_DB && c.deviation().phaseDegrees() < MATCH_DEG) {
+            sb.append("not exact; the feedback path matches, but the setpoint path differs (see the findings).");
         } else {
             sb.append("nearest setting the target form can hold; its feedback path is within ")
                     .append(Html.fig(c.deviation().gainDb(), 3)).append(" dB and ")

@@ -64,6 +64,7 @@ final class HtmlStyle {
             ul.findings .why { display: block; color: var(--muted); font-size: 12px; }
             ul.problems li, .badrows li { font-family: ui-monospace, "DejaVu Sans Mono", monospace; font-size: 12.5px; }
             .badrows { padding-left: 20px; }
+            ul.problems li, .badrows li, ul.findings li { overflow-wrap: anywhere; }
             details.plots > summary { cursor: pointer; color: var(--muted); font-size: 13px; margin: 4px 0; }
             .panels { display: flex; flex-wrap: wrap; gap: 6px 14px; }
             .panels figure { margin: 0; }
@@ -77,7 +78,8 @@ final class HtmlStyle {
               section.loop > header .top, details.plots > summary { display: none; }
               section.loop > header, h2, h3, caption { break-after: avoid; }
               table, figure, .cautions, ul.findings li { break-inside: avoid; }
-              .cols { grid-template-columns: 1fr 1fr; }
+              .cols { display: block; }
+              .cols > div { display: inline-block; vertical-align: top; margin-right: 18px; max-width: 100%; }
               .panels figure { width: 48%; }
               .panels svg { width: 100%; }
               .badge, .verdict-bar { -webkit-print-color-adjust: exact; print-color-adjust: exact; }

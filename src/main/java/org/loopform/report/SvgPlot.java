@@ -135,11 +135,20 @@ public final class SvgPlot {
         return best;
     }
 
+    /** Most intervals between ticks on an axis, so small panels stay legible. */
+    private static final int MAX_TICK_INTERVALS = 6;
+
+    /** Ticks at the smallest step of 1, 2 or 5 times a power of ten that gives at most {@value #MAX_TICK_INTERVALS} intervals. */
     static double[] ticks(double a, double b) {
         double span = b - a;
-        double raw = span / 5;
-        double mag = Math.pow(10, Math.floor(Math.log10(raw)));
-        double step = raw / mag >= 5 ? 5 * mag : raw / mag >= 2 ? 2 * mag : mag;
+        double mag = Math.pow(10, Math.floor(Math.log10(span / MAX_TICK_INTERVALS)));
+        double step = 10 * mag;
+        for (double m : new double[] {1, 2, 5}) {
+            if (span / (m * mag) <= MAX_TICK_INTERVALS) {
+                step = m * mag;
+                break;
+            }
+        }
         double first = Math.ceil(a / step) * step;
         int n = (int) Math.floor((b - first) / step) + 1;
         double[] t = new double[Math.max(n, 0)];

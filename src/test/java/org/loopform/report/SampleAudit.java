@@ -44,7 +44,9 @@ final class SampleAudit {
     }
 
     static List<LoopRow> rows() {
-        return LoopFileReader.rows(loopFile(), RESOURCE, LoopDefaults.NONE);
+        // shown relative to the working directory, which also lets a loop name a form file beside the list
+        Path shown = Path.of("").toAbsolutePath().relativize(loopFile());
+        return LoopFileReader.rows(loopFile(), shown.toString(), LoopDefaults.NONE);
     }
 
     /** The outcomes in input order, kept in memory (fine for a handful of loops). */
