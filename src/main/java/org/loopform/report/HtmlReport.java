@@ -7,27 +7,36 @@ import org.loopform.audit.AuditSummary;
 import org.loopform.audit.LoopOutcome;
 
 /**
- * The audit report as one self-contained HTML file (inline CSS and SVG, no scripts from
- * anywhere, no network): the summary first, then a section per loop. Sections are written as
- * the audit streams ({@link #writeLoopSection}) and joined under the summary at the end
- * ({@link #writeDocument}), so memory stays bounded.
+ * The audit report as one self-contained HTML file (inline CSS and SVG, no scripts, nothing
+ * fetched from anywhere): the header and cautions, the summary, then a section per loop in input
+ * order. Sections are written as the audit streams ({@link #writeLoopSection}) and joined under
+ * the summary at the end ({@link #writeDocument}), so memory stays bounded.
  */
 public final class HtmlReport {
     private HtmlReport() {
     }
 
-    /** One loop's section: values before and after, findings in plain words, and (if asked) its plots. */
+    /**
+     * One loop's section: verdict, values before and after, design and target figures, findings
+     * in plain words and, if {@code withPlots}, its plots (kept small: a few hundred points a line).
+     * A row that could not be checked gets a short section with its problems.
+     */
     public static void writeLoopSection(Writer w, LoopOutcome o, boolean withPlots) throws IOException {
-        w.write("<section><h2>" + SvgPlot.esc(o.row().tag()) + "</h2></section>\n");
+        HtmlLoopSection.write(w, o, withPlots);
     }
 
     /** The whole document: head, cautions, summary, then the sections read from {@code sections}. */
     public static void writeDocument(Writer out, AuditSummary summary, AuditInfo info, Reader sections)
             throws IOException {
-        out.write("<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>" + SvgPlot.esc(info.title())
-                + "</title></head><body><h1>" + SvgPlot.esc(info.title()) + "</h1><p>" + SvgPlot.esc(Cautions.SHORT)
-                + "</p>\n");
+        out.write("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
+                + "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n<title>"
+                + Html.esc(info.title()) + "</title>\n<style>\n" + HtmlStyle.CSS + "</style>\n</head>\n<body>\n");
+        HtmlSummary.writeHeader(out, summary, info);
+        HtmlSummary.writeCautions(out);
+        HtmlSummary.writeSummary(out, summary);
+        out.write("<main id=\"loops\">\n<h2 class=\"loops\">Loops, in input order</h2>\n");
         sections.transferTo(out);
-        out.write("</body></html>\n");
+        out.write("</main>\n<footer><p>Written by loopform. " + Html.esc(Cautions.SHORT) + "</p></footer>\n"
+                + "</body>\n</html>\n");
     }
 }

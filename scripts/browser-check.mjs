@@ -1,0 +1,65 @@
+// Opens a loopform HTML report in headless Chromium and checks that it renders cleanly:
+// no console errors or page errors, at least one SVG with a polyline, the summary table present.
+// Takes a full-page screenshot. Prints one line; exit code 0 when every check passes, 1 otherwise,
+// 2 for bad usage.
+//
+// usage: node scripts/browser-check.mjs REPORT.html OUT.png
+// env:   CHROMIUM (default /usr/bin/chromium)
+import { chromium } from 'playwright-core';
+import { mkdtempSync, rmSync, existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+
+const [report, shot] = process.argv.slice(2);
+if (!report || !shot) {
+  console.error('usage: node scripts/browser-check.mjs REPORT.html OUT.png');
+  process.exit(2);
+}
+if (!existsSync(report)) {
+  console.error(`browser-check: ${report}: no such file; write a report first`);
+  process.exit(2);
+}
+
+const profile = mkdtempSync(join(tmpdir(), 'loopform-chromium-'));
+const problems = [];
+let context;
+try {
+  // a persistent context on a fresh directory: playwright passes it as Chromium's --user-data-dir
+  context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM || '/usr/bin/chromium',
+    headless: true,
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+      '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    viewport: { width: 1280, height: 900 },
+  });
+  const page = context.pages()[0] ?? await context.newPage();
+  page.on('console', (m) => { if (m.type() === 'error') problems.push(`console error: ${m.text()}`); });
+  page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+  // a self-contained report fetches nothing: any request other than the file itself is a problem
+  const url = pathToFileURL(resolve(report)).href;
+  page.on('request', (r) => { if (r.url() !== url && !r.url().startsWith('data:')) problems.push(`request: ${r.url()}`); });
+  await page.goto(url, { waitUntil: 'load' });
+  const facts = await page.evaluate(() => ({
+    svgs: document.querySelectorAll('svg').length,
+    plots: document.querySelectorAll('svg polyline').length,
+    summaryTable: document.querySelectorAll('#summary table').length,
+    sections: document.querySelectorAll('section.loop').length,
+    cautions: document.querySelectorAll('.cautions').length,
+  }));
+  if (facts.plots < 1) problems.push('no svg with a polyline');
+  if (facts.summaryTable < 1) problems.push('no summary table (#summary table)');
+  if (facts.cautions < 1) problems.push('no cautions box');
+  await page.screenshot({ path: shot, fullPage: true });
+  const verdict = problems.length === 0 ? 'ok' : 'FAILED';
+  console.log(`browser-check ${verdict}: ${report}: ${facts.sections} loop sections, ${facts.svgs} svg, `
+    + `${facts.plots} polylines, ${facts.summaryTable} summary tables; screenshot ${shot}`
+    + (problems.length ? `; ${problems.join('; ')}` : ''));
+  process.exitCode = problems.length === 0 ? 0 : 1;
+} catch (e) {
+  console.log(`browser-check FAILED: ${report}: ${e.message.split('\n')[0]}`);
+  process.exitCode = 1;
+} finally {
+  if (context) await context.close();
+  rmSync(profile, { recursive: true, force: true });
+}

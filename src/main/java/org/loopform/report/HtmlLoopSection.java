@@ -1,0 +1,248 @@
+package org.loopform.report;
+
+import java.io.IOException;
+import java.io.Writer;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.StepMetrics;
+import org.loopform.audit.CheckResult;
+import org.loopform.audit.LoopOutcome;
+import org.loopform.audit.LoopRow;
+import org.loopform.findings.Finding;
+import org.loopform.form.Conversion;
+import org.loopform.form.FormDefinition;
+import org.loopform.form.FormUnits;
+import org.loopform.units.Numbers;
+
+/**
+ * One loop's part of the HTML report: a header with the verdict, the tuning before and after,
+ * the design and target figures side by side, the findings in plain words and, if asked, the
+ * plots. A row that could not be checked gets a short section with its problems.
+ */
+final class HtmlLoopSection {
+    private HtmlLoopSection() {
+    }
+
+    /** Digits of a converted value: enough to type it in without losing the design. */
+    private static final int VALUE_DIGITS = 6;
+    /** A feedback-path deviation below these (dB, deg) prints as 0, so the words say "matches" instead. */
+    private static final double MATCH_DB = 1e-3;
+    private static final double MATCH_DEG = 1e-2;
+
+    static void write(Writer w, LoopOutcome o, boolean withPlots) throws IOException {
+        if (!o.ok()) {
+            writeBad(w, o);
+            return;
+        }
+        CheckResult r = o.result();
+        Conversion c = r.conversion();
+        String v = r.verdict().id();
+        w.write("<section class=\"loop " + v + "\" id=\"" + Html.loopAnchor(r.loop().tag()) + "\">\n<header>"
+                + "<span class=\"badge " + v + "\">" + v.toUpperCase(java.util.Locale.ROOT) + "</span><h2>"
+                + Html.esc(r.loop().tag()) + "</h2><span class=\"where\">" + Html.esc(c.from().id()) + " &#8594; "
+                + Html.esc(c.to().id()) + " at a " + Numbers.plain(r.scanSeconds()) + " s scan"
+                + (r.loop().hasProcess() ? "; process " + Html.esc(ProcessText.of(r.loop().process())) : "")
+                + (r.loop().where().isEmpty() ? "" : "; " + Html.esc(r.loop().where()))
+                + "</span><a class=\"top\" href=\"#summary\">back to summary</a></header>\n");
+        w.write("<div class=\"cols\">\n");
+        writeTuning(w, r);
+        if (r.hasProcess()) {
+            writeFigures(w, r);
+        }
+        w.write("</div>\n");
+        writeConversionNotes(w, r);
+        writeFindings(w, r.findings());
+        if (withPlots) {
+            w.write("<details class=\"plots\" open><summary>Plots: responses, design dashed and target"
+                    + " solid; controller as run, feedback path solid and setpoint path dashed</summary>"
+                    + "<div class=\"panels\">\n");
+            for (String panel : LoopPlots.panels(r, SvgPlot.Size.COMPACT)) {
+                w.write("<figure>");
+                w.write(panel);
+                w.write("</figure>\n");
+            }
+            w.write("</div></details>\n");
+        }
+        w.write("</section>\n");
+    }
+
+    private static void writeBad(Writer w, LoopOutcome o) throws IOException {
+        LoopRow row = o.row();
+        String name = row.tag() == null || row.tag().isBlank() ? "row " + (row.index() + 1) : row.tag();
+        w.write("<section class=\"loop bad\" id=\"" + Html.rowAnchor(row.index()) + "\">\n<header>"
+                + "<span class=\"badge bad\">NOT CHECKED</span><h2>" + Html.esc(name) + "</h2><span class=\"where\">"
+                + Html.esc(row.where()) + "</span><a class=\"top\" href=\"#summary\">back to summary</a></header>\n"
+                + "<ul class=\"problems\">\n");
+        for (String p : o.problems()) {
+            w.write("<li>" + Html.esc(p) + "</li>\n");
+        }
+        w.write("</ul>\n</section>\n");
+    }
+
+    /** Before/after: the source values as written, the target's computed and entered values, each with its unit. */
+    private static void writeTuning(Writer w, CheckResult r) throws IOException {
+        Conversion c = r.conversion();
+        Map<String, String> source = r.loop().tuning();
+        Map<String, Double> computed = c.parameters().values();
+        Map<String, Double> entered = c.entered().values();
+        List<String> targetNames = new ArrayList<>(computed.keySet());
+        if (c.entered().action() != null) {
+            targetNames.add("action");
+        }
+        FormDefinition from = c.from();
+        FormDefinition to = c.to();
+        StringBuilder sb = new StringBuilder();
+        sb.append("<table class=\"tuning\"><caption>Tuning before and after</caption>\n<thead><tr class=\"group\">"
+                + "<th></th><th colspan=\"3\">source: ").append(Html.esc(from.id()))
+                .append("</th><th class=\"sep\" colspan=\"4\">target: ").append(Html.esc(to.id()))
+                .append("</th></tr>\n<tr><th>term</th><th>name</th><th class=\"num\">value</th><th>unit</th>"
+                        + "<th class=\"sep\">name</th><th class=\"num\">computed</th><th class=\"num\">entered</th>"
+                        + "<th>unit</th></tr></thead>\n<tbody>\n");
+        boolean anyRounded = false;
+        for (TuningRows.Row row : TuningRows.pair(new ArrayList<>(source.keySet()), targetNames)) {
+            sb.append("<tr><th>").append(Html.esc(row.term())).append("</th>");
+            if (row.source() == null) {
+                sb.append("<td></td><td></td><td></td>");
+            } else {
+                String text = source.get(row.source()).trim();
+                boolean bare = isNumber(text);
+                sb.append("<td>").append(Html.esc(row.source())).append("</td><td class=\"num\">")
+                        .append(Html.esc(text)).append("</td><td class=\"unit\">")
+                        .append(bare ? Html.esc(FormUnits.of(from, row.source())) : "").append("</td>");
+            }
+            if (row.target() == null) {
+                sb.append("<td class=\"sep\"></td><td></td><td></td><td></td>");
+            } else if (row.target().equals("action")) {
+                String a = c.entered().action().id();
+                sb.append("<td class=\"sep\">action</td><td class=\"num\">").append(a).append("</td><td class=\"num\">")
+                        .append(a).append("</td><td class=\"unit\"></td>");
+            } else {
+                String k = row.target();
+                double x = computed.get(k);
+                double e = entered.getOrDefault(k, x);
+                boolean rounded = e != x;
+                anyRounded |= rounded;
+                String shown = to.limit(k).resolution() == null ? Numbers.significant(e, VALUE_DIGITS) : Numbers.plain(e);
+                sb.append("<td class=\"sep\">").append(Html.esc(k)).append("</td><td class=\"num\">")
+                        .append(Numbers.significant(x, VALUE_DIGITS)).append("</td><td class=\"num")
+                        .append(rounded ? " rounded\" title=\"rounded to the target's resolution" : "").append("\">")
+                        .append(shown).append("</td><td class=\"unit\">").append(Html.esc(FormUnits.of(to, k)))
+                        .append("</td>");
+            }
+            sb.append("</tr>\n");
+        }
+        sb.append("</tbody></table>\n");
+        if (anyRounded) {
+            sb.append("<p class=\"note\">Bold, dotted underline: rounded to the target's resolution.</p>\n");
+        }
+        w.write("<div>" + sb + "</div>\n");
+    }
+
+    private static boolean isNumber(String text) {
+        try {
+            Double.parseDouble(text);
+            return true;
+        } catch (NumberFormatException e) {
+            return false;
+        }
+    }
+
+    private static void writeFigures(Writer w, CheckResult r) throws IOException {
+        LoopMargins d = r.designMargins();
+        LoopMargins g = r.targetMargins();
+        StepMetrics ds = r.designSetpoint();
+        StepMetrics ts = r.targetSetpoint();
+        StepMetrics dl = r.designLoad();
+        StepMetrics tl = r.targetLoad();
+        StringBuilder sb = new StringBuilder();
+        sb.append("<div><table class=\"figures\"><caption>Design loop and target loop</caption>\n<thead><tr>"
+                + "<th>figure</th><th class=\"num\">design</th><th class=\"num\">target</th><th>unit</th></tr></thead>"
+                + "\n<tbody>\n");
+        row(sb, "phase margin", Html.fig(d.phaseMarginDegrees(), 3), Html.fig(g.phaseMarginDegrees(), 3), "deg");
+        row(sb, "gain margin", Html.fig(d.gainMargin(), 3), Html.fig(g.gainMargin(), 3), "ratio");
+        row(sb, "crossover", Html.fig(d.crossoverRadPerSecond(), 3), Html.fig(g.crossoverRadPerSecond(), 3), "rad/s");
+        row(sb, "max sensitivity Ms", Html.fig(d.maximumSensitivity(), 3), Html.fig(g.maximumSensitivity(), 3),
+                "ratio");
+        row(sb, "delay margin", Html.fig(d.delayMarginSeconds(), 3), Html.fig(g.delayMarginSeconds(), 3), "s");
+        row(sb, "setpoint step IAE", Html.fig(ds.integralAbsoluteErrorPercentSeconds(), 4),
+                Html.fig(ts.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
+        row(sb, "setpoint overshoot", Html.fig(ds.overshootPercent(), 3), Html.fig(ts.overshootPercent(), 3),
+                "% of step");
+        row(sb, "setpoint settling (2 %)", Html.fig(ds.settlingTimeSeconds(), 4), Html.fig(ts.settlingTimeSeconds(), 4),
+                "s");
+        row(sb, "load step IAE", Html.fig(dl.integralAbsoluteErrorPercentSeconds(), 4),
+                Html.fig(tl.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
+        row(sb, "load step peak", Html.fig(dl.peakDeviationPercent(), 4), Html.fig(tl.peakDeviationPercent(), 4), "%");
+        row(sb, "output travel (load)", Html.fig(dl.outputTravelPercent(), 4), Html.fig(tl.outputTravelPercent(), 4),
+                "%");
+        sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of 10 % and load step of 10 % at the process"
+                + " input, about 50 %.");
+        if (r.referencePhaseErrorDegrees() > 0) {
+            sb.append(" The design loop is simulated on a ").append(Html.fig(r.referenceStepSeconds(), 3))
+                    .append(" s step, whose hold adds ").append(Html.fig(r.referencePhaseErrorDegrees(), 2))
+                    .append(" deg of lag at crossover.");
+        } else {
+            sb.append(" The design loop runs the source's own algorithm at its scan.");
+        }
+        sb.append("</p></div>\n");
+        w.write(sb.toString());
+    }
+
+    private static void row(StringBuilder sb, String name, String design, String target, String unit) {
+        sb.append("<tr><th>").append(name).append("</th><td class=\"num\">").append(design)
+                .append("</td><td class=\"num\">").append(target).append("</td><td class=\"unit\">")
+                .append(Html.esc(unit)).append("</td></tr>\n");
+    }
+
+    private static void writeConversionNotes(Writer w, CheckResult r) throws IOException {
+        Conversion c = r.conversion();
+        StringBuilder sb = new StringBuilder("<p><b>Conversion:</b> ");
+        if (c.exact()) {
+            sb.append("exact; the target form writes the same control law.");
+        } else if (c.deviation().gainDb() < MATCH_DB && c.deviation().phaseDegrees() < MATCH_DEG) {
+            sb.append("not exact; the feedback path matches, but the setpoint path differs (see the findings).");
+        } else {
+            sb.append("nearest setting the target form can hold; its feedback path is within ")
+                    .append(Html.fig(c.deviation().gainDb(), 3)).append(" dB and ")
+                    .append(Html.fig(c.deviation().phaseDegrees(), 3)).append(" deg of the source law.");
+        }
+        sb.append(" <b>Controller as run vs design law:</b> up to ").append(Html.fig(r.mismatch().gainDb(), 3))
+                .append(" dB and ").append(Html.fig(r.mismatch().phaseDegrees(), 3)).append(" deg.");
+        if (!r.hasProcess()) {
+            sb.append(" No process model: only the controller and the sampling rules were checked.");
+        }
+        w.write(sb.append("</p>\n").toString());
+    }
+
+    private static void writeFindings(Writer w, List<Finding> findings) throws IOException {
+        if (findings.isEmpty()) {
+            w.write("<p><b>Findings:</b> none.</p>\n");
+            return;
+        }
+        StringBuilder sb = new StringBuilder("<ul class=\"findings\">\n");
+        findings.stream().sorted(Comparator.comparing(Finding::severity).reversed()).forEach(f -> {
+            String s = f.severity().id();
+            sb.append("<li class=\"").append(s).append("\"><span class=\"sev ").append(s).append("\">")
+                    .append(s.toUpperCase(java.util.Locale.ROOT)).append("</span> <b>").append(f.topic().id())
+                    .append(":</b> ").append(Html.esc(f.message()));
+            List<String> why = new ArrayList<>();
+            if (f.figure() != null) {
+                why.add("figure " + Html.fig(f.figure(), 4) + " " + Html.esc(f.unit()));
+            }
+            if (f.threshold() != null) {
+                why.add("threshold " + Html.fig(f.threshold(), 4) + " " + Html.esc(f.unit()));
+            }
+            if (!f.source().isEmpty()) {
+                why.add("source: " + Html.esc(f.source()));
+            }
+            if (!why.isEmpty()) {
+                sb.append("<span class=\"why\">").append(String.join("; ", why)).append("</span>");
+            }
+            sb.append("</li>\n");
+        });
+        w.write(sb.append("</ul>\n").toString());
+    }
+}
