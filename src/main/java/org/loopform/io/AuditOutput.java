@@ -158,6 +158,12 @@ public final class AuditOutput implements AutoCloseable {
             Files.move(target, old, StandardCopyOption.ATOMIC_MOVE);
         }
         Files.move(temp, target, StandardCopyOption.ATOMIC_MOVE);
+        try {
+            // a temporary folder is private to its owner; the finished one reads like any other
+            Files.setPosixFilePermissions(target, java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
+        } catch (UnsupportedOperationException e) {
+            // not a POSIX file system: leave the platform's default
+        }
         if (old != null) {
             deleteTree(old);
         }
