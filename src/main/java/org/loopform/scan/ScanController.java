@@ -68,12 +68,19 @@ public final class ScanController {
     private double outputPercent;
     private double unlimitedPercent;
 
+    private final PidSetting setting;
+    private final FilterPlacement placement;
+    private final DiscreteAlgorithm algorithm;
+
     private ScanController(PidSetting setting, FilterPlacement placement, DiscreteAlgorithm algorithm,
                            double scanSeconds, boolean limited) {
         checkScan(scanSeconds);
         if (setting == null || placement == null || algorithm == null) {
             throw new IllegalArgumentException("a scan controller needs a setting, a filter placement and an algorithm");
         }
+        this.setting = setting;
+        this.placement = placement;
+        this.algorithm = algorithm;
         ScanWiring wiring = ScanWiring.of(setting, placement);
         DerivativeFilter filter = DerivativeFilter.of(algorithm.derivative(), setting.filterSeconds(), scanSeconds);
         IntegralRule rule = IntegralRule.of(algorithm.integral());
@@ -115,6 +122,11 @@ public final class ScanController {
     /** The controller {@code form} runs for {@code setting}, limits on. */
     public static ScanController of(FormDefinition form, PidSetting setting, double scanSeconds) {
         return limited(setting, form.filter().placement(), form.algorithm(), scanSeconds);
+    }
+
+    /** A second controller like this one (same setting, algorithm, scan and limits), at rest. */
+    public ScanController fresh() {
+        return new ScanController(setting, placement, algorithm, scanSeconds, limited);
     }
 
     static void checkScan(double scanSeconds) {
@@ -165,8 +177,9 @@ public final class ScanController {
 
     /** One scan: reads setpoint and PV (%), returns the output (%) written this scan. */
     public double update(double setpointPercent, double pvPercent) {
-        setpointDerivative = pole * setpointDerivative + differenceGain * (setpointPercent - previousSetpoint);
-        pvDerivative = pole * pvDerivative + differenceGain * (pvPercent - previousPv);
+        setpointDerivative = flushSubnormal(pole * setpointDerivative
+                + differenceGain * (setpointPercent - previousSetpoint));
+        pvDerivative = flushSubnormal(pole * pvDerivative + differenceGain * (pvPercent - previousPv));
         double setpointPath = setpointPercent + setpointLead * setpointDerivative;
         double pvPath = pvPercent + measurementLead * pvDerivative;
         double proportional = kp * (b * setpointPath - pvPath);
@@ -205,6 +218,16 @@ public final class ScanController {
         outputPercent = output;
         unlimitedPercent = unlimited;
         return output;
+    }
+
+    /**
+     * A filter state that has decayed below the smallest normal double becomes 0. It moves no
+     * output any more (it is some 300 decades below a percent), but with a pole above 1/2 it would
+     * otherwise stay on the smallest subnormal for good, and subnormal arithmetic costs the
+     * processor tens of times more than normal arithmetic in every later scan.
+     */
+    private static double flushSubnormal(double state) {
+        return Math.abs(state) < Double.MIN_NORMAL ? 0.0 : state;
     }
 
     private double limit(double v) {
