@@ -68,19 +68,12 @@ public final class ScanController {
     private double outputPercent;
     private double unlimitedPercent;
 
-    private final PidSetting setting;
-    private final FilterPlacement placement;
-    private final DiscreteAlgorithm algorithm;
-
     private ScanController(PidSetting setting, FilterPlacement placement, DiscreteAlgorithm algorithm,
                            double scanSeconds, boolean limited) {
         checkScan(scanSeconds);
         if (setting == null || placement == null || algorithm == null) {
             throw new IllegalArgumentException("a scan controller needs a setting, a filter placement and an algorithm");
         }
-        this.setting = setting;
-        this.placement = placement;
-        this.algorithm = algorithm;
         ScanWiring wiring = ScanWiring.of(setting, placement);
         DerivativeFilter filter = DerivativeFilter.of(algorithm.derivative(), setting.filterSeconds(), scanSeconds);
         IntegralRule rule = IntegralRule.of(algorithm.integral());
@@ -122,11 +115,6 @@ public final class ScanController {
     /** The controller {@code form} runs for {@code setting}, limits on. */
     public static ScanController of(FormDefinition form, PidSetting setting, double scanSeconds) {
         return limited(setting, form.filter().placement(), form.algorithm(), scanSeconds);
-    }
-
-    /** A second controller like this one (same setting, algorithm, scan and limits), at rest. */
-    public ScanController fresh() {
-        return new ScanController(setting, placement, algorithm, scanSeconds, limited);
     }
 
     static void checkScan(double scanSeconds) {
@@ -187,28 +175,8 @@ public final class ScanController {
         double derivativeTerm = kd * (cd * setpointDerivative - pvDerivative);
         double integralIncrement = ki * scanSeconds * (currentWeight * error + previousWeight * previousError);
 
-        double unlimited;
-        double output;
-        if (velocity) {
-            unlimited = outputPercent + (proportional - previousProportional) + integralIncrement
-                    + (derivativeTerm - previousDerivativeTerm);
-            output = limited ? limit(unlimited) : unlimited;
-        } else {
-            double nextIntegral = integral + integralIncrement;
-            unlimited = proportional + nextIntegral + derivativeTerm;
-            if (limited && antiWindup == AntiWindup.CLAMPING
-                    && ((unlimited > highPercent && integralIncrement > 0)
-                    || (unlimited < lowPercent && integralIncrement < 0))) {
-                // conditional integration: keep the integral where it was while it would push further into the limit
-                nextIntegral = integral;
-                unlimited = proportional + nextIntegral + derivativeTerm;
-            }
-            output = limited ? limit(unlimited) : unlimited;
-            if (limited && antiWindup == AntiWindup.BACK_CALCULATION) {
-                nextIntegral += trackingGain * (output - unlimited);
-            }
-            integral = nextIntegral;
-        }
+        double output = velocity ? velocityScan(proportional, integralIncrement, derivativeTerm)
+                : positionalScan(proportional, integralIncrement, derivativeTerm);
 
         previousSetpoint = setpointPercent;
         previousPv = pvPercent;
@@ -216,6 +184,36 @@ public final class ScanController {
         previousProportional = proportional;
         previousDerivativeTerm = derivativeTerm;
         outputPercent = output;
+        return output;
+    }
+
+    // The two forms' output steps live in their own methods to keep update() small enough for
+    // the JIT to inline it into a simulation loop.
+
+    /** The velocity form's output this scan; sets {@link #unlimitedPercent}. */
+    private double velocityScan(double proportional, double integralIncrement, double derivativeTerm) {
+        double unlimited = outputPercent + (proportional - previousProportional) + integralIncrement
+                + (derivativeTerm - previousDerivativeTerm);
+        unlimitedPercent = unlimited;
+        return limited ? limit(unlimited) : unlimited;
+    }
+
+    /** The positional form's output this scan, with anti-windup; sets the integral and {@link #unlimitedPercent}. */
+    private double positionalScan(double proportional, double integralIncrement, double derivativeTerm) {
+        double nextIntegral = integral + integralIncrement;
+        double unlimited = proportional + nextIntegral + derivativeTerm;
+        if (limited && antiWindup == AntiWindup.CLAMPING
+                && ((unlimited > highPercent && integralIncrement > 0)
+                || (unlimited < lowPercent && integralIncrement < 0))) {
+            // conditional integration: keep the integral where it was while it would push further into the limit
+            nextIntegral = integral;
+            unlimited = proportional + nextIntegral + derivativeTerm;
+        }
+        double output = limited ? limit(unlimited) : unlimited;
+        if (limited && antiWindup == AntiWindup.BACK_CALCULATION) {
+            nextIntegral += trackingGain * (output - unlimited);
+        }
+        integral = nextIntegral;
         unlimitedPercent = unlimited;
         return output;
     }

@@ -17,39 +17,31 @@ public final class LoopSimulator {
     private LoopSimulator() {
     }
 
-    /**
-     * Setpoint-step and load-step runs over the test's horizon. The two runs are independent;
-     * they advance side by side in one loop (the setpoint run on a {@link ScanController#fresh}
-     * copy of {@code controller}, the load run on {@code controller} itself, which ends in the
-     * load run's state), so the processor can overlap their arithmetic.
-     */
+    /** Setpoint-step and load-step runs over the test's horizon. */
     public static ClosedLoopRun run(ScanController controller, SampledStateSpace process, StepTest test) {
         double h = process.scanSeconds();
         int steps = Math.max(2, (int) Math.ceil(test.horizonSeconds() / h));
-        ScanController spController = controller.fresh();
-        SampledProcess spPlant = process.newProcess();
-        SampledProcess loadPlant = process.newProcess();
-        SampledResponse.Recorder sp = SampledResponse.recorder(steps + 1, h);
-        SampledResponse.Recorder load = SampledResponse.recorder(steps + 1, h);
+        SampledProcess plant = process.newProcess();
+        SampledResponse sp = simulate(controller, plant, test, steps, h, true);
+        SampledResponse load = simulate(controller, plant, test, steps, h, false);
+        return new ClosedLoopRun(sp, load, h);
+    }
 
+    private static SampledResponse simulate(ScanController c, SampledProcess plant, StepTest test, int steps,
+                                            double h, boolean setpointStep) {
         double pv0 = test.operatingPvPercent();
         double u0 = test.operatingOutputPercent();
-        double spSetpoint = pv0 + test.setpointStepPercent();
-        double spLoad = 0.0;
-        double loadSetpoint = pv0 + 0.0;
-        double loadLoad = test.loadStepPercent();
-        spController.reset(u0, pv0, pv0);
-        controller.reset(u0, pv0, pv0);
-        double spPv = pv0;
-        double loadPv = pv0;
+        double r = pv0 + (setpointStep ? test.setpointStepPercent() : 0.0);
+        double load = setpointStep ? 0.0 : test.loadStepPercent();
+        c.reset(u0, pv0, pv0);
+        plant.reset();
+        SampledResponse.Recorder response = SampledResponse.recorder(steps + 1, h);
+        double pv = pv0;
         for (int k = 0; k <= steps; k++) {
-            double spOut = spController.update(spSetpoint, spPv);
-            double loadOut = controller.update(loadSetpoint, loadPv);
-            sp.add(spPv, spOut);
-            load.add(loadPv, loadOut);
-            spPv = pv0 + spPlant.step(spOut - u0 + spLoad);
-            loadPv = pv0 + loadPlant.step(loadOut - u0 + loadLoad);
+            double out = c.update(r, pv);
+            response.add(pv, out);
+            pv = pv0 + plant.step(out - u0 + load);
         }
-        return new ClosedLoopRun(sp.toResponse(), load.toResponse(), h);
+        return response.toResponse();
     }
 }

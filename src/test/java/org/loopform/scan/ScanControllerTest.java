@@ -99,24 +99,6 @@ class ScanControllerTest {
         assertThat(allocatedBytes).isLessThan(4_096);
     }
 
-    @Test
-    void a_fresh_copy_runs_the_same_scans_from_rest() {
-        ScanController c = ScanController.limited(Setups.series(1.3, 5.0, 1.1, 0.25, 0.8, 1.0),
-                FilterPlacement.DERIVATIVE, Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.TRAPEZOIDAL,
-                        Discretization.STEP_INVARIANT, AntiWindup.BACK_CALCULATION, 0.0), 0.1);
-        c.reset(50, 50, 50);
-        c.update(60, 52);
-        ScanController copy = c.fresh();
-        copy.reset(50, 50, 50);
-        c.reset(50, 50, 50);
-        for (int k = 0; k < 100; k++) {
-            double pv = 50 + 5 * Math.sin(0.1 * k);
-            assertThat(copy.update(60, pv)).isEqualTo(c.update(60, pv));
-        }
-        assertThat(copy.trackingTimeSeconds()).isEqualTo(c.trackingTimeSeconds());
-        assertThat(copy.isLimited()).isTrue();
-    }
-
     // The filter state decays by the pole 0.78 each scan, through the subnormal doubles (where it
     // is flushed to 0); the output settles on exactly P + I = 50 - 1.
     @Test
