@@ -225,9 +225,10 @@ public final class LoopCheck {
     private static LoopResponse sampledLoop(PulseLaw controller, SampledStateSpace p) {
         double[] c = new double[2];
         double[] g = new double[2];
+        SampledStateSpace.Workspace work = p.newWorkspace();
         return (w, out) -> {
             controller.feedbackAt(w, c);
-            p.responseAt(w, g);
+            p.responseAt(w, work, g);
             out[0] = c[0] * g[0] - c[1] * g[1];
             out[1] = c[0] * g[1] + c[1] * g[0];
         };
