@@ -6,16 +6,23 @@ import java.util.Objects;
 /**
  * A closed-loop response sampled at increasing times: the process value and the controller
  * output at each time, both in percent of span, times in seconds. The step under study happens
- * at the first time. Immutable; the arrays are copied in and out.
+ * at the first time. Immutable; the arrays are copied in and out. A response recorded on a
+ * uniform step ({@link #recorder}) keeps only the step and gives sample k the time
+ * {@code k * stepSeconds}.
  */
 public final class SampledResponse {
 
+    /** Null for a response on a uniform step. */
     private final double[] timesSeconds;
+    /** The uniform step, or NaN when the times are given one by one. */
+    private final double stepSeconds;
     private final double[] processValuesPercent;
     private final double[] controllerOutputsPercent;
 
-    private SampledResponse(double[] timesSeconds, double[] processValuesPercent, double[] controllerOutputsPercent) {
+    private SampledResponse(double[] timesSeconds, double stepSeconds, double[] processValuesPercent,
+            double[] controllerOutputsPercent) {
         this.timesSeconds = timesSeconds;
+        this.stepSeconds = stepSeconds;
         this.processValuesPercent = processValuesPercent;
         this.controllerOutputsPercent = controllerOutputsPercent;
     }
@@ -47,16 +54,25 @@ public final class SampledResponse {
                         + timesSeconds[k] + " s follows " + timesSeconds[k - 1] + " s");
             }
         }
-        return new SampledResponse(timesSeconds.clone(), processValuesPercent.clone(),
+        return new SampledResponse(timesSeconds.clone(), Double.NaN, processValuesPercent.clone(),
                 controllerOutputsPercent.clone());
     }
 
+    /**
+     * A recorder of {@code samples} samples (at least 2) taken every {@code stepSeconds}, the
+     * first at time 0: a simulation fills it in place, and {@link Recorder#toResponse} hands its
+     * arrays over without copying them.
+     */
+    public static Recorder recorder(int samples, double stepSeconds) {
+        return new Recorder(samples, stepSeconds);
+    }
+
     public int size() {
-        return timesSeconds.length;
+        return processValuesPercent.length;
     }
 
     public double timeSeconds(int k) {
-        return timesSeconds[k];
+        return timesSeconds == null ? k * stepSeconds : timesSeconds[k];
     }
 
     public double processValuePercent(int k) {
@@ -68,7 +84,14 @@ public final class SampledResponse {
     }
 
     public double[] timesSeconds() {
-        return timesSeconds.clone();
+        if (timesSeconds != null) {
+            return timesSeconds.clone();
+        }
+        double[] t = new double[size()];
+        for (int k = 0; k < t.length; k++) {
+            t[k] = k * stepSeconds;
+        }
+        return t;
     }
 
     public double[] processValuesPercent() {
@@ -82,26 +105,76 @@ public final class SampledResponse {
     @Override
     public boolean equals(Object o) {
         return o instanceof SampledResponse r
-                && Arrays.equals(timesSeconds, r.timesSeconds)
                 && Arrays.equals(processValuesPercent, r.processValuesPercent)
-                && Arrays.equals(controllerOutputsPercent, r.controllerOutputsPercent);
+                && Arrays.equals(controllerOutputsPercent, r.controllerOutputsPercent)
+                && Arrays.equals(timesSeconds(), r.timesSeconds());
     }
 
     @Override
     public int hashCode() {
-        return Objects.hash(Arrays.hashCode(timesSeconds), Arrays.hashCode(processValuesPercent),
+        return Objects.hash(Arrays.hashCode(timesSeconds()), Arrays.hashCode(processValuesPercent),
                 Arrays.hashCode(controllerOutputsPercent));
     }
 
     @Override
     public String toString() {
-        return "SampledResponse[" + size() + " samples, " + timesSeconds[0] + " s to "
-                + timesSeconds[size() - 1] + " s]";
+        return "SampledResponse[" + size() + " samples, " + timeSeconds(0) + " s to "
+                + timeSeconds(size() - 1) + " s]";
     }
 
     private static void requireFinite(String what, int k, double value) {
         if (!Double.isFinite(value)) {
             throw new IllegalArgumentException(what + " at sample " + k + " must be finite (got " + value + ")");
+        }
+    }
+
+    /**
+     * Collects the samples of one response on a uniform step, one {@link #add} per sample in
+     * time order; used once. Not thread-safe.
+     */
+    public static final class Recorder {
+
+        private final double stepSeconds;
+        private double[] processValuesPercent;
+        private double[] controllerOutputsPercent;
+        private int count;
+
+        private Recorder(int samples, double stepSeconds) {
+            if (samples < 2) {
+                throw new IllegalArgumentException("a sampled response needs at least 2 samples (got " + samples + ")");
+            }
+            if (!(stepSeconds > 0) || !Double.isFinite(stepSeconds)) {
+                throw new IllegalArgumentException("sample step must be finite and > 0 s (got " + stepSeconds + " s)");
+            }
+            this.stepSeconds = stepSeconds;
+            this.processValuesPercent = new double[samples];
+            this.controllerOutputsPercent = new double[samples];
+        }
+
+        /** Records the next sample, at time {@code count * stepSeconds}. */
+        public void add(double processValuePercent, double controllerOutputPercent) {
+            processValuesPercent[count] = processValuePercent;
+            controllerOutputsPercent[count] = controllerOutputPercent;
+            count++;
+        }
+
+        /** The response recorded; every sample must have been added and be finite. */
+        public SampledResponse toResponse() {
+            if (processValuesPercent == null) {
+                throw new IllegalStateException("this recorder already gave its response");
+            }
+            if (count != processValuesPercent.length) {
+                throw new IllegalStateException("recorded " + count + " of " + processValuesPercent.length
+                        + " samples");
+            }
+            for (int k = 0; k < count; k++) {
+                requireFinite("process value", k, processValuesPercent[k]);
+                requireFinite("controller output", k, controllerOutputsPercent[k]);
+            }
+            SampledResponse r = new SampledResponse(null, stepSeconds, processValuesPercent, controllerOutputsPercent);
+            processValuesPercent = null;
+            controllerOutputsPercent = null;
+            return r;
         }
     }
 }

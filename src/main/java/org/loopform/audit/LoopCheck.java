@@ -54,6 +54,15 @@ public final class LoopCheck {
     }
 
     public static CheckResult run(LoopSpec loop, CheckPolicy policy) {
+        return run(loop, policy, Double.NaN);
+    }
+
+    /**
+     * As {@link #run(LoopSpec, CheckPolicy)}, the step tests run over {@code horizonSeconds}
+     * (still cut at {@link #MAX_TARGET_STEPS} target scans) instead of the horizon the margins
+     * give; NaN picks that one. For benchmarks, which need a fixed response length.
+     */
+    static CheckResult run(LoopSpec loop, CheckPolicy policy, double horizonSeconds) {
         if (loop.targetScanSeconds() == null) {
             throw new FormException(loop.where() + ": target.scan: required; give the target's scan time, e.g."
                     + " 'scan: 0.5 s' (or --scan)");
@@ -106,7 +115,8 @@ public final class LoopCheck {
             targetMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / h), h))
                     .analyze(sampledLoop(targetPulse, sampledTarget));
 
-            double horizon = horizon(designMargins, targetMargins, designLaw, p);
+            double horizon = Double.isNaN(horizonSeconds)
+                    ? horizon(designMargins, targetMargins, designLaw, p) : horizonSeconds;
             horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
             StepTest test = StepTest.standard(horizon);
             targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
@@ -218,9 +228,10 @@ public final class LoopCheck {
     private static LoopResponse sampledLoop(PulseLaw controller, SampledStateSpace p) {
         double[] c = new double[2];
         double[] g = new double[2];
+        SampledStateSpace.Workspace work = p.newWorkspace();
         return (w, out) -> {
             controller.feedbackAt(w, c);
-            p.responseAt(w, g);
+            p.responseAt(w, work, g);
             out[0] = c[0] * g[0] - c[1] * g[1];
             out[1] = c[0] * g[1] + c[1] * g[0];
         };

@@ -58,6 +58,14 @@ public final class SampledProcess {
         double arriving = inputRing[slot(delayScans)];
         // u(k-d-1) sits in the slot just after the newest one: the ring holds d + 2 inputs
         double leaving = inputRing[newest + 1 == size ? 0 : newest + 1];
+        if (order == 1) {
+            // the first-order case written out, in the same order of operations as the general one
+            double x = b0[0] * arriving + b1[0] * leaving;
+            x += a[0] * state[0];
+            state[0] = x;
+            double y = d * arriving;
+            return y + c[0] * x;
+        }
         for (int i = 0; i < order; i++) {
             double sum = b0[i] * arriving + b1[i] * leaving;
             int row = i * order;

@@ -107,21 +107,40 @@ public final class SampledStateSpace {
      * Frequency response of the pulse transfer function at {@code z = e^(i omega h)}, omega in
      * rad/s, written into {@code out} as {re, im}:
      * {@code H(z) = z^-d [C (zI - A)^-1 (B0 + B1 z^-1) + D z^-1]}.
-     * Allocates a small complex work matrix; infinite or NaN at a pole on the unit circle
+     * Allocates a small complex work matrix (see {@link #newWorkspace} for a reusable one); infinite
+     * or NaN at a pole on the unit circle
      * (omega = 0 for an integrating process).
      */
     public void responseAt(double omegaRadPerSecond, double[] out) {
+        responseAt(omegaRadPerSecond, newWorkspace(), out);
+    }
+
+    /** Scratch space for {@link #responseAt(double, Workspace, double[])} with this model's order. */
+    public Workspace newWorkspace() {
+        return new Workspace(order);
+    }
+
+    /**
+     * As {@link #responseAt(double, double[])}, with the work matrix in {@code workspace} (from
+     * {@link #newWorkspace}), so that it allocates nothing; the same numbers to the last bit.
+     */
+    public void responseAt(double omegaRadPerSecond, Workspace workspace, double[] out) {
+        int n = order;
+        if (workspace.order != n) {
+            throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
+                    + n + "; take it from this model's newWorkspace()");
+        }
         double theta = omegaRadPerSecond * scanSeconds;
         double zRe = Math.cos(theta);
         double zIm = Math.sin(theta);
         // z^-1 = conj(z) on the unit circle
         double invRe = zRe;
         double invIm = -zIm;
-        int n = order;
-        double[] mRe = new double[n * n];
-        double[] mIm = new double[n * n];
-        double[] rRe = new double[n];
-        double[] rIm = new double[n];
+        double[] mRe = workspace.matrixRe;
+        double[] mIm = workspace.matrixIm;
+        double[] rRe = workspace.vectorRe;
+        double[] rIm = workspace.vectorIm;
+        java.util.Arrays.fill(mIm, 0.0);
         for (int i = 0; i < n; i++) {
             for (int j = 0; j < n; j++) {
                 mRe[i * n + j] = -stateRowMajor[i * n + j];
@@ -168,6 +187,24 @@ public final class SampledStateSpace {
 
     double[] outputVector() {
         return output;
+    }
+
+    /** The complex work matrix and vector of one frequency-response evaluation; one thread at a time. */
+    public static final class Workspace {
+
+        private final int order;
+        private final double[] matrixRe;
+        private final double[] matrixIm;
+        private final double[] vectorRe;
+        private final double[] vectorIm;
+
+        private Workspace(int order) {
+            this.order = order;
+            this.matrixRe = new double[order * order];
+            this.matrixIm = new double[order * order];
+            this.vectorRe = new double[order];
+            this.vectorIm = new double[order];
+        }
     }
 
     private static void requireFinite(String name, double[] values) {

@@ -23,7 +23,6 @@ public final class LoopSimulator {
         int steps = Math.max(2, (int) Math.ceil(test.horizonSeconds() / h));
         SampledProcess plant = process.newProcess();
         SampledResponse sp = simulate(controller, plant, test, steps, h, true);
-        plant.reset();
         SampledResponse load = simulate(controller, plant, test, steps, h, false);
         return new ClosedLoopRun(sp, load, h);
     }
@@ -36,17 +35,13 @@ public final class LoopSimulator {
         double load = setpointStep ? 0.0 : test.loadStepPercent();
         c.reset(u0, pv0, pv0);
         plant.reset();
-        double[] t = new double[steps + 1];
-        double[] y = new double[steps + 1];
-        double[] u = new double[steps + 1];
+        SampledResponse.Recorder response = SampledResponse.recorder(steps + 1, h);
         double pv = pv0;
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
-            t[k] = k * h;
-            y[k] = pv;
-            u[k] = out;
+            response.add(pv, out);
             pv = pv0 + plant.step(out - u0 + load);
         }
-        return SampledResponse.of(t, y, u);
+        return response.toResponse();
     }
 }

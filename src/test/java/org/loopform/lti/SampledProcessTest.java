@@ -112,6 +112,31 @@ class SampledProcessTest {
                 assertThat(r[1]).isCloseTo((nIm * dRe - nRe * dIm) / d2, within(1e-12));
             }
         }
+
+        // A third-order process with a fractional delay: the reusable workspace, used again and
+        // again in any order of frequencies, gives exactly the allocating path's numbers.
+        @Test
+        void a_reused_workspace_gives_the_same_numbers_to_the_last_bit() {
+            SampledStateSpace s = ZeroOrderHold.of(
+                    TransferFunction.ofDescending(new double[] {0.5, 2.0}, new double[] {4.0, 9.0, 5.0, 1.0}), 1.3, 0.4);
+            SampledStateSpace.Workspace work = s.newWorkspace();
+            double[] out = new double[2];
+            for (double omega : new double[] {3.5, 0.01, 1.0, 0.2, 3.5, 7.8}) {
+                s.responseAt(omega, work, out);
+                assertThat(out).containsExactly(s.responseAt(omega));
+            }
+        }
+
+        @Test
+        void refuses_a_workspace_of_another_order() {
+            SampledStateSpace first = ZeroOrderHold.of(
+                    TransferFunction.ofDescending(new double[] {1.0}, new double[] {6.0, 1.0}), 0.0, 0.5);
+            SampledStateSpace second = ZeroOrderHold.of(
+                    TransferFunction.ofDescending(new double[] {1.0}, new double[] {2.0, 3.0, 1.0}), 0.0, 0.5);
+            assertThatThrownBy(() -> first.responseAt(0.1, second.newWorkspace(), new double[2]))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("order 2");
+        }
     }
 
     @Nested

@@ -99,6 +99,23 @@ class ScanControllerTest {
         assertThat(allocatedBytes).isLessThan(4_096);
     }
 
+    // The filter state decays by the pole 0.78 each scan, through the subnormal doubles (where it
+    // is flushed to 0); the output settles on exactly P + I = 50 - 1.
+    @Test
+    void a_derivative_kick_dies_away_to_exactly_the_proportional_output() {
+        ScanController c = ScanController.unlimited(Setups.ideal(1.0, Double.POSITIVE_INFINITY, 2.0, 0.4, 1, 1),
+                FilterPlacement.DERIVATIVE, Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD,
+                        Discretization.STEP_INVARIANT), 0.1);
+        c.reset(50, 50, 50);
+        double first = c.update(50, 51);
+        assertThat(first).isCloseTo(50 - 1 - 2.0 * (1 - Math.exp(-0.25)) / 0.1, within(TOL));
+        double out = first;
+        for (int k = 0; k < 4000; k++) {
+            out = c.update(50, 51);
+        }
+        assertThat(out).isEqualTo(49.0);
+    }
+
     @Test
     void velocity_form_has_no_integral_state_to_show() {
         ScanController c = ScanController.limited(Setups.ideal(1, 10, 0, 0, 1, 0), FilterPlacement.DERIVATIVE,

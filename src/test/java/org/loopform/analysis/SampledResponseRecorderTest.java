@@ -1,0 +1,69 @@
+package org.loopform.analysis;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Test;
+
+@DisplayName("A response recorded on a uniform step")
+class SampledResponseRecorderTest {
+
+    private static SampledResponse threeSamples() {
+        SampledResponse.Recorder r = SampledResponse.recorder(3, 0.1);
+        r.add(50, 40);
+        r.add(51, 41);
+        r.add(52.5, 42);
+        return r.toResponse();
+    }
+
+    @Test
+    void gives_sample_k_the_time_k_times_the_step() {
+        SampledResponse response = threeSamples();
+
+        assertThat(response.size()).isEqualTo(3);
+        assertThat(response.timeSeconds(2)).isEqualTo(2 * 0.1);
+        assertThat(response.timesSeconds()).containsExactly(0.0, 0.1, 2 * 0.1);
+        assertThat(response.processValuesPercent()).containsExactly(50.0, 51.0, 52.5);
+        assertThat(response.controllerOutputsPercent()).containsExactly(40.0, 41.0, 42.0);
+    }
+
+    @Test
+    void equals_the_same_samples_given_one_by_one() {
+        SampledResponse given = SampledResponse.of(new double[] {0.0, 0.1, 2 * 0.1}, new double[] {50, 51, 52.5},
+                new double[] {40, 41, 42});
+
+        assertThat(threeSamples()).isEqualTo(given).hasSameHashCodeAs(given);
+        assertThat(threeSamples().toString()).isEqualTo(given.toString());
+    }
+
+    @Test
+    void rejects_a_value_that_is_not_finite() {
+        SampledResponse.Recorder r = SampledResponse.recorder(2, 1.0);
+        r.add(50, 40);
+        r.add(Double.NaN, 40);
+
+        assertThatThrownBy(r::toResponse)
+                .isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("process value at sample 1");
+    }
+
+    @Test
+    void hands_its_samples_over_once_and_only_when_complete() {
+        SampledResponse.Recorder partial = SampledResponse.recorder(3, 1.0);
+        partial.add(50, 40);
+        assertThatThrownBy(partial::toResponse).hasMessageContaining("recorded 1 of 3");
+
+        SampledResponse.Recorder r = SampledResponse.recorder(2, 1.0);
+        r.add(50, 40);
+        r.add(51, 40);
+        r.toResponse();
+        assertThatThrownBy(r::toResponse).hasMessageContaining("already");
+    }
+
+    @Test
+    void needs_two_samples_and_a_positive_step() {
+        assertThatThrownBy(() -> SampledResponse.recorder(1, 1.0)).hasMessageContaining("(got 1)");
+        assertThatThrownBy(() -> SampledResponse.recorder(2, 0.0)).hasMessageContaining("(got 0.0 s)");
+    }
+}
