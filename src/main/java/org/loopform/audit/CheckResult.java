@@ -13,8 +13,11 @@ import org.loopform.simulate.ClosedLoopRun;
 /**
  * Everything a check found out about one loop: the conversion, the design and target loops'
  * margins and step responses (null without a process model), the controller mismatch, the
- * findings and the verdict. {@code referencePhaseErrorDegrees} states how closely the design
- * loop's fine-step simulation follows the continuous loop (the phase its hold adds at crossover).
+ * findings and the verdict. The design loop's continuous reference is simulated on steps of
+ * {@code referenceStepSeconds} and twice that, then extrapolated ({@code simulate.Richardson});
+ * {@code referenceErrorPercent} is the largest PV change the extrapolation made, % of span: an
+ * estimate of the finer run's error, and so a bound on the extrapolated one's. Both are 0 when
+ * the design loop runs the source's own algorithm at its own scan (nothing is approximated).
  */
 public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversion,
                           LoopMargins designMargins, LoopMargins targetMargins,
@@ -22,7 +25,7 @@ public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversi
                           StepMetrics targetSetpoint, StepMetrics targetLoad,
                           ClosedLoopRun designRun, ClosedLoopRun targetRun,
                           LawDeviation mismatch, ControllerMismatch.Curve mismatchCurve,
-                          double referenceStepSeconds, double referencePhaseErrorDegrees,
+                          double referenceStepSeconds, double referenceErrorPercent,
                           List<Finding> findings) {
 
     public CheckResult {

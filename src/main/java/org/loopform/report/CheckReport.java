@@ -65,10 +65,11 @@ public final class CheckReport {
             t.row("output travel (load)", fmt(dl.outputTravelPercent(), 4), fmt(tl.outputTravelPercent(), 4), "%");
             sb.append(t.render(2));
             sb.append("  Steps of 10 % (setpoint) and 10 % at the process input (load) about 50 %; ");
-            if (r.referencePhaseErrorDegrees() > 0) {
-                sb.append("the design loop is simulated on a ").append(fmt(r.referenceStepSeconds(), 3))
-                        .append(" s step, whose hold adds ").append(fmt(r.referencePhaseErrorDegrees(), 2))
-                        .append(" deg of lag at crossover.");
+            if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
+                sb.append("the continuous design loop is simulated on ").append(fmt(r.referenceStepSeconds(), 3))
+                        .append(" s and ").append(fmt(2 * r.referenceStepSeconds(), 3))
+                        .append(" s steps and extrapolated; estimated PV error under ")
+                        .append(fmt(r.referenceErrorPercent(), 2)).append(" %.");
             } else {
                 sb.append("the design loop runs the source's own algorithm at its scan.");
             }
@@ -139,7 +140,7 @@ public final class CheckReport {
         if (r.hasProcess()) {
             ObjectNode ref = n.putObject("reference");
             ref.put("step_s", r.referenceStepSeconds());
-            ref.put("phase_error_deg", r.referencePhaseErrorDegrees());
+            ref.put("pv_error_pct", r.referenceErrorPercent());
         }
         n.set("findings", Json.findings(r.findings()));
         return n;

@@ -180,10 +180,11 @@ final class HtmlLoopSection {
                 "%");
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of 10 % and load step of 10 % at the process"
                 + " input, about 50 %.");
-        if (r.referencePhaseErrorDegrees() > 0) {
-            sb.append(" The design loop is simulated on a ").append(Html.fig(r.referenceStepSeconds(), 3))
-                    .append(" s step, whose hold adds ").append(Html.fig(r.referencePhaseErrorDegrees(), 2))
-                    .append(" deg of lag at crossover.");
+        if (r.loop().sourceScanSeconds() == null) {
+            sb.append(" The continuous design loop is simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))
+                    .append(" s and ").append(Html.fig(2 * r.referenceStepSeconds(), 3))
+                    .append(" s steps and extrapolated; estimated PV error under ")
+                    .append(Html.fig(r.referenceErrorPercent(), 2)).append(" %.");
         } else {
             sb.append(" The design loop runs the source's own algorithm at its scan.");
         }
