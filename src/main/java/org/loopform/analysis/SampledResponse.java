@@ -151,6 +151,14 @@ public final class SampledResponse {
             this.controllerOutputsPercent = new double[samples];
         }
 
+        /** Fills every sample not yet recorded with these values (a settled run's tail). */
+        public void fillRemaining(double processValuePercent, double controllerOutputPercent) {
+            java.util.Arrays.fill(processValuesPercent, count, processValuesPercent.length, processValuePercent);
+            java.util.Arrays.fill(controllerOutputsPercent, count, controllerOutputsPercent.length,
+                    controllerOutputPercent);
+            count = processValuesPercent.length;
+        }
+
         /** Records the next sample, at time {@code count * stepSeconds}. */
         public void add(double processValuePercent, double controllerOutputPercent) {
             processValuesPercent[count] = processValuePercent;

@@ -197,9 +197,7 @@ public final class LoopCheck {
             // the coarse run (2 steps) still resolves the filter: a step-invariant pole of exp(-1)
             step = Math.min(step, s.filterSeconds() / 2);
         }
-        if (p.deadTimeSeconds() > 0) {
-            step = Math.min(step, p.deadTimeSeconds() / 10);
-        }
+        // no rule for the dead time: the sampling is exact for any dead time, whole scans or not
         return Math.max(step, horizon / (4.0 * MAX_TARGET_STEPS));
     }
 

@@ -10,9 +10,19 @@ import org.loopform.scan.ScanController;
  * fractional dead time included): each step the controller reads the PV at the sample instant,
  * its output is held over the step, and the process answers at the next instant. The process is
  * linear about the operating point; the controller works in absolute percent so its output
- * limits act where they would on the plant. The inner loop allocates nothing.
+ * limits act where they would on the plant. The inner loop allocates nothing. Once a run has
+ * settled (PV on its setpoint and output still, within {@link #QUIET_FRACTION} of the step, for
+ * {@link #QUIET_SHARE} of the horizon) the rest of the horizon holds those values without being
+ * simulated: a settled linear loop stays where it is.
  */
 public final class LoopSimulator {
+
+    /** A response within this share of its step of its final value counts as settled (1e-5: its IAE tail is negligible). */
+    static final double QUIET_FRACTION = 1e-5;
+    /** It must stay so for this share of the horizon (horizon 30 / crossover: 2 / crossover) ... */
+    static final double QUIET_SHARE = 1.0 / 15;
+    /** ... and at least this many steps. */
+    static final int MIN_QUIET_STEPS = 20;
 
     private LoopSimulator() {
     }
@@ -37,9 +47,21 @@ public final class LoopSimulator {
         plant.reset();
         SampledResponse.Recorder response = SampledResponse.recorder(steps + 1, h);
         double pv = pv0;
+        double quietBand = QUIET_FRACTION * Math.abs(setpointStep ? test.setpointStepPercent() : test.loadStepPercent());
+        int quietNeeded = Math.max(MIN_QUIET_STEPS, (int) Math.ceil(test.horizonSeconds() * QUIET_SHARE / h));
+        int quiet = 0;
+        double previousOut = u0;
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
             response.add(pv, out);
+            // settled: PV on its setpoint and the output still, both within a hair of the step, for a
+            // good while; the rest of the horizon would only repeat these values
+            quiet = Math.abs(pv - r) <= quietBand && Math.abs(out - previousOut) <= quietBand ? quiet + 1 : 0;
+            previousOut = out;
+            if (quiet >= quietNeeded && k < steps) {
+                response.fillRemaining(pv, out);
+                break;
+            }
             pv = pv0 + plant.step(out - u0 + load);
         }
         return response.toResponse();
