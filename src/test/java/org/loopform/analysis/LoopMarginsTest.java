@@ -1,3 +1,4 @@
+// plumbing: no published source needed (source: none); it checks the record's validation
 package org.loopform.analysis;
 
 import static org.assertj.core.api.Assertions.assertThatThrownBy;

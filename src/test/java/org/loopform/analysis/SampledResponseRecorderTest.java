@@ -1,3 +1,4 @@
+// plumbing: no published source needed (source: none); it checks how responses are stored
 package org.loopform.analysis;
 
 import static org.assertj.core.api.Assertions.assertThat;

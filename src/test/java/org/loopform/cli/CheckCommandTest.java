@@ -22,6 +22,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 import org.w3c.dom.Document;
 
 /**
+ * Source: plumbing tests, except where marked below.
  * {@code loopform check} as a user meets it, through {@link Main#run}: its text and JSON, the
  * SVG plot, exit codes and the messages for bad loop files. The one expected figure comes from
  * the numpy/scipy reference of {@code org.loopform.audit.LoopCheckGoldenTest} (regenerate with

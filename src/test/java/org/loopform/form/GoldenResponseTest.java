@@ -18,6 +18,7 @@ import org.loopform.law.ControlLaw;
 import org.loopform.units.Span;
 
 /**
+ * Source: scipy.signal.freqs as an independent reference library, on the textbook definitions.
  * Converted laws against an independent evaluation. The golden file holds frequency responses
  * of PID laws built by scipy.signal.freqs from each structure's textbook definition (Astrom &
  * Hagglund, PID Controllers: Theory, Design and Tuning, 2nd ed., ISA 1995, sec. 3.4), written by

@@ -13,6 +13,9 @@ import org.junit.jupiter.api.Test;
  * 1e-9 on outputs of order one: the integrator's local error is about 1e-13 per step and a
  * run has a few hundred steps, so 1e-9 leaves a wide margin while still catching any error in
  * the delay split, which shows at the 1e-2 level.
+ * Source: the processes' differential equations (common practice) integrated numerically; the
+ * sampling it checks is that of Astrom & Wittenmark, Computer-Controlled Systems, 3rd ed., 1997,
+ * ch. 2 (from memory).
  */
 @DisplayName("Zero-order hold against a fine numerical integration")
 class ZeroOrderHoldFineStepTest {

@@ -11,7 +11,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
 /**
- * Delay-free processes against scipy 1.17: {@code scipy.signal.cont2discrete(method='zoh')},
+ * Source: scipy 1.17 as an independent reference library. Delay-free processes against scipy 1.17: {@code scipy.signal.cont2discrete(method='zoh')},
  * simulated with {@code scipy.signal.dlsim} and evaluated with {@code scipy.signal.dfreqresp}.
  * Regenerate the golden files with {@code python3 src/test/python/write_sampling_golden.py}.
  */

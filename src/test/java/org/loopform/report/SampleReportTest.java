@@ -9,7 +9,7 @@ import org.junit.jupiter.api.Test;
 /**
  * Writes the sample report to {@code target/sample-report/report.html}, for the browser check
  * ({@code scripts/browser-check.sh target/sample-report/report.html target/sample-report/report.png}).
- * Plumbing: no published source needed.
+ * Plumbing: no published source needed (source: none, it only writes a sample file).
  */
 class SampleReportTest {
 

@@ -8,7 +8,7 @@ import java.util.regex.Pattern;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
-// plumbing: no published source needed (drawing and thinning of loopform's own charts)
+// plumbing: no published source needed, source: none (drawing and thinning of loopform's own charts)
 @DisplayName("SVG plot panels")
 class SvgPlotTest {
 
