@@ -69,12 +69,13 @@ public final class ControllerMismatch {
     }
 
     private static double gainDb(double[] a, double[] b) {
-        double ma = Math.hypot(a[0], a[1]);
-        double mb = Math.hypot(b[0], b[1]);
+        // 20 log10(|b|/|a|) written with squared magnitudes: no square roots on this hot path
+        double ma = a[0] * a[0] + a[1] * a[1];
+        double mb = b[0] * b[0] + b[1] * b[1];
         if (ma == 0 && mb == 0) {
             return 0;
         }
-        return 20 * Math.log10(mb / ma);
+        return 10 * Math.log10(mb / ma);
     }
 
     private static double phaseDeg(double[] a, double[] b) {

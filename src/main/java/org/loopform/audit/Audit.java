@@ -7,7 +7,9 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.function.BiConsumer;
 import java.util.function.Consumer;
+import java.util.function.Function;
 import org.loopform.findings.CheckPolicy;
 
 /**
@@ -26,6 +28,16 @@ public final class Audit {
     /** Runs the audit; {@code sink} sees every outcome in input order, on the calling thread. */
     public static AuditSummary run(Iterator<LoopRow> rows, CheckPolicy policy, int threads,
                                    Consumer<LoopOutcome> sink) {
+        return run(rows, policy, threads, o -> null, (o, ignored) -> sink.accept(o));
+    }
+
+    /**
+     * Runs the audit with a {@code prepare} step that runs on the worker threads right after each
+     * check (rendering the loop's output rows, say), so that the calling thread only has to write
+     * them; {@code sink} then sees every outcome with what was prepared for it, in input order.
+     */
+    public static <R> AuditSummary run(Iterator<LoopRow> rows, CheckPolicy policy, int threads,
+                                       Function<LoopOutcome, R> prepare, BiConsumer<LoopOutcome, R> sink) {
         AuditSummary summary = new AuditSummary();
         int n = Math.max(1, threads);
         ExecutorService pool = Executors.newFixedThreadPool(n, r -> {
@@ -34,11 +46,14 @@ public final class Audit {
             return t;
         });
         try {
-            ArrayDeque<Future<LoopOutcome>> inFlight = new ArrayDeque<>();
+            ArrayDeque<Future<Prepared<R>>> inFlight = new ArrayDeque<>();
             int window = n * WINDOW_PER_THREAD;
             while (rows.hasNext()) {
                 LoopRow row = rows.next();
-                inFlight.add(pool.submit(() -> check(row, policy)));
+                inFlight.add(pool.submit(() -> {
+                    LoopOutcome o = check(row, policy);
+                    return new Prepared<>(o, prepare.apply(o));
+                }));
                 if (inFlight.size() >= window) {
                     deliver(inFlight.poll(), summary, sink);
                 }
@@ -50,6 +65,9 @@ public final class Audit {
             pool.shutdownNow();
         }
         return summary;
+    }
+
+    private record Prepared<R>(LoopOutcome outcome, R prepared) {
     }
 
     /** One row's outcome; input problems become the outcome's problems. */
@@ -66,10 +84,10 @@ public final class Audit {
         }
     }
 
-    private static void deliver(Future<LoopOutcome> f, AuditSummary summary, Consumer<LoopOutcome> sink) {
-        LoopOutcome o;
+    private static <R> void deliver(Future<Prepared<R>> f, AuditSummary summary, BiConsumer<LoopOutcome, R> sink) {
+        Prepared<R> p;
         try {
-            o = f.get();
+            p = f.get();
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("audit interrupted", e);
@@ -80,7 +98,7 @@ public final class Audit {
             }
             throw new IllegalStateException(c);
         }
-        summary.add(o);
-        sink.accept(o);
+        summary.add(p.outcome());
+        sink.accept(p.outcome(), p.prepared());
     }
 }

@@ -36,14 +36,16 @@ final class AuditRunner {
                 .setUnit(" loops", 1).continuousUpdate().build() : null;
         AuditSummary summary;
         try {
-            summary = Audit.run(rows, s.policy(), s.threads(), o -> {
-                if (output != null) {
-                    output.accept(o);
-                }
-                if (bar != null) {
-                    bar.step();
-                }
-            });
+            boolean html = output != null && output.html();
+            summary = Audit.run(rows, s.policy(), s.threads(),
+                    o -> output == null ? null : AuditOutput.render(o, html), (o, rendered) -> {
+                        if (output != null) {
+                            output.accept(o, rendered);
+                        }
+                        if (bar != null) {
+                            bar.step();
+                        }
+                    });
             if (output != null) {
                 output.finish(summary, new AuditInfo("loopform migration audit", s.inputName(),
                         ZonedDateTime.now().format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText()));

@@ -102,20 +102,62 @@ public final class AuditOutput implements AutoCloseable {
         }
     }
 
+    /**
+     * One loop's output, rendered off the writing thread: its loops.csv row, its entry-sheet rows,
+     * its loops.json element, and its report section without plots and (for loops that warn or
+     * fail) with them. Rendering is the costly part; writing is then a copy.
+     */
+    public record Rendered(List<String> loopRow, List<List<String>> entryRows, String json, String section,
+                           String sectionWithPlots) {
+    }
+
+    /** Renders {@code o}'s output; safe to call from any thread. */
+    public static Rendered render(LoopOutcome o, boolean html) {
+        try {
+            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
+            String plain = null;
+            String plotted = null;
+            if (html) {
+                java.io.StringWriter w = new java.io.StringWriter();
+                HtmlReport.writeLoopSection(w, o, false);
+                plain = w.toString();
+                if (o.ok() && o.result().verdict() != Verdict.PASS) {
+                    java.io.StringWriter p = new java.io.StringWriter();
+                    HtmlReport.writeLoopSection(p, o, true);
+                    plotted = p.toString();
+                }
+            }
+            return new Rendered(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot render the audit output", e);
+        }
+    }
+
+    /** Whether this output writes the HTML report (and so wants sections rendered). */
+    public boolean html() {
+        return html;
+    }
+
     /** Writes one loop's rows (call in input order). */
     public void accept(LoopOutcome o) {
+        accept(o, render(o, html));
+    }
+
+    /** Writes one loop's rendered rows (call in input order). */
+    public void accept(LoopOutcome o, Rendered r) {
         try {
-            loopsCsv.printRecord(AuditRows.loopRow(o));
-            for (List<String> row : AuditRows.entryRows(o)) {
+            loopsCsv.printRecord(r.loopRow());
+            for (List<String> row : r.entryRows()) {
                 entrySheet.printRecord(row);
             }
-            MAPPER.writeTree(json, AuditRows.loopJson(o));
+            json.writeRawValue(r.json());
             if (sections != null) {
-                boolean plots = o.ok() && o.result().verdict() != Verdict.PASS && plotted < PLOTTED_LOOPS;
-                if (plots) {
+                if (r.sectionWithPlots() != null && plotted < PLOTTED_LOOPS) {
                     plotted++;
+                    sections.write(r.sectionWithPlots());
+                } else {
+                    sections.write(r.section());
                 }
-                HtmlReport.writeLoopSection(sections, o, plots);
             }
         } catch (IOException e) {
             throw new UncheckedIOException("cannot write the audit output", e);
