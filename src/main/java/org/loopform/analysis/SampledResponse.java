@@ -159,26 +159,6 @@ public final class SampledResponse {
             count = processValuesPercent.length;
         }
 
-        /**
-         * Fills every sample not yet recorded with the geometric continuation of a single decaying
-         * mode: PV {@code setpoint + error ratio^j}, output {@code output + outputStep (ratio + ... + ratio^j)},
-         * for the j-th sample after the last one recorded.
-         */
-        public void fillGeometric(double setpointPercent, double errorPercent, double outputPercent,
-                                  double outputStepPercent, double ratio) {
-            double e = errorPercent;
-            double u = outputPercent;
-            double du = outputStepPercent;
-            for (int k = count; k < processValuesPercent.length; k++) {
-                e *= ratio;
-                du *= ratio;
-                u += du;
-                processValuesPercent[k] = setpointPercent + e;
-                controllerOutputsPercent[k] = u;
-            }
-            count = processValuesPercent.length;
-        }
-
         /** Records the next sample, at time {@code count * stepSeconds}. */
         public void add(double processValuePercent, double controllerOutputPercent) {
             processValuesPercent[count] = processValuePercent;

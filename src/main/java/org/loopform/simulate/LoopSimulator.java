@@ -13,10 +13,7 @@ import org.loopform.scan.ScanController;
  * limits act where they would on the plant. The inner loop allocates nothing. Once a run has
  * settled (PV on its setpoint and output still, within {@link #QUIET_FRACTION} of the step, for
  * {@link #QUIET_SHARE} of the horizon) the rest of the horizon holds those values without being
- * simulated: a settled linear loop stays where it is. Likewise, once the error is small and it and
- * the output steps shrink by one steady ratio, unsaturated (a single real mode left), the rest
- * of the horizon continues that geometric decay: the linear loop's own solution, without the
- * steps.
+ * simulated: a settled linear loop stays where it is.
  */
 public final class LoopSimulator {
 
@@ -26,10 +23,6 @@ public final class LoopSimulator {
     static final double QUIET_SHARE = 1.0 / 15;
     /** ... and at least this many steps. */
     static final int MIN_QUIET_STEPS = 20;
-    /** A tail this small (share of the step) that decays by a steady ratio is one mode ... */
-    static final double TAIL_FRACTION = 1e-3;
-    /** ... when the ratio holds to this relative change from step to step. */
-    static final double RATIO_STEADY = 1e-5;
 
     private LoopSimulator() {
     }
@@ -57,37 +50,16 @@ public final class LoopSimulator {
         double quietBand = QUIET_FRACTION * Math.abs(setpointStep ? test.setpointStepPercent() : test.loadStepPercent());
         int quietNeeded = Math.max(MIN_QUIET_STEPS, (int) Math.ceil(test.horizonSeconds() * QUIET_SHARE / h));
         int quiet = 0;
-        int geometric = 0;
         double previousOut = u0;
-        double previousError = 0;
-        double previousStep = 0;
-        double previousRatio = Double.NaN;
-        double tailBand = TAIL_FRACTION * Math.abs(setpointStep ? test.setpointStepPercent() : test.loadStepPercent());
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
             response.add(pv, out);
-            double error = pv - r;
-            double du = out - previousOut;
             // settled: PV on its setpoint and the output still, both within a hair of the step, for a
             // good while; the rest of the horizon would only repeat these values
-            quiet = Math.abs(error) <= quietBand && Math.abs(du) <= quietBand ? quiet + 1 : 0;
-            // or down to one decaying mode: error and output steps shrink by the same steady ratio
-            double ratio = previousError != 0 ? error / previousError : Double.NaN;
-            boolean oneMode = Math.abs(error) <= tailBand && ratio > 0 && ratio < 1
-                    && Math.abs(ratio - previousRatio) <= RATIO_STEADY * ratio
-                    && previousStep != 0 && Math.abs(du / previousStep - ratio) <= RATIO_STEADY * ratio * 10
-                    && out == c.unlimitedOutputPercent();
-            geometric = oneMode ? geometric + 1 : 0;
+            quiet = Math.abs(pv - r) <= quietBand && Math.abs(out - previousOut) <= quietBand ? quiet + 1 : 0;
             previousOut = out;
-            previousError = error;
-            previousStep = du;
-            previousRatio = ratio;
-            if (k < steps && quiet >= quietNeeded) {
+            if (quiet >= quietNeeded && k < steps) {
                 response.fillRemaining(pv, out);
-                break;
-            }
-            if (k < steps && geometric >= Math.max(MIN_QUIET_STEPS, quietNeeded / 4)) {
-                response.fillGeometric(r, error, out, du, ratio);
                 break;
             }
             pv = pv0 + plant.step(out - u0 + load);
