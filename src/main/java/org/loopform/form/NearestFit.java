@@ -27,6 +27,12 @@ final class NearestFit {
 
     private static final int FIT_POINTS = 80;
     private static final int MAX_EVALUATIONS = 40_000;
+    /**
+     * The simplex stops when the cost changes by less than this between iterations; the reported
+     * deviations (three significant figures) are settled long before.
+     */
+    private static final double CONVERGED_RELATIVE = 1e-10;
+    private static final double CONVERGED_ABSOLUTE = 1e-14;
 
     private final FormDefinition target;
     private final ControlLaw source;
@@ -79,7 +85,7 @@ final class NearestFit {
         for (int round = 0; round < 3; round++) {
             double[] steps = new double[best.length];
             java.util.Arrays.fill(steps, round == 0 ? 0.5 : 0.05);
-            SimplexOptimizer optimizer = new SimplexOptimizer(1e-15, 1e-15);
+            SimplexOptimizer optimizer = new SimplexOptimizer(CONVERGED_RELATIVE, CONVERGED_ABSOLUTE);
             PointValuePair r = optimizer.optimize(new MaxEval(MAX_EVALUATIONS), new ObjectiveFunction(safe),
                     GoalType.MINIMIZE, new InitialGuess(best), new NelderMeadSimplex(steps));
             if (r.getValue() < bestValue) {
