@@ -1,6 +1,6 @@
 // Opens a loopform HTML report in headless Chromium and checks that it renders cleanly:
 // no console errors or page errors, at least one SVG with a polyline, the summary table present.
-// Takes a full-page screenshot. Prints one line; exit code 0 when every check passes, 1 otherwise,
+// Takes a full-page screenshot (the top 16000 px of a longer page). Prints one line; exit code 0 when every check passes, 1 otherwise,
 // 2 for bad usage.
 //
 // usage: node scripts/browser-check.mjs REPORT.html OUT.png
@@ -50,7 +50,11 @@ try {
   if (facts.plots < 1) problems.push('no svg with a polyline');
   if (facts.summaryTable < 1) problems.push('no summary table (#summary table)');
   if (facts.cautions < 1) problems.push('no cautions box');
-  await page.screenshot({ path: shot, fullPage: true });
+  // a very long report (thousands of loops) is taller than a screenshot can be: take its top
+  const height = await page.evaluate(() => document.documentElement.scrollHeight);
+  const limit = 16000;
+  await page.screenshot(height <= limit ? { path: shot, fullPage: true }
+    : { path: shot, fullPage: true, clip: { x: 0, y: 0, width: 1280, height: limit } });
   const verdict = problems.length === 0 ? 'ok' : 'FAILED';
   console.log(`browser-check ${verdict}: ${report}: ${facts.sections} loop sections, ${facts.svgs} svg, `
     + `${facts.plots} polylines, ${facts.summaryTable} summary tables; screenshot ${shot}`

@@ -35,7 +35,7 @@ import org.loopform.report.HtmlReport;
 public final class AuditOutput implements AutoCloseable {
 
     /** Loops that warn or fail get plots in the report, up to this many (the report stays light). */
-    public static final int PLOTTED_LOOPS = 300;
+    public static final int PLOTTED_LOOPS = 100;
 
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
