@@ -14,7 +14,8 @@ import picocli.CommandLine.Spec;
 /** The {@code loopform} command: carries PID tuning between controller forms and checks the result. */
 @Command(name = "loopform", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = {"Carries PID tuning between controller algorithm forms exactly, or says how close it can get"
-                + " and why."},
+                + " and why; checks the loop as the target will run it (scan time, discretization, filter,"
+                + " rounding, limits); audits whole migrations."},
         subcommands = {FormsCommand.class, ConvertCommand.class, CheckCommand.class, AuditCommand.class, DemoCommand.class, AutoComplete.GenerateCompletion.class},
         footer = {"", "Exit codes: 0 done, nothing failed; 1 done, a finding of severity fail; 2 bad input or usage.",
                 "", Cautions.SHORT})
