@@ -96,6 +96,34 @@ class CatalogRoundTripProperties {
                 .isLessThanOrEqualTo(1e-9 * Math.hypot(expected[0], expected[1]));
     }
 
+    @net.jqwik.api.Example
+    void every_catalog_pair_round_trips_where_exact() {
+        // one tuning through all 16 x 16 pairs, so that no pair is left to chance
+        FormDefinition ideal = CatalogLoader.bundled().find("ideal").orElseThrow();
+        Tuning t = new Tuning(1.7, 240, 30, 10);
+        int exactPairs = 0;
+        for (FormDefinition a : FORMS) {
+            Conversion toA = Converter.convert(ideal, ideal(t), a, CONTEXT);
+            if (!toA.exact()) {
+                continue;
+            }
+            for (FormDefinition b : FORMS) {
+                Conversion toB = Converter.convert(a, FormCodec.asText(toA.parameters()), b, CONTEXT);
+                if (!toB.exact()) {
+                    continue;
+                }
+                exactPairs++;
+                Conversion back = Converter.convert(b, FormCodec.asText(toB.parameters()), a, CONTEXT);
+                assertThat(back.exact()).as("%s -> %s -> %s", a.id(), b.id(), a.id()).isTrue();
+                toA.parameters().values().forEach((name, value) -> assertThat(
+                        Math.abs(back.parameters().values().get(name) - value))
+                        .as("%s via %s", name, b.id()).isLessThanOrEqualTo(1e-9 * Math.abs(value) + 1e-300));
+            }
+        }
+        // the forms with a filter ratio, a filter time constant and plain units all write this law
+        assertThat(exactPairs).isGreaterThan(60);
+    }
+
     @Provide
     Arbitrary<Double> omegas() {
         return Arbitraries.doubles().between(-5, 3).map(x -> Math.pow(10, x));
