@@ -1,7 +1,6 @@
 package org.loopform.cli;
 
 import org.loopform.units.Measure;
-import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
 import picocli.CommandLine.ITypeConverter;
 import picocli.CommandLine.TypeConversionException;
@@ -11,11 +10,7 @@ final class DurationConverter implements ITypeConverter<Double> {
     @Override
     public Double convert(String value) {
         try {
-            double s = Measure.parseSeconds(value, TimeUnit.SECONDS);
-            if (!(s > 0)) {
-                throw new TypeConversionException("a duration must be > 0 (got '" + value + "')");
-            }
-            return s;
+            return Measure.parsePositiveSeconds(value);
         } catch (UnitException e) {
             throw new TypeConversionException(e.getMessage());
         }

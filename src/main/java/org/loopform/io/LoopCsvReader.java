@@ -27,7 +27,6 @@ import org.loopform.form.FormDefinition;
 import org.loopform.process.ProcessModel;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
-import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
 
 /**
@@ -257,11 +256,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
 
     private static double seconds(String text, String where, String key) {
         try {
-            double s = Measure.parseSeconds(text, TimeUnit.SECONDS);
-            if (!(s > 0)) {
-                throw new UnitException("a scan time must be > 0 s (got '" + text + "')");
-            }
-            return s;
+            return Measure.parsePositiveSeconds(text);
         } catch (UnitException e) {
             throw new InputException(where + ": " + key + ": " + e.getMessage());
         }

@@ -14,7 +14,6 @@ import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
-import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
 
 /**
@@ -254,11 +253,7 @@ public final class LoopFileReader {
 
     private static double seconds(YamlNode block, String key, String text) {
         try {
-            double s = Measure.parseSeconds(text, TimeUnit.SECONDS);
-            if (!(s > 0)) {
-                throw new UnitException("a scan time must be > 0 s (got '" + text + "')");
-            }
-            return s;
+            return Measure.parsePositiveSeconds(text);
         } catch (UnitException ex) {
             YamlNode at = block.get(key).orElse(block);
             throw new InputException(at.where() + ex.getMessage());

@@ -56,6 +56,18 @@ public record Measure(double value, String unit) {
                         + "' in '" + text.trim() + "'; use ms, s, min or h"));
     }
 
+    /**
+     * Reads a duration that must be positive, such as a scan time: as {@link #parseSeconds} with
+     * bare numbers in seconds, and an error saying so when it is zero or negative.
+     */
+    public static double parsePositiveSeconds(String text) {
+        double s = parseSeconds(text, TimeUnit.SECONDS);
+        if (!(s > 0)) {
+            throw new UnitException("a duration must be > 0 s (got '" + text.trim() + "')");
+        }
+        return s;
+    }
+
     /** Prints the measure as it was written, e.g. {@code 30 s}. */
     @Override
     public String toString() {
