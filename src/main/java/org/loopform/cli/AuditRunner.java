@@ -25,6 +25,12 @@ final class AuditRunner {
     private AuditRunner() {
     }
 
+    private static void spec(PrintWriter out) {
+        out.println("No loops were found in the input: it needs a header row and one loop a row (CSV), or a"
+                + " 'loops:' list (YAML).");
+        out.flush();
+    }
+
     record Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
                     OutputFormat format, int threads, List<Path> inputs, String settingsText, long expectedRows) {
     }
@@ -48,7 +54,7 @@ final class AuditRunner {
                     });
             if (output != null) {
                 output.finish(summary, new AuditInfo("loopform migration audit", s.inputName(),
-                        ZonedDateTime.now().format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText()));
+                        ZonedDateTime.now().withNano(0).format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText()));
             }
         } finally {
             if (bar != null) {
@@ -70,6 +76,10 @@ final class AuditRunner {
         }
         out.flush();
         if (summary.badRowCount() > 0) {
+            return ExitCodes.BAD_INPUT;
+        }
+        if (summary.loops() == 0) {
+            spec(out);
             return ExitCodes.BAD_INPUT;
         }
         Verdict w = summary.worstVerdict();

@@ -100,7 +100,7 @@ final class FormsCommand implements Callable<Integer> {
                     out.println();
                 } else {
                     out.println(file + ": form " + f.id() + " is valid (" + f.structure().id() + "; parameters "
-                            + String.join(", ", f.parameterNames()) + ").");
+                            + String.join(", ", f.parameters().stream().map(p -> p.name()).toList()) + ").");
                 }
                 out.flush();
                 return ExitCodes.OK;

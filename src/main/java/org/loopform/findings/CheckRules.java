@@ -65,8 +65,21 @@ public final class CheckRules {
                     ASTROM_WITTENMARK, "The scan is slow for this loop: scan time times crossover is "
                     + Numbers.significant(hwc, 3) + " rad (crossover " + Numbers.significant(wc, 3) + " rad/s); the hold"
                     + " alone, a delay of about h/2, costs " + Numbers.significant(lostDeg, 3) + " deg of phase at"
-                    + " crossover. Use a scan of at most " + Numbers.significant(p.samplingWarn() / wc, 3) + " s."));
+                    + " crossover. Use a scan of at most " + Numbers.significant(p.samplingWarn() / wc, 3) + " s"
+                    + allowedAdvice(in, p.samplingWarn() / wc) + "."));
         }
+    }
+
+    /** ", for example 0.5 s, the longest this form allows below it" where the form lists its scans. */
+    private static String allowedAdvice(Inputs in, double maxSeconds) {
+        double best = 0;
+        for (double h : in.targetForm().algorithm().allowedScansSeconds()) {
+            if (h <= maxSeconds && h > best) {
+                best = h;
+            }
+        }
+        return best > 0 ? " (" + Numbers.plain(best) + " s is the longest " + in.targetForm().id() + " allows below it)"
+                : "";
     }
 
     private static void derivative(Inputs in, CheckPolicy p, List<Finding> out) {
@@ -75,11 +88,24 @@ public final class CheckRules {
             return;
         }
         if (f.filterSeconds() > 0 && f.nhOverTd() > p.derivativeNhTdWarn()) {
-            out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, f.nhOverTd(), p.derivativeNhTdWarn(), "ratio",
-                    ASTROM_WITTENMARK, "The derivative is spoiled by the scan: N h / Td = "
-                    + Numbers.significant(f.nhOverTd(), 3) + " (the filter time constant Td/N = "
-                    + Numbers.significant(f.filterSeconds(), 3) + " s is shorter than the scan's reach). Scan faster, or"
-                    + " accept that derivative action is mostly lost."));
+            // the rule is about resolving the filter; it matters to the loop only when the filter
+            // corner is near the crossover (within a decade), where the derivative does its work
+            LoopMargins lm = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
+            double corner = 1 / f.filterSeconds();
+            boolean shorterThanScan = f.nhOverTd() > 1;
+            boolean matters = shorterThanScan || lm == null || lm.crossoverRadPerSecond().isEmpty()
+                    || corner < 10 * lm.crossoverRadPerSecond().getAsDouble();
+            out.add(new Finding(Topic.DERIVATIVE, matters ? Severity.WARN : Severity.INFO, f.nhOverTd(),
+                    p.derivativeNhTdWarn(), "ratio", ASTROM_WITTENMARK, "The scan is coarse for the derivative filter:"
+                    + " N h / Td = " + Numbers.significant(f.nhOverTd(), 3) + ", so the filter time constant Td/N = "
+                    + Numbers.significant(f.filterSeconds(), 3) + " s spans less than " + Numbers.significant(
+                    1 / f.nhOverTd(), 2) + " scans and the sampled derivative departs from the design's near and above"
+                    + " its corner (" + Numbers.significant(corner, 3) + " rad/s). " + (shorterThanScan
+                    ? "The filter is shorter than one scan: the derivative acts as one-scan spikes. Scan faster, or"
+                    + " expect less derivative action than designed." : matters
+                    ? "That is close enough to the loop's crossover to change what the derivative does: scan faster,"
+                    + " or expect less derivative action than designed."
+                    : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices.")));
         } else if (f.filterSeconds() == 0 && in.scanSeconds() > f.derivativeTimeSeconds()) {
             out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, in.scanSeconds() / f.derivativeTimeSeconds(), 1.0,
                     "ratio", COMMON, "The scan time is longer than the derivative time, so the unfiltered derivative"

@@ -57,7 +57,13 @@ public final class Converter {
                     "No action was given for " + from.id() + "; reverse action (output falls as the PV rises) was "
                             + "assumed. Write action=direct if the controller is direct acting."));
         }
-        ControlLaw law = StructureLaw.toLaw(src, from.filter().placement());
+        ControlLaw law;
+        try {
+            law = StructureLaw.toLaw(src, from.filter().placement());
+        } catch (IllegalArgumentException e) {
+            throw new FormException("the values are too large or too small to compute with (" + e.getMessage()
+                    + "); check their magnitudes and units");
+        }
         FrequencyBand band = FrequencyBand.implied(law.terms(), ctx.scanSeconds() == null ? 0 : ctx.scanSeconds());
 
         PidSetting candidate = StructureLaw.fromTerms(law.terms(), to.structure(), to.filter().placement(),
@@ -87,7 +93,7 @@ public final class Converter {
         checkLimits(to, written, result, findings);
         WrittenTuning entered = enter(to, written);
         ControlLaw enteredLaw = targetLaw;
-        if (!entered.equals(written)) {
+        if (!sameToDigits(entered, written)) {
             enteredLaw = checkRounding(to, written, entered, targetLaw, band, ctx, findings);
         }
         return new Conversion(from, to, src, law, result, targetLaw, enteredLaw, exact, written, entered, deviation,
@@ -197,7 +203,9 @@ public final class Converter {
                     + devText + "."));
         }
         LawDeviation sp = LawDeviation.ofSetpoint(law, target, band);
-        if (sp.gainDb() > ROUNDING_GAIN_DB || sp.phaseDegrees() > ROUNDING_PHASE_DEG) {
+        // only what the feedback path's deviation does not already explain is the weights' doing
+        if (sp.gainDb() > deviation.gainDb() + ROUNDING_GAIN_DB
+                || sp.phaseDegrees() > deviation.phaseDegrees() + ROUNDING_PHASE_DEG) {
             findings.add(new Finding(Topic.REALIZABILITY, Severity.WARN, sp.gainDb(), ROUNDING_GAIN_DB, "dB", POLICY,
                     (feedbackExact ? "The feedback path is exact, but t" : "T") + "arget " + to.id()
                             + " cannot weight the setpoint as the source does (setpoint weights b, c"
@@ -213,6 +221,16 @@ public final class Converter {
             if (name.equals(to.integralName()) && !s.hasIntegral()) {
                 return; // the off value is written as the form says, whatever the range
             }
+            if (name.equals(to.integralName()) && to.integral().isOff(value)) {
+                String unit = FormUnits.of(to, name);
+                findings.add(new Finding(Topic.LIMITS, Severity.FAIL, value, to.integral().offValue(), unit,
+                        "target form " + to.id(), name + " = " + Numbers.significant(value, 6) + " " + unit
+                        + " is what " + to.id() + " reads as integral action off ("
+                        + Numbers.plain(to.integral().offValue()) + " " + unit + (to.integral().offValue() > 0
+                        ? " or more" : "") + "): entered, the loop would lose its integral action and hold an"
+                        + " offset. Retune, or pick a form that can hold this integral time."));
+                return;
+            }
             ParameterLimit limit = to.limit(name);
             if (!limit.accepts(value)) {
                 boolean high = limit.max() != null && value > limit.max();
@@ -225,6 +243,18 @@ public final class Converter {
                                 + " Nothing was clipped: retune or pick another form."));
             }
         });
+    }
+
+    /** True when rounding moved no value beyond its twelfth significant digit (nothing to check then). */
+    private static boolean sameToDigits(WrittenTuning a, WrittenTuning b) {
+        for (var e : a.values().entrySet()) {
+            double x = e.getValue();
+            double y = b.values().get(e.getKey());
+            if (Math.abs(x - y) > 1e-11 * Math.max(Math.abs(x), Math.abs(y))) {
+                return false;
+            }
+        }
+        return true;
     }
 
     private static WrittenTuning enter(FormDefinition to, WrittenTuning written) {
@@ -245,6 +275,11 @@ public final class Converter {
                     "Rounded to " + to.id() + "'s resolution the tuning is no longer valid (" + ex.getMessage()
                             + "); enter it by hand or use a finer resolution."));
             return targetLaw;
+        }
+        if (targetLaw.terms().i() != 0 && enteredLaw.terms().i() == 0) {
+            findings.add(new Finding(Topic.ROUNDING, Severity.FAIL, null, null, "", "target form " + to.id(),
+                    "Rounded to " + to.id() + "'s resolution, " + to.integralName() + " becomes the value that turns"
+                            + " integral action off; enter it by hand at a finer resolution, or retune."));
         }
         LawDeviation d = LawDeviation.between(targetLaw, enteredLaw, band);
         if (d.gainDb() > ROUNDING_GAIN_DB || d.phaseDegrees() > ROUNDING_PHASE_DEG) {

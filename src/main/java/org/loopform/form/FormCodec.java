@@ -17,6 +17,9 @@ import org.loopform.units.UnitException;
  */
 public final class FormCodec {
 
+    /** Gains beyond this (or below its inverse), %/%, are typing errors, not tunings. */
+    static final double MAX_GAIN = 1e9;
+
     private FormCodec() {
     }
 
@@ -76,6 +79,11 @@ public final class FormCodec {
             gain = Math.abs(gain) * action.orElse(Action.REVERSE).sign();
         }
 
+        if (Math.abs(gain) > MAX_GAIN || Math.abs(gain) < 1 / MAX_GAIN) {
+            throw new FormException(form.gainName() + ": " + gainValue + " gives a gain of " + Math.abs(gain)
+                    + " %/%, outside what any controller holds (1e-9 to 1e9); check the value and its units");
+        }
+
         // integral
         double iv = number(form, values, form.integralName(), Kind.INTEGRAL);
         IntegralSpec is = form.integral();
@@ -85,6 +93,13 @@ public final class FormCodec {
                     ? "'s action setting" : "'s sign"));
         }
         boolean integralOff = is.isOff(iv);
+        if (!integralOff && iv == 0 && (is.writing() == IntegralWriting.TIME || !parallel)) {
+            throw new FormException(form.integralName() + ": 0 is not a valid value for form " + form.id()
+                    + ", which writes integral action off as " + org.loopform.units.Numbers.plain(is.offValue()) + " "
+                    + FormUnits.integralUnit(form) + (is.writing() == IntegralWriting.TIME ? " or more" : "")
+                    + "; give a positive value, or " + org.loopform.units.Numbers.plain(is.offValue())
+                    + " to turn integral action off");
+        }
         double integral;
         if (parallel) {
             double kiPerSecond = integralOff ? 0.0 : switch (is.writing()) {

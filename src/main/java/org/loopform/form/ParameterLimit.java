@@ -29,10 +29,15 @@ public record ParameterLimit(Double min, Double max, Double resolution) {
         return 1e-12 * Math.max(1.0, Math.abs(bound));
     }
 
-    /** The value as the target stores it: the nearest multiple of the resolution (half away from zero). */
+    /**
+     * The value as the target stores it: the nearest multiple of the resolution (half away from
+     * zero), or twelve significant digits where the form names no resolution.
+     */
     public double round(double value) {
         if (resolution == null) {
-            return value;
+            // no stored step: twelve significant digits, more than any controller keeps, without binary noise
+            return value == 0 || !Double.isFinite(value) ? value
+                    : new java.math.BigDecimal(value).round(new java.math.MathContext(12)).doubleValue();
         }
         java.math.BigDecimal step = java.math.BigDecimal.valueOf(resolution);
         java.math.BigDecimal steps = java.math.BigDecimal.valueOf(value)
