@@ -20,7 +20,27 @@ public final class AuditSummary {
     public static final int WORST_KEPT = 25;
 
     /** One of the worst loops: tag, verdict, counts of fail and warn findings, and its worst finding's words. */
-    public record Worst(int index, String tag, Verdict verdict, int fails, int warns, String headline) {
+    public record Worst(int index, String tag, Verdict verdict, int fails, int warns, String headline,
+                        int headlineWeight) {
+    }
+
+    /**
+     * How much a topic says about how the loop will behave, for ranking within a severity: what
+     * threatens the loop itself first (stability, scan, derivative), what changes the law less last.
+     */
+    static int weight(Topic t) {
+        return switch (t) {
+            case ROBUSTNESS -> 9;
+            case LIMITS -> 8;
+            case SAMPLING -> 7;
+            case DERIVATIVE -> 6;
+            case DISCRETIZATION -> 5;
+            case WINDUP -> 4;
+            case ROUNDING -> 3;
+            case REALIZABILITY -> 2;
+            case FILTER -> 1;
+            case UNITS -> 0;
+        };
     }
 
     private final Map<Verdict, Integer> byVerdict = new EnumMap<>(Verdict.class);
@@ -33,6 +53,7 @@ public final class AuditSummary {
 
     private static final Comparator<Worst> WORST_FIRST = Comparator.comparing(Worst::verdict).reversed()
             .thenComparing(Comparator.comparingInt(Worst::fails).reversed())
+            .thenComparing(Comparator.comparingInt(Worst::headlineWeight).reversed())
             .thenComparing(Comparator.comparingInt(Worst::warns).reversed())
             .thenComparingInt(Worst::index);
 
@@ -59,13 +80,15 @@ public final class AuditSummary {
             } else if (f.severity() == Severity.WARN) {
                 warns++;
             }
-            if (headline == null || f.severity().compareTo(headline.severity()) > 0) {
+            if (headline == null || f.severity().compareTo(headline.severity()) > 0
+                    || f.severity() == headline.severity() && weight(f.topic()) > weight(headline.topic())) {
                 headline = f;
             }
         }
         if (r.verdict() != Verdict.PASS) {
             worst.add(new Worst(o.row().index(), r.loop().tag(), r.verdict(), fails, warns,
-                    headline == null ? "" : headline.topic().id() + ": " + headline.message()));
+                    headline == null ? "" : headline.topic().id() + ": " + headline.message(),
+                    headline == null ? 0 : weight(headline.topic())));
             worst.sort(WORST_FIRST);
             if (worst.size() > WORST_KEPT) {
                 worst.remove(worst.size() - 1);

@@ -120,6 +120,11 @@ public final class LoopCheck {
                     ? horizon(designMargins, targetMargins, designLaw, p) : horizonSeconds;
             horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
             StepTest test = StepTest.standard(horizon);
+            if (targetMargins.stability() == org.loopform.analysis.ClosedLoopStability.UNDETERMINED
+                    && LoopSimulator.runsAway(ScanController.unlimited(entered, target.filter().placement(),
+                    target.algorithm(), h), sampledTarget, test)) {
+                targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
+            }
             targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
             if (sourceScan != null) {
                 designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
@@ -156,6 +161,14 @@ public final class LoopCheck {
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
                 discretization, mismatchBand.highRadPerSecond()), policy));
+        if (targetRun != null && conversion.enteredLaw().terms().i() == 0) {
+            double simulatedSeconds = targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1);
+            findings.add(new Finding(org.loopform.findings.Topic.ROBUSTNESS, org.loopform.findings.Severity.INFO,
+                    simulatedSeconds, null, "s", "common practice", "The controller has no integral action, so the loop"
+                    + " holds a steady offset after a step: its IAE grows with the simulated time ("
+                    + org.loopform.units.Numbers.significant(simulatedSeconds, 4) + " s here) and compares only between"
+                    + " design and target, not with other loops."));
+        }
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
                 mismatch, curve, refStep, refError, findings);
     }
@@ -174,6 +187,12 @@ public final class LoopCheck {
         }
         double low = Math.min(lawBand.lowRadPerSecond(), top / 100);
         return new org.loopform.law.FrequencyBand(low, top);
+    }
+
+    private static LoopMargins withStability(LoopMargins m, org.loopform.analysis.ClosedLoopStability s) {
+        return new LoopMargins(m.gainMargin(), m.phaseCrossoverRadPerSecond(), m.phaseMarginDegrees(),
+                m.crossoverRadPerSecond(), m.delayMarginSeconds(), m.maximumSensitivity(),
+                m.maximumSensitivityRadPerSecond(), s);
     }
 
     private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
@@ -210,10 +229,20 @@ public final class LoopCheck {
         return 20 * Math.max(ti, p.deadTimeSeconds() + 1.0);
     }
 
-    /** Top of the continuous band: a decade above the law's corners, and no more than 20/L with dead time L. */
+    /**
+     * Top of the continuous band: a decade above the law's corners and above the process's own
+     * time scale (its dead time, and the sum of its pole magnitudes, den[n-1]/den[n] in ascending
+     * powers), and no more than 20/L with dead time L (the phase then turns too fast for the grid).
+     */
     private static double continuousTop(ControlLaw law, ProcessModel p) {
         double high = org.loopform.law.FrequencyBand.implied(law.terms(), 0).highRadPerSecond() * 10;
+        var den = p.rationalPart().denominator();
+        int n = den.degree();
+        if (n >= 1 && den.coefficient(n) != 0) {
+            high = Math.max(high, 10 * Math.abs(den.coefficient(n - 1) / den.coefficient(n)));
+        }
         if (p.deadTimeSeconds() > 0) {
+            high = Math.max(high, 10 / p.deadTimeSeconds());
             high = Math.min(high, 20 / p.deadTimeSeconds());
         }
         return high;

@@ -64,7 +64,9 @@ public final class CheckReport {
             t.row("load step peak", fmt(dl.peakDeviationPercent(), 4), fmt(tl.peakDeviationPercent(), 4), "%");
             t.row("output travel (load)", fmt(dl.outputTravelPercent(), 4), fmt(tl.outputTravelPercent(), 4), "%");
             sb.append(t.render(2));
-            sb.append("  Steps of 10 % (setpoint) and 10 % at the process input (load) about 50 %; ");
+            var sp = r.targetRun().setpoint();
+            sb.append("  Steps of 10 % (setpoint) and 10 % at the process input (load) about 50 %, over ")
+                    .append(fmt(sp.timeSeconds(sp.size() - 1), 4)).append(" s; ");
             if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
                 sb.append("the continuous design loop is simulated on ").append(fmt(r.referenceStepSeconds(), 3))
                         .append(" s and ").append(fmt(2 * r.referenceStepSeconds(), 3))
@@ -74,6 +76,12 @@ public final class CheckReport {
                 sb.append("the design loop runs the source's own algorithm at its scan.");
             }
             sb.append(nl);
+            if (d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE
+                    || g.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
+                sb.append("  UNSTABLE: ").append(d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE
+                        ? "the design loop" : "the target loop").append(" is unstable; its responses are held only by the"
+                        + " output limits and are not figures to compare.").append(nl);
+            }
         } else {
             sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
         }
@@ -94,6 +102,18 @@ public final class CheckReport {
         Json.putNumber(n, "ms", m.maximumSensitivity());
         put(n, "delay_margin_s", m.delayMarginSeconds());
         n.put("stability", m.stability().name().toLowerCase(java.util.Locale.ROOT));
+        if (m.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
+            // the responses of an unstable loop (held only by its output limits) describe nothing to compare
+            ObjectNode s = n.putObject("setpoint");
+            s.putNull("iae");
+            s.putNull("overshoot_pct");
+            s.putNull("settling_s");
+            ObjectNode l = n.putObject("load");
+            l.putNull("iae");
+            l.putNull("peak");
+            l.putNull("output_travel");
+            return n;
+        }
         ObjectNode s = n.putObject("setpoint");
         Json.putNumber(s, "iae", sp.integralAbsoluteErrorPercentSeconds());
         put(s, "overshoot_pct", sp.overshootPercent());
