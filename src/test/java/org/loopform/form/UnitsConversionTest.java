@@ -123,4 +123,22 @@ class UnitsConversionTest {
         assertThatThrownBy(() -> convert("ideal", "parallel-scan", WritingContext.NONE, "kc", "1", "ti", "9", "td",
                 "0")).isInstanceOf(FormException.class).hasMessageContaining("--scan");
     }
+
+    @Test
+    void an_integral_time_the_target_reads_as_off_is_a_failure_not_an_exact_conversion() {
+        // a target that writes "integral off" as 100 min or more (common practice on some systems)
+        FormDefinition offAt100 = new FormDefinition("off-at-100", "test", "", Structure.IDEAL,
+                new GainSpec(GainWriting.GAIN, GainBasis.PERCENT, SignConvention.SIGNED),
+                new IntegralSpec(IntegralWriting.TIME, org.loopform.units.TimeUnit.MINUTES, 100),
+                new DerivativeSpec(DerivativeWriting.TIME, org.loopform.units.TimeUnit.MINUTES),
+                FilterSpec.defaults(), Weight.fixed(1), Weight.fixed(1), Map.of(), DiscreteAlgorithm.defaults());
+        // ti = 7000 s = 116.7 min: at or above 100 min, so the target would run without integral action
+        Conversion c = Converter.convert(form("ideal"), values("kc", "2", "ti", "7000", "td", "0"), offAt100,
+                WritingContext.NONE);
+        assertThat(c.findings()).anySatisfy(f -> {
+            assertThat(f.topic()).isEqualTo(org.loopform.findings.Topic.LIMITS);
+            assertThat(f.severity()).isEqualTo(org.loopform.findings.Severity.FAIL);
+            assertThat(f.message()).contains("integral action off");
+        });
+    }
 }
