@@ -178,8 +178,15 @@ final class HtmlLoopSection {
         row(sb, "load step peak", Html.fig(dl.peakDeviationPercent(), 4), Html.fig(tl.peakDeviationPercent(), 4), "%");
         row(sb, "output travel (load)", Html.fig(dl.outputTravelPercent(), 4), Html.fig(tl.outputTravelPercent(), 4),
                 "%");
+        var sp = r.targetRun().setpoint();
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of 10 % and load step of 10 % at the process"
-                + " input, about 50 %.");
+                + " input, about 50 %, over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
+        boolean designUnstable = d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE;
+        if (designUnstable || g.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
+            sb.append(" <strong>Unstable:</strong> ").append(designUnstable ? "the design loop" : "the target loop")
+                    .append(" is unstable; its responses are held only by the output limits and are not figures to"
+                    + " compare.");
+        }
         if (r.loop().sourceScanSeconds() == null) {
             sb.append(" The continuous design loop is simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))
                     .append(" s and ").append(Html.fig(2 * r.referenceStepSeconds(), 3))
