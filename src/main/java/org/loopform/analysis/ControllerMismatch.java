@@ -2,6 +2,7 @@ package org.loopform.analysis;
 
 import org.loopform.law.ControlLaw;
 import org.loopform.law.LawDeviation;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.scan.PulseLaw;
 
 /**
@@ -19,12 +20,12 @@ public final class ControllerMismatch {
     }
 
     /** The largest deviation over {@code band}, both paths. */
-    public static LawDeviation over(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band) {
+    public static LawDeviation over(ControlLaw design, PulseLaw target, FrequencyBand band) {
         return over(design, target, band, false);
     }
 
     /** The largest deviation over {@code band}, of the feedback path alone or of both paths. */
-    public static LawDeviation over(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band,
+    public static LawDeviation over(ControlLaw design, PulseLaw target, FrequencyBand band,
                                     boolean feedbackOnly) {
         Curve c = curve(design, target, band, GRID_POINTS);
         double g = 0;
@@ -47,7 +48,7 @@ public final class ControllerMismatch {
     }
 
     /** The mismatch curves over the band, for plots: gain ratio (dB) and phase difference (deg) per path. */
-    public static Curve curve(ControlLaw design, PulseLaw target, org.loopform.law.FrequencyBand band, int points) {
+    public static Curve curve(ControlLaw design, PulseLaw target, FrequencyBand band, int points) {
         double[] w = band.grid(points);
         double[] fg = new double[points];
         double[] fp = new double[points];

@@ -1,5 +1,7 @@
 package org.loopform.analysis;
 
+import org.loopform.lti.FrequencyBand;
+
 import java.util.Objects;
 
 /**

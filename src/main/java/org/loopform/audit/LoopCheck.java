@@ -3,7 +3,8 @@ package org.loopform.audit;
 import java.util.ArrayList;
 import java.util.List;
 import org.loopform.analysis.ControllerMismatch;
-import org.loopform.analysis.FrequencyBand;
+import org.loopform.law.TuningBand;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.LoopResponse;
 import org.loopform.analysis.MarginAnalysis;
@@ -84,7 +85,7 @@ public final class LoopCheck {
         PulseLaw targetPulse = PulseLaw.of(entered, target.filter().placement(), target.algorithm(), h);
         ScanFacts facts = ScanFacts.of(entered, target.algorithm().derivative(), h);
 
-        org.loopform.law.FrequencyBand lawBand = org.loopform.law.FrequencyBand.implied(designLaw.terms(), h);
+        FrequencyBand lawBand = TuningBand.implied(designLaw.terms(), h);
 
         List<Finding> findings = new ArrayList<>(conversion.findings());
         LoopMargins designMargins = null;
@@ -153,7 +154,7 @@ public final class LoopCheck {
             ts = StepMetrics.ofSetpointStep(targetRun.setpoint(), test.operatingPvPercent(), sp);
             tl = StepMetrics.ofLoadStep(targetRun.load(), test.operatingPvPercent(), 0.02 * test.loadStepPercent());
         }
-        org.loopform.law.FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h, designMargins);
+        FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h, designMargins);
         // what the loop sees: the design law against the controller as run, feedback path
         LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, mismatchBand, true);
         // what the scan alone changes: the target's own continuous law against its discrete run
@@ -178,7 +179,7 @@ public final class LoopCheck {
      * corner (the highest corner without a filter), cut at the Nyquist frequency and, with a model,
      * at ten times the crossover; above that the loop no longer follows the controller.
      */
-    private static org.loopform.law.FrequencyBand mismatchBand(org.loopform.law.FrequencyBand lawBand, ControlLaw law,
+    private static FrequencyBand mismatchBand(FrequencyBand lawBand, ControlLaw law,
                                                                double h, LoopMargins design) {
         double top = law.terms().tf() > 0 ? 1.0 / law.terms().tf() : lawBand.highRadPerSecond();
         top = Math.min(top, Math.PI / h);
@@ -186,7 +187,7 @@ public final class LoopCheck {
             top = Math.min(top, MISMATCH_CROSSOVERS * design.crossoverRadPerSecond().getAsDouble());
         }
         double low = Math.min(lawBand.lowRadPerSecond(), top / 100);
-        return new org.loopform.law.FrequencyBand(low, top);
+        return new FrequencyBand(low, top);
     }
 
     private static LoopMargins withStability(LoopMargins m, org.loopform.analysis.ClosedLoopStability s) {
@@ -235,7 +236,7 @@ public final class LoopCheck {
      * powers), and no more than 20/L with dead time L (the phase then turns too fast for the grid).
      */
     private static double continuousTop(ControlLaw law, ProcessModel p) {
-        double high = org.loopform.law.FrequencyBand.implied(law.terms(), 0).highRadPerSecond() * 10;
+        double high = TuningBand.implied(law.terms(), 0).highRadPerSecond() * 10;
         var den = p.rationalPart().denominator();
         int n = den.degree();
         if (n >= 1 && den.coefficient(n) != 0) {

@@ -4,7 +4,7 @@ import java.util.List;
 import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
 import org.loopform.law.ControlLaw;
-import org.loopform.law.FrequencyBand;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.law.LawDeviation;
 
 /**

@@ -1,5 +1,6 @@
 package org.loopform.form;
 
+import org.loopform.law.TuningBand;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -8,7 +9,7 @@ import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 import org.loopform.law.ControlLaw;
-import org.loopform.law.FrequencyBand;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.law.LawDeviation;
 import org.loopform.law.PidTerms;
 import org.loopform.units.Numbers;
@@ -64,7 +65,7 @@ public final class Converter {
             throw new FormException("the values are too large or too small to compute with (" + e.getMessage()
                     + "); check their magnitudes and units");
         }
-        FrequencyBand band = FrequencyBand.implied(law.terms(), ctx.scanSeconds() == null ? 0 : ctx.scanSeconds());
+        FrequencyBand band = TuningBand.implied(law.terms(), ctx.scanSeconds() == null ? 0 : ctx.scanSeconds());
 
         PidSetting candidate = StructureLaw.fromTerms(law.terms(), to.structure(), to.filter().placement(),
                 to.c().defaultValue());

@@ -10,7 +10,7 @@ import org.apache.commons.math3.optim.nonlinear.scalar.ObjectiveFunction;
 import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.NelderMeadSimplex;
 import org.apache.commons.math3.optim.nonlinear.scalar.noderiv.SimplexOptimizer;
 import org.loopform.law.ControlLaw;
-import org.loopform.law.FrequencyBand;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.law.PidTerms;
 
 /**

@@ -1,5 +1,7 @@
 package org.loopform.law;
 
+import org.loopform.lti.FrequencyBand;
+
 /**
  * How far one law's frequency response strays from another's over a band: the largest gain
  * difference in dB and the largest phase difference in degrees, over the feedback path, the

@@ -1,5 +1,7 @@
 package org.loopform.analysis;
 
+import org.loopform.lti.FrequencyBand;
+
 import static org.assertj.core.api.Assertions.assertThat;
 
 import net.jqwik.api.Assume;

@@ -1,8 +1,9 @@
-package org.loopform.analysis;
+package org.loopform.lti;
 
 /**
- * A band of angular frequencies {@code [lowRadPerSecond, highRadPerSecond]} over which a loop
- * is analysed. Both ends are finite and positive, and the top lies above the bottom.
+ * A band of angular frequencies {@code [lowRadPerSecond, highRadPerSecond]}, rad/s, over which
+ * laws are compared and loops analysed. Both ends are finite and positive, and the top lies above
+ * the bottom.
  */
 public record FrequencyBand(double lowRadPerSecond, double highRadPerSecond) {
 
@@ -32,5 +33,16 @@ public record FrequencyBand(double lowRadPerSecond, double highRadPerSecond) {
                     "scan time must be finite and > 0 s (got " + scanSeconds + " s)");
         }
         return new FrequencyBand(lowRadPerSecond, Math.PI / scanSeconds);
+    }
+
+    /** {@code count} log-spaced frequencies from low to high inclusive. */
+    public double[] grid(int count) {
+        double[] w = new double[count];
+        double a = Math.log(lowRadPerSecond);
+        double b = Math.log(highRadPerSecond);
+        for (int k = 0; k < count; k++) {
+            w[k] = Math.exp(a + (b - a) * k / (count - 1));
+        }
+        return w;
     }
 }

@@ -1,19 +1,14 @@
 package org.loopform.law;
 
-/**
- * The band of frequencies over which two laws are compared, rad/s. Laws that agree over the band
- * that matters for the loop behave alike in it; outside it the loop does not care much.
- */
-public record FrequencyBand(double lowRadPerSecond, double highRadPerSecond) {
+import org.loopform.lti.FrequencyBand;
+
+/** The band of frequencies a tuning itself implies, where two laws are compared. */
+public final class TuningBand {
 
     /** Decades below the lowest and above the highest corner of the law that the band spans. */
     static final double MARGIN_DECADES = 1.0;
 
-    public FrequencyBand {
-        if (!(lowRadPerSecond > 0) || !(highRadPerSecond > lowRadPerSecond) || !Double.isFinite(highRadPerSecond)) {
-            throw new IllegalArgumentException("frequency band must have 0 < low < high (got "
-                    + lowRadPerSecond + ".." + highRadPerSecond + " rad/s)");
-        }
+    private TuningBand() {
     }
 
     /**
@@ -56,14 +51,4 @@ public record FrequencyBand(double lowRadPerSecond, double highRadPerSecond) {
         return new FrequencyBand(low, high);
     }
 
-    /** {@code count} log-spaced frequencies from low to high inclusive. */
-    public double[] grid(int count) {
-        double[] w = new double[count];
-        double a = Math.log(lowRadPerSecond);
-        double b = Math.log(highRadPerSecond);
-        for (int k = 0; k < count; k++) {
-            w[k] = Math.exp(a + (b - a) * k / (count - 1));
-        }
-        return w;
-    }
 }
