@@ -1,11 +1,7 @@
 package org.loopform.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import java.nio.file.Path;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.CatalogLoader;
@@ -86,18 +82,12 @@ final class FormsCommand implements Callable<Integer> {
         FormatOption format;
 
         @Override
-        public Integer call() throws Exception {
+        public Integer call() {
             var out = spec.commandLine().getOut();
             try {
                 FormDefinition f = FormFileReader.read(file, file.toString());
                 if (format.format == OutputFormat.json) {
-                    Map<String, Object> r = new LinkedHashMap<>();
-                    r.put("file", file.toString());
-                    r.put("valid", true);
-                    r.put("id", f.id());
-                    r.put("problems", List.of());
-                    out.print(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(r));
-                    out.println();
+                    out.print(FormReport.checkJson(file.toString(), f.id(), List.of()));
                 } else {
                     out.println(file + ": form " + f.id() + " is valid (" + f.structure().id() + "; parameters "
                             + String.join(", ", f.parameters().stream().map(p -> p.name()).toList()) + ").");
@@ -106,12 +96,7 @@ final class FormsCommand implements Callable<Integer> {
                 return ExitCodes.OK;
             } catch (InputException e) {
                 if (format.format == OutputFormat.json) {
-                    Map<String, Object> r = new LinkedHashMap<>();
-                    r.put("file", file.toString());
-                    r.put("valid", false);
-                    r.put("problems", e.problems());
-                    out.print(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(r));
-                    out.println();
+                    out.print(FormReport.checkJson(file.toString(), null, e.problems()));
                     out.flush();
                 } else {
                     var err = spec.commandLine().getErr();

@@ -149,4 +149,20 @@ public final class FormReport {
         }
         return Json.write(root);
     }
+
+    /**
+     * The result of checking a form file: {@code {"file", "valid", "id" (when valid), "problems"}}.
+     * {@code id} is null when the file has problems.
+     */
+    public static String checkJson(String file, String id, List<String> problems) {
+        ObjectNode n = Json.object();
+        n.put("file", file);
+        n.put("valid", id != null);
+        if (id != null) {
+            n.put("id", id);
+        }
+        ArrayNode p = n.putArray("problems");
+        problems.forEach(p::add);
+        return Json.write(n);
+    }
 }
