@@ -3,6 +3,7 @@ package org.loopform.audit;
 import java.util.List;
 import org.loopform.analysis.ControllerMismatch;
 import org.loopform.analysis.LoopMargins;
+import org.loopform.analysis.LoopStability;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
@@ -16,7 +17,8 @@ import org.loopform.simulate.ClosedLoopRun;
  * findings and the verdict. The design loop's continuous reference is simulated on steps of
  * {@code referenceStepSeconds} and twice that, then extrapolated ({@code simulate.Richardson});
  * {@code referenceErrorPercent} is the largest PV change the extrapolation made, % of span: an
- * estimate of the finer run's error, and so a bound on the extrapolated one's. Both are 0 when
+ * estimate of the finer run's error, and so a bound on the extrapolated one's. The stabilities
+ * are decided from the closed-loop poles (null without a process model). Both are 0 when
  * the design loop runs the source's own algorithm at its own scan (nothing is approximated).
  */
 public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversion,
@@ -26,7 +28,7 @@ public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversi
                           ClosedLoopRun designRun, ClosedLoopRun targetRun,
                           LawDeviation mismatch, ControllerMismatch.Curve mismatchCurve,
                           double referenceStepSeconds, double referenceErrorPercent,
-                          List<Finding> findings) {
+                          List<Finding> findings, LoopStability designStability, LoopStability targetStability) {
 
     public CheckResult {
         findings = List.copyOf(findings);

@@ -2,7 +2,12 @@ package org.loopform.audit;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.loopform.analysis.ContinuousStability;
 import org.loopform.analysis.ControllerMismatch;
+import org.loopform.analysis.LoopStability;
+import org.loopform.analysis.SampledStability;
+import org.loopform.findings.ActionRule;
+import org.loopform.findings.StabilityRule;
 import org.loopform.law.TuningBand;
 import org.loopform.lti.FrequencyBand;
 import org.loopform.analysis.LoopMargins;
@@ -96,6 +101,8 @@ public final class LoopCheck {
         StepMetrics tl = null;
         ClosedLoopRun designRun = null;
         ClosedLoopRun targetRun = null;
+        LoopStability designStability = null;
+        LoopStability targetStability = null;
         double refStep = 0;
         double refError = 0;
         if (loop.hasProcess()) {
@@ -116,16 +123,20 @@ public final class LoopCheck {
             SampledStateSpace sampledTarget = p.sampled(h);
             targetMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / h), h))
                     .analyze(sampledLoop(targetPulse, sampledTarget));
+            // stability from the closed-loop poles, never from the margins alone
+            targetStability = SampledStability.of(new SampledOpenLoop(targetPulse, sampledTarget));
+            designStability = sourceScan != null
+                    ? SampledStability.of(new SampledOpenLoop(sourcePulseOf(loop, conversion, sourceScan), p.sampled(sourceScan)))
+                    : ContinuousStability.of(designLaw.feedback().times(p.rationalPart()), p.deadTimeSeconds(), low);
+            targetMargins = withStability(targetMargins, legacy(targetStability));
+            designMargins = withStability(designMargins, legacy(designStability));
+            ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
+            findings.addAll(StabilityRule.evaluate(designStability, targetStability));
 
             double horizon = Double.isNaN(horizonSeconds)
                     ? horizon(designMargins, targetMargins, designLaw, p) : horizonSeconds;
             horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
             StepTest test = StepTest.standard(horizon);
-            if (targetMargins.stability() == org.loopform.analysis.ClosedLoopStability.UNDETERMINED
-                    && LoopSimulator.runsAway(ScanController.unlimited(entered, target.filter().placement(),
-                    target.algorithm(), h), sampledTarget, test)) {
-                targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
-            }
             targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
             if (sourceScan != null) {
                 designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
@@ -171,7 +182,7 @@ public final class LoopCheck {
                     + " design and target, not with other loops."));
         }
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
-                mismatch, curve, refStep, refError, findings);
+                mismatch, curve, refStep, refError, findings, designStability, targetStability);
     }
 
     /**
@@ -188,6 +199,17 @@ public final class LoopCheck {
         }
         double low = Math.min(lawBand.lowRadPerSecond(), top / 100);
         return new FrequencyBand(low, top);
+    }
+
+    private static PulseLaw sourcePulseOf(LoopSpec loop, Conversion conversion, double sourceScan) {
+        return PulseLaw.of(conversion.sourceSetting(), loop.sourceForm().filter().placement(),
+                loop.sourceForm().algorithm(), sourceScan);
+    }
+
+    /** The margins' own stability word, kept in step with the decision from the poles (marginal counts as unstable). */
+    private static org.loopform.analysis.ClosedLoopStability legacy(LoopStability s) {
+        return s.isStable() ? org.loopform.analysis.ClosedLoopStability.STABLE
+                : org.loopform.analysis.ClosedLoopStability.UNSTABLE;
     }
 
     private static LoopMargins withStability(LoopMargins m, org.loopform.analysis.ClosedLoopStability s) {

@@ -11,15 +11,15 @@ import org.loopform.findings.Topic;
 
 /**
  * A loop checked across a range of scan times, and the longest scan that keeps the target loop
- * within the policy: no warning or failure about sampling, derivative, discretization or
- * robustness (the topics the scan time moves).
+ * within the policy: no warning or failure about sampling, derivative, discretization,
+ * robustness or stability (the topics the scan time moves).
  */
 public final class ScanSweep {
 
     /** Scan times tried in a range when the target form does not list its own. */
     static final int POINTS = 13;
     static final Set<Topic> SCAN_TOPICS = EnumSet.of(Topic.SAMPLING, Topic.DERIVATIVE, Topic.DISCRETIZATION,
-            Topic.ROBUSTNESS);
+            Topic.ROBUSTNESS, Topic.STABILITY);
 
     /** The checks by scan time, shortest first, and the longest acceptable scan (null when none is). */
     public record Result(List<CheckResult> checks, Double longestAcceptableSeconds) {

@@ -4,7 +4,11 @@ import java.util.Locale;
 
 /** What a finding is about; the JSON name is the lower-case constant name. */
 public enum Topic {
-    REALIZABILITY, FILTER, SAMPLING, DERIVATIVE, DISCRETIZATION, ROUNDING, LIMITS, ROBUSTNESS, WINDUP, UNITS;
+    REALIZABILITY, FILTER, SAMPLING, DERIVATIVE, DISCRETIZATION, ROUNDING, LIMITS, ROBUSTNESS, WINDUP, UNITS,
+    /** The controller's direction (direct or reverse acting) against the process's. */
+    ACTION,
+    /** Closed-loop stability, decided from the closed-loop poles. */
+    STABILITY;
 
     public String id() {
         return name().toLowerCase(Locale.ROOT);

@@ -165,6 +165,80 @@ public final class SampledStateSpace {
         out[1] = hRe * sin + hIm * cos;
     }
 
+    /**
+     * The pulse transfer function anywhere in the plane, for the argument principle: at
+     * {@code z = (1 + radiusOffset) e^(i theta)} writes {@code {Re H, Im H, Re H z^d, Im H z^d}}
+     * into {@code out} (the second pair without the whole-scan delay). The diagonal of
+     * {@code zI - A} is formed as {@code (1 - a) + radiusOffset cos theta - 2 sin^2(theta/2)} so that
+     * points a hair from a pole near z = 1 keep their precision. Allocates nothing with a workspace.
+     */
+    public void responseAtRadius(double radiusOffset, double theta, Workspace workspace, double[] out) {
+        int n = order;
+        if (workspace.order != n) {
+            throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
+                    + n + "; take it from this model's newWorkspace()");
+        }
+        double radius = 1 + radiusOffset;
+        double cos = Math.cos(theta);
+        double sin = Math.sin(theta);
+        double halfSin = Math.sin(theta / 2);
+        // z - 1 = radiusOffset cos - 2 sin^2(theta/2) + i radius sin
+        double zMinusOneRe = radiusOffset * cos - 2 * halfSin * halfSin;
+        double zIm = radius * sin;
+        // z^-1 = e^(-i theta) / radius
+        double invRe = cos / radius;
+        double invIm = -sin / radius;
+        double[] mRe = workspace.matrixRe;
+        double[] mIm = workspace.matrixIm;
+        double[] rRe = workspace.vectorRe;
+        double[] rIm = workspace.vectorIm;
+        java.util.Arrays.fill(mIm, 0.0);
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                mRe[i * n + j] = -stateRowMajor[i * n + j];
+            }
+            mRe[i * n + i] = (1 - stateRowMajor[i * n + i]) + zMinusOneRe;
+            mIm[i * n + i] = zIm;
+            rRe[i] = inputNow[i] + inputPrevious[i] * invRe;
+            rIm[i] = inputPrevious[i] * invIm;
+        }
+        ComplexLinearSolve.solveInPlace(n, mRe, mIm, rRe, rIm);
+        double hRe = feedthrough * invRe;
+        double hIm = feedthrough * invIm;
+        for (int i = 0; i < n; i++) {
+            hRe += output[i] * rRe[i];
+            hIm += output[i] * rIm[i];
+        }
+        // z^-d = radius^-d e^(-i d theta)
+        double scale = Math.exp(-delayScans * Math.log1p(radiusOffset));
+        double delayPhase = -delayScans * theta;
+        double dc = Math.cos(delayPhase) * scale;
+        double ds = Math.sin(delayPhase) * scale;
+        out[0] = hRe * dc - hIm * ds;
+        out[1] = hRe * ds + hIm * dc;
+        out[2] = hRe;
+        out[3] = hIm;
+    }
+
+    /** The eigenvalues of A, the sampled process's poles other than the delay line's at z = 0, as {re, im} pairs. */
+    public double[][] poles() {
+        if (order == 1) {
+            return new double[][] {{stateRowMajor[0], 0.0}};
+        }
+        if (order == 0) {
+            return new double[0][];
+        }
+        org.apache.commons.math3.linear.EigenDecomposition eig = new org.apache.commons.math3.linear.EigenDecomposition(
+                org.apache.commons.math3.linear.MatrixUtils.createRealMatrix(a()));
+        double[] re = eig.getRealEigenvalues();
+        double[] im = eig.getImagEigenvalues();
+        double[][] out = new double[order][];
+        for (int k = 0; k < order; k++) {
+            out[k] = new double[] {re[k], im[k]};
+        }
+        return out;
+    }
+
     /** Frequency response at {@code z = e^(i omega h)} as a new {re, im} pair. */
     public double[] responseAt(double omegaRadPerSecond) {
         double[] out = new double[2];

@@ -44,4 +44,31 @@ public sealed interface ProcessModel
         out[0] = re * cos - im * sin;
         out[1] = re * sin + im * cos;
     }
+
+    /**
+     * How many integrators the rational part has: the exact zero coefficients at the bottom of its
+     * denominator, less those of its numerator.
+     */
+    default int integrators() {
+        return lowestPower(rationalPart().denominator().ascending()) - lowestPower(rationalPart().numerator().ascending());
+    }
+
+    /**
+     * The low-frequency gain {@code lim s^q G0(s)} as s goes to 0, q = {@link #integrators}: the static
+     * gain K (%/%) of a self-regulating process, the slope Kv (%/s per %) of an integrating one. Its
+     * sign is the process's direction: positive when the PV rises with the output.
+     */
+    default double lowFrequencyGain() {
+        double[] num = rationalPart().numerator().ascending();
+        double[] den = rationalPart().denominator().ascending();
+        return num[lowestPower(num)] / den[lowestPower(den)];
+    }
+
+    private static int lowestPower(double[] ascending) {
+        int k = 0;
+        while (k < ascending.length - 1 && ascending[k] == 0) {
+            k++;
+        }
+        return k;
+    }
 }

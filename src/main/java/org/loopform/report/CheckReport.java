@@ -76,11 +76,17 @@ public final class CheckReport {
                 sb.append("the design loop runs the source's own algorithm at its scan.");
             }
             sb.append(nl);
-            if (d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE
-                    || g.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
-                sb.append("  UNSTABLE: ").append(d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE
-                        ? "the design loop" : "the target loop").append(" is unstable; its responses are held only by the"
-                        + " output limits and are not figures to compare.").append(nl);
+            sb.append("  Stability: design ").append(r.designStability().verdict().word()).append(" (")
+                    .append(r.designStability().test().describe()).append("); target ")
+                    .append(r.targetStability().verdict().word()).append(" (")
+                    .append(r.targetStability().test().describe()).append(")").append(nl)
+                    .append("    target: ").append(r.targetStability().explanation()).append(nl);
+            if (!r.designStability().isStable() || !r.targetStability().isStable()) {
+                boolean design = !r.designStability().isStable();
+                sb.append("  ").append((design ? r.designStability() : r.targetStability()).verdict().word()
+                        .toUpperCase(java.util.Locale.ROOT)).append(": ").append(design ? "the design loop"
+                        : "the target loop").append(" is not stable; its responses are held only by the output limits"
+                        + " and are not figures to compare.").append(nl);
             }
         } else {
             sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
@@ -94,15 +100,23 @@ public final class CheckReport {
         Json.putNumber(n, key, v.isPresent() ? v.getAsDouble() : null);
     }
 
-    static ObjectNode figures(LoopMargins m, StepMetrics sp, StepMetrics load) {
+    static ObjectNode figures(LoopMargins m, org.loopform.analysis.LoopStability st, StepMetrics sp,
+                              StepMetrics load) {
         ObjectNode n = Json.object();
         put(n, "phase_margin_deg", m.phaseMarginDegrees());
         put(n, "gain_margin", m.gainMargin());
         put(n, "crossover_rad_s", m.crossoverRadPerSecond());
         Json.putNumber(n, "ms", m.maximumSensitivity());
         put(n, "delay_margin_s", m.delayMarginSeconds());
-        n.put("stability", m.stability().name().toLowerCase(java.util.Locale.ROOT));
-        if (m.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
+        n.put("stability", st.verdict().word());
+        n.put("stability_test", st.test().describe());
+        if (st.unstablePoles() == Integer.MAX_VALUE) {
+            n.put("unstable_poles", "infinite");
+        } else {
+            n.put("unstable_poles", st.unstablePoles());
+        }
+        put(n, "largest_pole_magnitude", st.largestPoleMagnitude());
+        if (!st.isStable()) {
             // the responses of an unstable loop (held only by its output limits) describe nothing to compare
             ObjectNode s = n.putObject("setpoint");
             s.putNull("iae");
@@ -148,8 +162,8 @@ public final class CheckReport {
         dev.put("gain_db", c.deviation().gainDb());
         dev.put("phase_deg", c.deviation().phaseDegrees());
         if (r.hasProcess()) {
-            n.set("design", figures(r.designMargins(), r.designSetpoint(), r.designLoad()));
-            n.set("target", figures(r.targetMargins(), r.targetSetpoint(), r.targetLoad()));
+            n.set("design", figures(r.designMargins(), r.designStability(), r.designSetpoint(), r.designLoad()));
+            n.set("target", figures(r.targetMargins(), r.targetStability(), r.targetSetpoint(), r.targetLoad()));
         } else {
             n.putNull("design");
             n.putNull("target");

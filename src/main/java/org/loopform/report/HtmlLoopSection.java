@@ -181,11 +181,14 @@ final class HtmlLoopSection {
         var sp = r.targetRun().setpoint();
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of 10 % and load step of 10 % at the process"
                 + " input, about 50 %, over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
-        boolean designUnstable = d.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE;
-        if (designUnstable || g.stability() == org.loopform.analysis.ClosedLoopStability.UNSTABLE) {
-            sb.append(" <strong>Unstable:</strong> ").append(designUnstable ? "the design loop" : "the target loop")
-                    .append(" is unstable; its responses are held only by the output limits and are not figures to"
-                    + " compare.");
+        boolean designUnstable = !r.designStability().isStable();
+        sb.append(" Stability from the closed-loop poles: design ").append(r.designStability().verdict().word())
+                .append(", target ").append(r.targetStability().verdict().word()).append(" (")
+                .append(Html.esc(r.targetStability().explanation())).append(")");
+        if (designUnstable || !r.targetStability().isStable()) {
+            sb.append(" <strong>Not stable:</strong> ").append(designUnstable ? "the design loop" : "the target loop")
+                    .append(" is ").append((designUnstable ? r.designStability() : r.targetStability()).verdict().word())
+                    .append("; its responses are held only by the output limits and are not figures to compare.");
         }
         if (r.loop().sourceScanSeconds() == null) {
             sb.append(" The continuous design loop is simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))

@@ -66,6 +66,55 @@ public final class PulseLaw {
                 wiring.kd() * wiring.cd(), out);
     }
 
+    /**
+     * C_y anywhere in the plane, for the argument principle: at {@code z = (1 + radiusOffset) e^(i theta)}
+     * into {@code out} as {re, im}, with {@code J(z) = h (current z + previous) / (z - 1)} and
+     * {@code D(z) = gain (z - 1) / (z - pole)}; z - 1 and z - pole are formed without cancellation
+     * near z = 1. Allocates nothing.
+     */
+    public void feedbackAtRadius(double radiusOffset, double theta, double[] out) {
+        double radius = 1 + radiusOffset;
+        double cos = Math.cos(theta);
+        double sin = Math.sin(theta);
+        double halfSin = Math.sin(theta / 2);
+        double zMinusOneRe = radiusOffset * cos - 2 * halfSin * halfSin;
+        double zIm = radius * sin;
+        double zRe = radius * cos;
+        // J = h (current z + previous) / (z - 1)
+        double jnRe = scanSeconds * (integralRule.current() * zRe + integralRule.previous());
+        double jnIm = scanSeconds * integralRule.current() * zIm;
+        double jd2 = zMinusOneRe * zMinusOneRe + zIm * zIm;
+        double jRe = (jnRe * zMinusOneRe + jnIm * zIm) / jd2;
+        double jIm = (jnIm * zMinusOneRe - jnRe * zIm) / jd2;
+        double ar = wiring.kp() + (wiring.ki() != 0 ? wiring.ki() * jRe : 0.0);
+        double ai = wiring.ki() != 0 ? wiring.ki() * jIm : 0.0;
+        // D = gain (z - 1) / (z - pole), z - pole = (1 - pole) + (z - 1)
+        double pdRe = (1 - filter.pole()) + zMinusOneRe;
+        double pd2 = pdRe * pdRe + zIm * zIm;
+        double dr = filter.gain() * (zMinusOneRe * pdRe + zIm * zIm) / pd2;
+        double di = filter.gain() * (zIm * pdRe - zMinusOneRe * zIm) / pd2;
+        double leadSeconds = wiring.measurementLeadSeconds();
+        double lr = 1 + leadSeconds * dr;
+        double li = leadSeconds * di;
+        out[0] = ar * lr - ai * li + wiring.kd() * dr;
+        out[1] = ar * li + ai * lr + wiring.kd() * di;
+    }
+
+    /**
+     * The poles of C_y other than z = 0, as {re, im} pairs: the integrator's at z = 1 when there is
+     * integral action, the derivative filter's when a derivative or a lead acts on the measurement.
+     */
+    public double[][] feedbackPoles() {
+        java.util.List<double[]> poles = new java.util.ArrayList<>();
+        if (wiring.ki() != 0) {
+            poles.add(new double[] {1.0, 0.0});
+        }
+        if ((wiring.kd() != 0 || wiring.measurementLeadSeconds() != 0) && filter.pole() != 0) {
+            poles.add(new double[] {filter.pole(), 0.0});
+        }
+        return poles.toArray(new double[0][]);
+    }
+
     /** (proportional + ki J)(1 + lead D) + derivative D at theta = omega h. */
     private void evaluate(double omega, double proportional, double leadSeconds, double derivative, double[] out) {
         if (!(omega > 0) || !Double.isFinite(omega)) {

@@ -1,0 +1,138 @@
+package org.loopform.analysis;
+
+import java.util.Arrays;
+
+/**
+ * Follows {@code arg(1 + L)} continuously along a path through the plane of the loop variable (s or
+ * z), the heart of the argument principle: the net change of the argument along a closed contour is
+ * 2 pi times (zeros - poles) of {@code 1 + L} inside it (Astrom and Murray, Feedback Systems, 2008,
+ * ch. 9, the Nyquist criterion; Churchill and Brown, Complex Variables and Applications, the argument
+ * principle - from memory for the chapters).
+ *
+ * <p>The path is sampled at given points and refined by bisection until every step is safe to
+ * add as a principal-value difference: the argument of {@code 1 + L}, the argument and log-magnitude
+ * of the rational part R (L without its delay factor) and the phase of the delay factor each turn by
+ * at most {@link #MAX_TURN} over the step. Where {@code |L|} stays below {@link #SMALL_LOOP} at both
+ * ends and R changes little, {@code 1 + L} stays in a disk about 1 that does not hold the origin, so
+ * the step cannot hide a turn and is taken as it is. Features narrower than any step (a pole close
+ * to the path) must be seeded by the caller: the callers seed windows around every open-loop pole.
+ * A step that cannot be resolved down to {@link #SMALLEST_STEP_RELATIVE} of its position marks the
+ * walk {@link #unresolved()}: a closed-loop pole sits on the path.
+ */
+final class ArgumentWalk {
+
+    /** The most any tracked angle may turn over one accepted step: far from the pi ambiguity. */
+    static final double MAX_TURN = Math.PI / 8;
+    /** Below this |L| at both ends of a step, 1 + L stays in a disk about 1 away from 0. */
+    static final double SMALL_LOOP = 0.5;
+    /** The most |R| may change over one step, as a natural logarithm (a factor of e^0.5 = 1.65). */
+    static final double MAX_LOG_MAGNITUDE_STEP = 0.5;
+    /** Bisection stops at this step relative to the position (about 2^-46): the pole is on the path. */
+    static final double SMALLEST_STEP_RELATIVE = 1e-14;
+    /** A hard cap on evaluations, far above what a resolvable loop needs. */
+    static final int MAX_EVALUATIONS = 2_000_000;
+
+    /** The loop along the path at parameter t. */
+    interface Path {
+        /** Writes {@code {Re L, Im L, Re R, Im R}} at parameter t into {@code out}. */
+        void at(double t, double[] out);
+    }
+
+    private final Path path;
+    private final double delayTurnPerUnit;
+    private boolean unresolved;
+    private int evaluations;
+
+    /**
+     * @param path the loop along the path
+     * @param delayTurnPerUnit how fast the delay factor turns, radians per unit of t (the dead time in
+     *     seconds for {@code t = omega}; the whole delay scans for {@code t = theta})
+     */
+    ArgumentWalk(Path path, double delayTurnPerUnit) {
+        this.path = path;
+        this.delayTurnPerUnit = delayTurnPerUnit;
+    }
+
+    /**
+     * The net change of {@code arg(1 + L)}, radians, from the first to the last of the sorted,
+     * distinct points {@code ts}, each interval refined as needed.
+     */
+    double change(double[] ts) {
+        double[] sorted = ts.clone();
+        Arrays.sort(sorted);
+        double total = 0;
+        double[] left = new double[4];
+        path.at(sorted[0], left);
+        evaluations++;
+        for (int k = 1; k < sorted.length; k++) {
+            if (!(sorted[k] > sorted[k - 1])) {
+                continue;
+            }
+            double[] right = new double[4];
+            path.at(sorted[k], right);
+            evaluations++;
+            total += refine(sorted[k - 1], left, sorted[k], right, 0);
+            left = right;
+        }
+        return total;
+    }
+
+    /** True when some step could not be resolved: 1 + L vanishes on (or within rounding of) the path. */
+    boolean unresolved() {
+        return unresolved;
+    }
+
+    int evaluations() {
+        return evaluations;
+    }
+
+    /** The value of 1 + L at the last point, as its principal argument. */
+    static double principalArgumentOfReturnDifference(double[] v) {
+        return Math.atan2(v[1], 1 + v[0]);
+    }
+
+    private double refine(double a, double[] fa, double b, double[] fb, int depth) {
+        double turn = turn(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
+        if (acceptable(a, fa, b, fb, turn)) {
+            return turn;
+        }
+        double scale = Math.max(Math.abs(a), Math.abs(b));
+        if (b - a <= SMALLEST_STEP_RELATIVE * scale || evaluations >= MAX_EVALUATIONS || depth > 200) {
+            if (Math.abs(turn) > Math.PI / 2) {
+                unresolved = true;
+            }
+            return turn;
+        }
+        double mid = a > 0 && b > 1.5 * a ? Math.sqrt(a) * Math.sqrt(b) : 0.5 * (a + b);
+        if (!(mid > a && mid < b)) {
+            mid = 0.5 * (a + b);
+        }
+        double[] fm = new double[4];
+        path.at(mid, fm);
+        evaluations++;
+        return refine(a, fa, mid, fm, depth + 1) + refine(mid, fm, b, fb, depth + 1);
+    }
+
+    private boolean acceptable(double a, double[] fa, double b, double[] fb, double turn) {
+        double rTurn = turn(fa[2], fa[3], fb[2], fb[3]);
+        double rMagnitudeStep = Math.abs(logMagnitude(fb[2], fb[3]) - logMagnitude(fa[2], fa[3]));
+        boolean rationalSmooth = Math.abs(rTurn) <= 2 * MAX_TURN && rMagnitudeStep <= MAX_LOG_MAGNITUDE_STEP;
+        double la = Math.hypot(fa[0], fa[1]);
+        double lb = Math.hypot(fb[0], fb[1]);
+        if (la < SMALL_LOOP && lb < SMALL_LOOP && rationalSmooth) {
+            return true;
+        }
+        return Math.abs(turn) <= MAX_TURN && Math.abs(rTurn) <= MAX_TURN && rMagnitudeStep <= MAX_LOG_MAGNITUDE_STEP
+                && (b - a) * delayTurnPerUnit <= MAX_TURN;
+    }
+
+    /** The principal angle from (ar + i ai) to (br + i bi), in (-pi, pi]. */
+    static double turn(double ar, double ai, double br, double bi) {
+        // arg(b / a) = atan2(Im(b conj a), Re(b conj a))
+        return Math.atan2(bi * ar - br * ai, br * ar + bi * ai);
+    }
+
+    private static double logMagnitude(double re, double im) {
+        return Math.log(Math.max(Math.hypot(re, im), Double.MIN_NORMAL));
+    }
+}
