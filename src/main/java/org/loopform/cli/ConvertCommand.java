@@ -4,6 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import org.loopform.findings.ActionRule;
 import org.loopform.findings.Severity;
 import org.loopform.form.Conversion;
 import org.loopform.form.Converter;
@@ -12,6 +13,8 @@ import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;
 import org.loopform.form.WritingContext;
 import org.loopform.io.CatalogLoader;
+import org.loopform.io.ProcessReader;
+import org.loopform.process.ProcessModel;
 import org.loopform.report.Cautions;
 import org.loopform.report.ConversionReport;
 import org.loopform.units.Span;
@@ -30,6 +33,8 @@ import picocli.CommandLine.Spec;
                 "  loopform convert --from ideal --to ideal-pb-repeats kc=1.2 ti=60 td=4",
                 "  loopform convert --from series-pb-min --to ideal pb=80 ti=2.5min td=0.4 action=reverse",
                 "  loopform convert --from ideal --to parallel-eu kc=1.5 ti=90s td=0 --pv-range 0..150 --out-range 0..100",
+                "  loopform convert --from ideal --to ideal-pb-repeats kc=2 ti=60 td=0 --process \"{model: fopdt, gain: -1,"
+                        + " time_constant: 60 s, dead_time: 5 s}\"",
                 "", "Values may carry a unit that overrides the form's: ti=90s, td=0.5min, reset=2/min, pb=40%%.",
                 "Exit codes: 0 done; 1 a finding of severity fail (for example a value beyond the target's limits);"
                         + " 2 bad input.", "", Cautions.SHORT})
@@ -62,6 +67,12 @@ final class ConvertCommand implements Callable<Integer> {
             description = "Scan time, e.g. 0.5s or 1min (needed by per-scan forms; also bounds the compared band).")
     Double scanSeconds;
 
+    @Option(names = "--process", paramLabel = "MODEL", description = "The process, when known: an inline mapping"
+            + " such as \"{model: fopdt, gain: -1, time_constant: 60 s, dead_time: 5 s}\" or a YAML file with the same"
+            + " keys as a loop file's process block. The controller's action is then checked against the process's"
+            + " direction.")
+    String process;
+
     @Mixin
     FormatOption format;
 
@@ -71,6 +82,11 @@ final class ConvertCommand implements Callable<Integer> {
         FormDefinition target = CatalogLoader.resolve(to, "--to");
         Map<String, String> raw = parse(values);
         Conversion c = Converter.convert(source, raw, target, new WritingContext(pvRange, outRange, scanSeconds));
+        if (process != null) {
+            ProcessModel p = ProcessReader.fromOption(process, "--process", pvRange, outRange);
+            c = c.withFindings(ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0)
+                    .stream().toList());
+        }
         var out = spec.commandLine().getOut();
         out.print(format.format == OutputFormat.json ? ConversionReport.json(c) : ConversionReport.text(c, raw));
         out.flush();

@@ -21,6 +21,14 @@ public record Conversion(FormDefinition from, FormDefinition to, PidSetting sour
         findings = List.copyOf(findings);
     }
 
+    /** This conversion with {@code more} findings after its own. */
+    public Conversion withFindings(List<Finding> more) {
+        List<Finding> all = new java.util.ArrayList<>(findings);
+        all.addAll(more);
+        return new Conversion(from, to, sourceSetting, sourceLaw, targetSetting, targetLaw, enteredLaw, exact, parameters,
+                entered, deviation, band, all);
+    }
+
     /** The worst finding's severity (INFO when there are none). */
     public Severity worst() {
         return Finding.worst(findings);

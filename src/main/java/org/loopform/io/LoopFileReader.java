@@ -167,18 +167,7 @@ public final class LoopFileReader {
         ProcessModel process = null;
         if (e.containsKey("process")) {
             YamlNode p = e.get("process");
-            List<String> bad = p.unknownKeys(ProcessReader.KEYS);
-            if (!bad.isEmpty()) {
-                throw new InputException(bad);
-            }
-            Map<String, YamlNode> pe = p.entries();
-            Map<String, String> pv2 = new LinkedHashMap<>();
-            pe.forEach((k, v) -> pv2.put(k, v.isSequence() ? String.join(",", v.items().stream()
-                    .map(YamlNode::text).toList()) : v.text()));
-            final Span pvr = pv;
-            final Span outr = out;
-            process = ProcessReader.read(pv2, pvr, outr, key -> (pe.containsKey(key) ? pe.get(key).where()
-                    : p.file() + ":" + p.line() + ": process." + key + ": "));
+            process = ProcessReader.fromNode(p, pv, out);
         }
         return process;
     }

@@ -30,6 +30,48 @@ public final class ProcessReader {
     private ProcessReader() {
     }
 
+    /** Reads the process block {@code p} of a YAML file, each problem reported at its own line. */
+    public static ProcessModel fromNode(YamlNode p, Span pv, Span out) {
+        if (!p.isMapping()) {
+            throw new InputException(p.where() + "must be a mapping such as {model: fopdt, gain: 2, time_constant: 60 s,"
+                    + " dead_time: 10 s}");
+        }
+        List<String> bad = p.unknownKeys(KEYS);
+        if (!bad.isEmpty()) {
+            throw new InputException(bad);
+        }
+        Map<String, YamlNode> pe = p.entries();
+        Map<String, String> values = new java.util.LinkedHashMap<>();
+        pe.forEach((k, v) -> values.put(k, v.isSequence() ? String.join(",", v.items().stream()
+                .map(YamlNode::text).toList()) : v.text()));
+        return read(values, pv, out, key -> (pe.containsKey(key) ? pe.get(key).where()
+                : p.file() + ":" + p.line() + ": process." + key + ": "));
+    }
+
+    /**
+     * Reads a process given on the command line ({@code option} names it in messages): an inline YAML
+     * flow mapping such as {@code {model: fopdt, gain: -1, time_constant: 60 s, dead_time: 5 s}}, or
+     * the path of a YAML file holding such a mapping (or a loop file's {@code process:} block).
+     */
+    public static ProcessModel fromOption(String text, String option, Span pv, Span out) {
+        String trimmed = text.trim();
+        YamlNode root;
+        if (trimmed.startsWith("{")) {
+            root = YamlSource.parse(trimmed, option);
+        } else {
+            java.nio.file.Path path = java.nio.file.Path.of(trimmed);
+            if (!java.nio.file.Files.isRegularFile(path)) {
+                throw new InputException(option + ": '" + trimmed + "' is neither an inline mapping such as {model: fopdt,"
+                        + " gain: 2, time_constant: 60 s, dead_time: 10 s} nor a readable file");
+            }
+            root = YamlSource.read(path, trimmed);
+        }
+        if (root.isMapping() && root.get("process").isPresent()) {
+            root = root.get("process").get();
+        }
+        return fromNode(root, pv, out);
+    }
+
     /** Reads the process from named text values; {@code where} is "file:line: process." for messages. */
     public static ProcessModel read(Map<String, String> v, Span pv, Span out, java.util.function.Function<String,
             String> where) {
