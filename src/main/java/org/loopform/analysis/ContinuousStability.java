@@ -41,7 +41,7 @@ public final class ContinuousStability {
     /** Roots of a delay-free loop within this relative distance of the axis count as on it. */
     static final double ROOT_AXIS_TOLERANCE = 1e-9;
     /** Log-spaced base points per decade along the path. */
-    static final int POINTS_PER_DECADE = 20;
+    static final int POINTS_PER_DECADE = 10;
     private static final double[] WINDOW = {-8, -4, -2, -1, -0.5, -0.25, 0, 0.25, 0.5, 1, 2, 4, 8};
 
     private ContinuousStability() {

@@ -23,11 +23,11 @@ import org.apache.commons.math3.complex.Complex;
 public final class SampledStability {
 
     static final double MARGINAL_TOLERANCE = 1e-8;
-    static final double RELATIVE_LOG_TOLERANCE = 1e-7;
+    static final double RELATIVE_LOG_TOLERANCE = 1e-6;
     /** Beyond e^40 (or below e^-40) the magnitude is reported at the bound. */
     static final double LARGEST_LOG_RADIUS = 40;
-    static final int BASE_POINTS = 32;
-    static final int POINTS_PER_DECADE = 20;
+    static final int BASE_POINTS = 16;
+    static final int POINTS_PER_DECADE = 8;
     private static final double[] WINDOW = {-8, -4, -2, -1, -0.5, -0.25, 0, 0.25, 0.5, 1, 2, 4, 8};
 
     private SampledStability() {
