@@ -226,9 +226,9 @@ public final class LoopCheck {
         }
     }
 
-    /** The design loop runs the law on a fine step, trapezoidal integral and step-invariant filter, with clamping. */
+    /** The design loop runs the law on a fine step, trapezoidal integral and ramp-invariant filter, with clamping. */
     private static DiscreteAlgorithm referenceAlgorithm(DiscreteAlgorithm source) {
-        return new DiscreteAlgorithm(AlgorithmKind.POSITIONAL, Discretization.TRAPEZOIDAL, Discretization.STEP_INVARIANT,
+        return new DiscreteAlgorithm(AlgorithmKind.POSITIONAL, Discretization.TRAPEZOIDAL, Discretization.RAMP_INVARIANT,
                 AntiWindup.CLAMPING, 0.0, source.outputLowPercent(), source.outputHighPercent(), List.of(), 0.0,
                 Double.MAX_VALUE);
     }

@@ -17,9 +17,9 @@ public record DiscreteAlgorithm(AlgorithmKind kind, Discretization integral, Dis
         if (kind == null || integral == null || derivative == null || antiWindup == null) {
             throw new FormException("algorithm needs 'kind', 'integral', 'derivative' and 'anti_windup'");
         }
-        if (integral == Discretization.STEP_INVARIANT) {
+        if (integral == Discretization.STEP_INVARIANT || integral == Discretization.RAMP_INVARIANT) {
             throw new FormException("algorithm: integral discretization must be forward, backward or trapezoidal"
-                    + " (got step_invariant)");
+                    + " (got " + integral.name().toLowerCase(java.util.Locale.ROOT) + ")");
         }
         if (!(trackingTimeSeconds >= 0)) {
             throw new FormException("algorithm: tracking time must be >= 0 s (got " + trackingTimeSeconds + " s)");

@@ -11,6 +11,14 @@ public enum Discretization {
     BACKWARD,
     /** Trapezoidal (Tustin): s = (2 / h) (z - 1) / (z + 1). */
     TRAPEZOIDAL,
-    /** Step (ramp) invariant: the filter pole maps to exp(-h / Tf). */
+    /**
+     * Ramp invariant ("ramp equivalence" in the brief's Table 3): the filter pole maps to exp(-h / Tf) and a
+     * ramp in the input gives the continuous response at every sample. Derivative only.
+     */
+    RAMP_INVARIANT,
+    /**
+     * Step invariant (zero-order-hold equivalent): the filter pole maps to exp(-h / Tf) and a step in the
+     * input gives the continuous response at every sample. Derivative only.
+     */
     STEP_INVARIANT
 }

@@ -348,7 +348,7 @@ public final class FormFileReader {
         Discretization integral = choice(e.get("integral"), Discretization.class, d.integral(),
                 "forward", "backward", "trapezoidal");
         Discretization derivative = choice(e.get("derivative"), Discretization.class, d.derivative(),
-                "forward", "backward", "trapezoidal", "step_invariant");
+                "forward", "backward", "trapezoidal", "ramp_invariant", "step_invariant");
         AntiWindup aw = choice(e.get("anti_windup"), AntiWindup.class, d.antiWindup(),
                 "clamping", "back_calculation", "none");
         double tracking = e.containsKey("tracking_time") ? seconds(e.get("tracking_time")) : 0.0;

@@ -11,11 +11,15 @@ import org.loopform.form.Discretization;
  *   forward (s = (z-1)/h):              pole = 1 - h/Tf,              gain = 1/Tf
  *   backward (s = (z-1)/(z h)):         pole = Tf/(Tf + h),           gain = 1/(Tf + h)
  *   trapezoidal (s = (2/h)(z-1)/(z+1)): pole = (2 Tf - h)/(2 Tf + h), gain = 2/(2 Tf + h)
- *   step (ramp) invariant:              pole = exp(-h/Tf),            gain = (1 - pole)/h
+ *   ramp invariant:                     pole = exp(-h/Tf),            gain = (1 - pole)/h
+ *   step invariant:                     pole = exp(-h/Tf),            gain = 1/Tf
  * </pre>
  *
- * The last row is ramp invariance: a ramp in x gives the continuous response at every sample
- * (Astrom and Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory).
+ * Ramp invariance (the brief's "ramp equivalence") gives the continuous response to a ramp in x at
+ * every sample; step invariance (the zero-order-hold equivalent, {@code (1 - z^-1) Z{step response}},
+ * the step response of {@code s/(1 + Tf s)} being {@code e^(-t/Tf)/Tf}) gives the continuous
+ * response to a step (Astrom and Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from
+ * memory).
  * Without a filter (Tf = 0) every method runs the backward difference (x(k) - x(k-1))/h, the
  * only causal unfiltered difference: forward would need the next sample, and the trapezoidal
  * rule would put the pole on z = -1, an undamped oscillation.
@@ -42,10 +46,11 @@ record DerivativeFilter(double pole, double gain) {
             case FORWARD -> new DerivativeFilter(1 - h / tf, 1 / tf);
             case BACKWARD -> new DerivativeFilter(tf / (tf + h), 1 / (tf + h));
             case TRAPEZOIDAL -> new DerivativeFilter((2 * tf - h) / (2 * tf + h), 2 / (2 * tf + h));
-            case STEP_INVARIANT -> {
+            case RAMP_INVARIANT -> {
                 double pole = Math.exp(-h / tf);
                 yield new DerivativeFilter(pole, -Math.expm1(-h / tf) / h);
             }
+            case STEP_INVARIANT -> new DerivativeFilter(Math.exp(-h / tf), 1 / tf);
         };
     }
 

@@ -16,8 +16,8 @@ record IntegralRule(double current, double previous) {
             case FORWARD -> new IntegralRule(0.0, 1.0);
             case BACKWARD -> new IntegralRule(1.0, 0.0);
             case TRAPEZOIDAL -> new IntegralRule(0.5, 0.5);
-            case STEP_INVARIANT -> throw new IllegalArgumentException(
-                    "integral discretization must be forward, backward or trapezoidal (got step_invariant)");
+            case STEP_INVARIANT, RAMP_INVARIANT -> throw new IllegalArgumentException(
+                    "integral discretization must be forward, backward or trapezoidal (got " + method + ")");
         };
     }
 

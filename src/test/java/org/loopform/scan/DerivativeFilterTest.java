@@ -46,7 +46,7 @@ class DerivativeFilterTest {
         // Table 3: forward 1 - h/Tf, backward Tf/(Tf + h), Tustin (2Tf - h)/(2Tf + h), step (ramp)
         // invariant exp(-h/Tf); values for Tf = 1 s, h = 0.5 s as derived in REFERENCES.md section 4
         @ParameterizedTest(name = "{0}: {1}")
-        @CsvSource({"FORWARD, 0.5", "BACKWARD, 0.666667", "TRAPEZOIDAL, 0.6", "STEP_INVARIANT, 0.606531"})
+        @CsvSource({"FORWARD, 0.5", "BACKWARD, 0.666667", "TRAPEZOIDAL, 0.6", "RAMP_INVARIANT, 0.606531", "STEP_INVARIANT, 0.606531"})
         void scan_facts_give_the_published_pole(Discretization method, double pole) {
             ScanFacts facts = new ScanFacts(0.5, 1.0, 4.0, method);
             assertThat(facts.filterPole()).isCloseTo(pole, within(PUBLISHED_TOL));
@@ -54,7 +54,7 @@ class DerivativeFilterTest {
 
         // same table and values: after the kick, the derivative term decays by the pole each scan
         @ParameterizedTest(name = "{0}: {1}")
-        @CsvSource({"FORWARD, 0.5", "BACKWARD, 0.666667", "TRAPEZOIDAL, 0.6", "STEP_INVARIANT, 0.606531"})
+        @CsvSource({"FORWARD, 0.5", "BACKWARD, 0.666667", "TRAPEZOIDAL, 0.6", "RAMP_INVARIANT, 0.606531", "STEP_INVARIANT, 0.606531"})
         void the_running_controller_decays_its_derivative_by_the_published_pole(Discretization method, double pole) {
             double[] d = derivativeAfterPvStep(method, 2.0, 4.0, 1.0, 0.5, 8);
             for (int i = 1; i < d.length; i++) {
@@ -64,9 +64,11 @@ class DerivativeFilterTest {
 
         // Table 3 of the same brief, the derivative's input gain b_d (from memory): forward K N,
         // backward K Td N/(Td + N h), Tustin 2 K N Td/(2 Td + N h), ramp K Td (1 - exp(-N h/Td))/h;
-        // with N = Td/Tf = 4, K = 2, Td = 4 s, h = 0.5 s: 8, 16/3, 6.4, 6.295509 (derived by hand)
+        // with N = Td/Tf = 4, K = 2, Td = 4 s, h = 0.5 s: 8, 16/3, 6.4, 6.295509 (derived by hand); step
+        // invariance keeps the continuous kick K Td / Tf = K N = 8 of a PV step (derived by hand)
         @ParameterizedTest(name = "{0}: kick {1}")
-        @CsvSource({"FORWARD, 8", "BACKWARD, 5.333333", "TRAPEZOIDAL, 6.4", "STEP_INVARIANT, 6.295509"})
+        @CsvSource({"FORWARD, 8", "BACKWARD, 5.333333", "TRAPEZOIDAL, 6.4", "RAMP_INVARIANT, 6.295509",
+            "STEP_INVARIANT, 8"})
         void a_unit_pv_step_kicks_the_output_by_the_published_derivative_gain(Discretization method, double kick) {
             double[] d = derivativeAfterPvStep(method, 2.0, 4.0, 1.0, 0.5, 1);
             assertThat(-d[0]).isCloseTo(kick, within(PUBLISHED_TOL));
@@ -127,7 +129,7 @@ class DerivativeFilterTest {
         // with Tf = 0 the derivative is the backward difference K Td (y(k) - y(k-1))/h (IFAC brief
         // 2002, Table 3, backward column with N -> infinity): a one-scan kick of K Td/h, then nothing
         @ParameterizedTest
-        @CsvSource({"FORWARD", "BACKWARD", "TRAPEZOIDAL", "STEP_INVARIANT"})
+        @CsvSource({"FORWARD", "BACKWARD", "TRAPEZOIDAL", "RAMP_INVARIANT", "STEP_INVARIANT"})
         void every_method_runs_the_backward_difference(Discretization method) {
             double[] d = derivativeAfterPvStep(method, 2.0, 3.0, 0.0, 0.5, 4);
             assertThat(d).containsExactly(new double[] {-12.0, 0.0, 0.0, 0.0}, within(TOL));
@@ -139,7 +141,26 @@ class DerivativeFilterTest {
     // transform, common practice); the ramp-invariant discretization keeps it at every sample
     // (Astrom & Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory)
     @Test
-    void step_invariant_derivative_follows_a_pv_ramp_exactly_at_the_samples() {
+    void ramp_invariant_derivative_follows_a_pv_ramp_exactly_at_the_samples() {
+        double k = 1.5;
+        double td = 2.0;
+        double tf = 0.7;
+        double h = 0.3;
+        PidSetting pd = Setups.ideal(k, Double.POSITIVE_INFINITY, td, tf, 1.0, 0.0);
+        ScanController c = ScanController.unlimited(pd, FilterPlacement.DERIVATIVE,
+                Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD, Discretization.RAMP_INVARIANT), h);
+        for (int i = 0; i <= 30; i++) {
+            double y = i * h;
+            double derivative = c.update(0.0, y) + k * y;
+            assertThat(derivative).as("t = %s s", i * h).isCloseTo(-k * td * (1 - Math.exp(-i * h / tf)), within(TOL));
+        }
+    }
+
+    // A unit step y = 1 from t = 0 through K Td s/(1 + Tf s) gives K (Td/Tf) exp(-t/Tf) (inverse Laplace
+    // transform, common practice); the step-invariant (zero-order-hold equivalent) discretization keeps it
+    // at every sample (Astrom & Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory)
+    @Test
+    void step_invariant_derivative_follows_a_pv_step_exactly_at_the_samples() {
         double k = 1.5;
         double td = 2.0;
         double tf = 0.7;
@@ -147,10 +168,10 @@ class DerivativeFilterTest {
         PidSetting pd = Setups.ideal(k, Double.POSITIVE_INFINITY, td, tf, 1.0, 0.0);
         ScanController c = ScanController.unlimited(pd, FilterPlacement.DERIVATIVE,
                 Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD, Discretization.STEP_INVARIANT), h);
+        c.update(0.0, 0.0);
         for (int i = 0; i <= 30; i++) {
-            double y = i * h;
-            double derivative = c.update(0.0, y) + k * y;
-            assertThat(derivative).as("t = %s s", i * h).isCloseTo(-k * td * (1 - Math.exp(-i * h / tf)), within(TOL));
+            double derivative = c.update(0.0, 1.0) + k;
+            assertThat(derivative).as("t = %s s", i * h).isCloseTo(-k * td / tf * Math.exp(-i * h / tf), within(TOL));
         }
     }
 }

@@ -78,7 +78,7 @@ class ScanControllerTest {
     void update_allocates_nothing() {
         ScanController c = ScanController.limited(Setups.series(1.3, 5.0, 1.1, 0.25, 0.8, 1.0),
                 FilterPlacement.DERIVATIVE, Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.TRAPEZOIDAL,
-                        Discretization.STEP_INVARIANT, AntiWindup.BACK_CALCULATION, 0.0), 0.1);
+                        Discretization.RAMP_INVARIANT, AntiWindup.BACK_CALCULATION, 0.0), 0.1);
         com.sun.management.ThreadMXBean threads = (com.sun.management.ThreadMXBean) ManagementFactory.getThreadMXBean();
         double[] out = new double[2];
         double sink = 0;
@@ -105,7 +105,7 @@ class ScanControllerTest {
     void a_derivative_kick_dies_away_to_exactly_the_proportional_output() {
         ScanController c = ScanController.unlimited(Setups.ideal(1.0, Double.POSITIVE_INFINITY, 2.0, 0.4, 1, 1),
                 FilterPlacement.DERIVATIVE, Setups.algorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD,
-                        Discretization.STEP_INVARIANT), 0.1);
+                        Discretization.RAMP_INVARIANT), 0.1);
         c.reset(50, 50, 50);
         double first = c.update(50, 51);
         assertThat(first).isCloseTo(50 - 1 - 2.0 * (1 - Math.exp(-0.25)) / 0.1, within(TOL));
