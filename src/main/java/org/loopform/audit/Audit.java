@@ -11,12 +11,14 @@ import java.util.function.BiConsumer;
 import java.util.function.Consumer;
 import java.util.function.Function;
 import org.loopform.findings.CheckPolicy;
+import org.loopform.units.BadInput;
 
 /**
  * Checks many loops: reads rows as they come, checks them in parallel on all cores, and hands
  * the outcomes to a sink in input order. At most {@link #WINDOW_PER_THREAD} loops per thread are
- * in flight, so memory stays bounded however long the list is. A bad row becomes an outcome
- * with its problems; it does not stop the others.
+ * in flight, so memory stays bounded however long the list is. A bad row (one that raises
+ * {@link BadInput}) becomes an outcome with its problems; it does not stop the others. Any other
+ * exception is a bug of loopform and ends the audit.
  */
 public final class Audit {
 
@@ -77,10 +79,10 @@ public final class Audit {
         }
         try {
             return new LoopOutcome(row, LoopCheck.run(row.loop(), policy), List.of());
-        } catch (IllegalArgumentException e) {
-            // input problems (FormException, UnitException and the readers' errors are all of this kind)
-            String m = e.getMessage();
-            return new LoopOutcome(row, null, List.of(m.startsWith(row.where()) ? m : row.where() + ": " + m));
+        } catch (BadInput e) {
+            // only bad input becomes a bad row; anything else is a bug and stops the audit (exit 3)
+            return new LoopOutcome(row, null, e.problems().stream()
+                    .map(m -> m.startsWith(row.where()) ? m : row.where() + ": " + m).toList());
         }
     }
 
