@@ -8,6 +8,7 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.function.BiConsumer;
+import java.util.function.BiFunction;
 import java.util.function.Consumer;
 import java.util.function.Function;
 import org.loopform.findings.CheckPolicy;
@@ -74,11 +75,16 @@ public final class Audit {
 
     /** One row's outcome; input problems become the outcome's problems. */
     public static LoopOutcome check(LoopRow row, CheckPolicy policy) {
+        return check(row, policy, LoopCheck::run);
+    }
+
+    /** As {@link #check(LoopRow, CheckPolicy)} with the check given (tests give one that fails). */
+    static LoopOutcome check(LoopRow row, CheckPolicy policy, BiFunction<LoopSpec, CheckPolicy, CheckResult> checker) {
         if (!row.ok()) {
             return new LoopOutcome(row, null, row.problems());
         }
         try {
-            return new LoopOutcome(row, LoopCheck.run(row.loop(), policy), List.of());
+            return new LoopOutcome(row, checker.apply(row.loop(), policy), List.of());
         } catch (BadInput e) {
             // only bad input becomes a bad row; anything else is a bug and stops the audit (exit 3)
             return new LoopOutcome(row, null, e.problems().stream()
