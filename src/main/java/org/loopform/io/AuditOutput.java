@@ -15,8 +15,6 @@ import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.List;
-import java.util.Optional;
-import java.util.stream.Stream;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.loopform.audit.AuditSummary;
@@ -51,6 +49,8 @@ public final class AuditOutput implements AutoCloseable {
     private final boolean force;
     private final boolean html;
     private final List<Path> inputs;
+    /** The highest folder above the target that this run created (null: none), removed again on failure. */
+    private final Path createdFolders;
     private final Thread cleanup;
     private final CSVPrinter loopsCsv;
     private final CSVPrinter entrySheet;
@@ -60,8 +60,10 @@ public final class AuditOutput implements AutoCloseable {
     private boolean finished;
     private boolean abandoned;
 
-    private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs) throws IOException {
+    private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders)
+            throws IOException {
         this.shown = shown;
+        this.createdFolders = createdFolders;
         this.target = target;
         this.force = force;
         this.html = html;
@@ -97,14 +99,18 @@ public final class AuditOutput implements AutoCloseable {
      * empty and is not loopform's own; replaces loopform's own only with {@code force}.
      */
     public static AuditOutput create(Path out, boolean force, boolean html, Collection<Path> inputs) {
-        Path target = real(out);
+        Path target = OutputFolder.real(out);
         List<Path> realInputs = new ArrayList<>();
         for (Path in : inputs) {
             if (in != null) {
-                realInputs.add(real(in));
+                realInputs.add(OutputFolder.real(in));
             }
         }
-        checkReplaceable(out, target, force, realInputs);
+        OutputFolder.checkReplaceable(out, target, force, realInputs);
+        Path created = null;
+        for (Path p = target.getParent(); p != null && !Files.exists(p); p = p.getParent()) {
+            created = p;
+        }
         try {
             Files.createDirectories(target.getParent());
         } catch (IOException e) {
@@ -113,85 +119,11 @@ public final class AuditOutput implements AutoCloseable {
                     + " writable, or choose another --out");
         }
         try {
-            return new AuditOutput(out, target, force, html, List.copyOf(realInputs));
+            return new AuditOutput(out, target, force, html, List.copyOf(realInputs), created);
         } catch (IOException e) {
+            removeCreated(target.getParent(), created);
             throw new InputException(out + ": cannot be written (" + OutputFolder.reason(e) + "); check the folder"
                     + " above it is writable and has free space, or choose another --out");
-        }
-    }
-
-    /**
-     * {@code p} with every link resolved: its real path when it exists, else its nearest existing
-     * ancestor's real path with the rest appended. A link to nothing is an error.
-     */
-    private static Path real(Path p) {
-        Path abs = p.toAbsolutePath().normalize();
-        if (Files.isSymbolicLink(abs) && !Files.exists(abs)) {
-            String to;
-            try {
-                to = Files.readSymbolicLink(abs).toString();
-            } catch (IOException e) {
-                to = "a path that cannot be read";
-            }
-            throw new InputException(p + ": is a link to " + to + ", which does not exist; create what it points to,"
-                    + " or give another path");
-        }
-        Path existing = abs;
-        Path rest = abs.getFileSystem().getPath("");
-        while (existing != null && !Files.exists(existing)) {
-            rest = existing.getFileName().resolve(rest);
-            existing = existing.getParent();
-        }
-        if (existing == null) {
-            return abs;
-        }
-        try {
-            return existing.toRealPath().resolve(rest).normalize();
-        } catch (IOException e) {
-            return abs;
-        }
-    }
-
-    private static void checkReplaceable(Path out, Path target, boolean force, List<Path> inputs) {
-        for (Path in : inputs) {
-            if (in.startsWith(target)) {
-                throw new InputException(out + ": the output folder holds an input (" + in + "); choose another --out");
-            }
-        }
-        if (Files.exists(target) && !Files.isDirectory(target)) {
-            throw new InputException(out + ": is a file; --out needs a folder (choose another --out)");
-        }
-        if (!Files.isDirectory(target)) {
-            return;
-        }
-        try {
-            if (isEmpty(target)) {
-                return;
-            }
-            Optional<List<String>> foreign = OutputFolder.foreignEntries(target);
-            if (foreign.isEmpty()) {
-                throw new InputException(out + ": the folder exists and loopform did not write it (it has no "
-                        + OutputFolder.MARKER + " marker); loopform never replaces a folder it did not write: choose"
-                        + " another --out, or empty the folder yourself");
-            }
-            if (!foreign.get().isEmpty()) {
-                throw new InputException(out + ": the folder holds files loopform did not write or that were changed"
-                        + " since (" + String.join(", ", foreign.get().subList(0, Math.min(5, foreign.get().size())))
-                        + (foreign.get().size() > 5 ? ", ..." : "") + "); move them out, or choose another --out");
-            }
-            if (!force) {
-                throw new InputException(out + ": the folder holds an earlier loopform output; add --force to replace"
-                        + " it, or choose another --out");
-            }
-        } catch (IOException e) {
-            throw new InputException(out + ": cannot be read (" + OutputFolder.reason(e) + "); check its permissions,"
-                    + " or choose another --out");
-        }
-    }
-
-    private static boolean isEmpty(Path dir) throws IOException {
-        try (Stream<Path> s = Files.list(dir)) {
-            return s.findAny().isEmpty();
         }
     }
 
@@ -293,9 +225,9 @@ public final class AuditOutput implements AutoCloseable {
             throw new InputException(shown + ": not written; loopform was stopped while writing it");
         }
         // the folder may have changed while the audit ran: check it again just before replacing it
-        checkReplaceable(shown, target, force, inputs);
+        OutputFolder.checkReplaceable(shown, target, force, inputs);
         Path old = null;
-        if (Files.isDirectory(target) && isEmpty(target)) {
+        if (Files.isDirectory(target) && OutputFolder.isEmpty(target)) {
             Files.delete(target); // an empty folder holds nothing to lose (and fails here if that changed)
         } else if (Files.exists(target)) {
             old = target.resolveSibling(OutputFolder.scratchName(target, "old"));
@@ -338,6 +270,21 @@ public final class AuditOutput implements AutoCloseable {
                 OutputFolder.removeFiles(temp);
             } catch (IOException again) {
                 // nothing more to do; the next run beside it sweeps it
+            }
+        }
+        removeCreated(target.getParent(), createdFolders);
+    }
+
+    /** Removes the empty folders from {@code dir} up to {@code top} that a failed run created. */
+    private static void removeCreated(Path dir, Path top) {
+        if (top == null) {
+            return;
+        }
+        for (Path p = dir; p != null && p.startsWith(top); p = p.getParent()) {
+            try {
+                Files.deleteIfExists(p); // only an empty folder can be deleted: anything put there stays
+            } catch (IOException e) {
+                return;
             }
         }
     }

@@ -17,6 +17,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import java.util.stream.Stream;
 
 /**
  * What makes a folder loopform's own: the marker file {@value #MARKER} that loopform writes into
@@ -25,7 +26,8 @@ import java.util.regex.Pattern;
  * else in it is the user's, and loopform then refuses rather than delete it.
  *
  * <p>Temporary folders ({@code .NAME.loopform-tmp-N}) hold the marker too, with the id of the
- * process writing them, so that one left by a killed run can be recognised and swept.
+ * process writing them, so that one left by a killed run can be recognised and swept. Paths are
+ * compared after following links ({@link #real}), so that no link leads a replacement to an input.
  */
 final class OutputFolder {
 
@@ -182,6 +184,81 @@ final class OutputFolder {
         }
         // a finished folder renamed aside to be replaced, whose run died before deleting it
         return scratch.getFileName().toString().contains(".loopform-old-");
+    }
+
+    /**
+     * {@code p} with every link resolved: its real path when it exists, else its nearest existing
+     * ancestor's real path with the rest appended. A link to nothing is an error.
+     */
+    static Path real(Path p) {
+        Path abs = p.toAbsolutePath().normalize();
+        if (Files.isSymbolicLink(abs) && !Files.exists(abs)) {
+            String to;
+            try {
+                to = Files.readSymbolicLink(abs).toString();
+            } catch (IOException e) {
+                to = "a path that cannot be read";
+            }
+            throw new InputException(p + ": is a link to " + to + ", which does not exist; create what it points to,"
+                    + " or give another path");
+        }
+        Path existing = abs;
+        Path rest = abs.getFileSystem().getPath("");
+        while (existing != null && !Files.exists(existing)) {
+            rest = existing.getFileName().resolve(rest);
+            existing = existing.getParent();
+        }
+        if (existing == null) {
+            return abs;
+        }
+        try {
+            return existing.toRealPath().resolve(rest).normalize();
+        } catch (IOException e) {
+            return abs;
+        }
+    }
+
+    static void checkReplaceable(Path out, Path target, boolean force, List<Path> inputs) {
+        for (Path in : inputs) {
+            if (in.startsWith(target)) {
+                throw new InputException(out + ": the output folder holds an input (" + in + "); choose another --out");
+            }
+        }
+        if (Files.exists(target) && !Files.isDirectory(target)) {
+            throw new InputException(out + ": is a file; --out needs a folder (choose another --out)");
+        }
+        if (!Files.isDirectory(target)) {
+            return;
+        }
+        try {
+            if (isEmpty(target)) {
+                return;
+            }
+            Optional<List<String>> foreign = foreignEntries(target);
+            if (foreign.isEmpty()) {
+                throw new InputException(out + ": the folder exists and loopform did not write it (it has no "
+                        + MARKER + " marker); loopform never replaces a folder it did not write: choose"
+                        + " another --out, or empty the folder yourself");
+            }
+            if (!foreign.get().isEmpty()) {
+                throw new InputException(out + ": the folder holds files loopform did not write or that were changed"
+                        + " since (" + String.join(", ", foreign.get().subList(0, Math.min(5, foreign.get().size())))
+                        + (foreign.get().size() > 5 ? ", ..." : "") + "); move them out, or choose another --out");
+            }
+            if (!force) {
+                throw new InputException(out + ": the folder holds an earlier loopform output; add --force to replace"
+                        + " it, or choose another --out");
+            }
+        } catch (IOException e) {
+            throw new InputException(out + ": cannot be read (" + reason(e) + "); check its permissions,"
+                    + " or choose another --out");
+        }
+    }
+
+    static boolean isEmpty(Path dir) throws IOException {
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.findAny().isEmpty();
+        }
     }
 
     /** The reason an I/O operation failed, without the (temporary) path it failed on. */

@@ -117,7 +117,8 @@ public final class ProcessReader {
     private static double positive(Map<String, String> v, String key, double x, String unit,
                                    java.util.function.Function<String, String> where) {
         if (!(x > 0) || !Double.isFinite(x)) {
-            throw new InputException(where.apply(key) + "must be finite and > 0" + unit + " (got '" + v.get(key) + "')");
+            throw new InputException(where.apply(key) + "must be finite and > 0" + unit + " (got '" + v.get(key)
+                    + "')");
         }
         return x;
     }

@@ -49,7 +49,8 @@ class InternalErrorTest {
 
         assertThat(r.exitCode()).isEqualTo(3);
         assertThat(r.err().lines()).singleElement().asString()
-                .startsWith("loopform hit an internal error (java.lang.IllegalStateException: scan state lost second line)")
+                .startsWith("loopform hit an internal error"
+                        + " (java.lang.IllegalStateException: scan state lost second line)")
                 .contains("please report it with the command and input").contains("--debug");
         assertThat(r.err()).doesNotContain("\tat ");
     }

@@ -235,6 +235,18 @@ class OutputSafetyTest {
         }
 
         @Test
+        void a_run_that_fails_midway_leaves_no_temporary_and_no_folder_it_created() throws IOException {
+            Path list = Files.writeString(dir.resolve("broken.csv"), LOOPS + "\"TIC-9,ideal,1,10,0\n");
+            Path out = dir.resolve("new").resolve("deeper").resolve("out");
+
+            CliRun r = CliRun.of("audit", list.toString(), "--to", "ideal", "--scan", "1s", "--out", out.toString());
+
+            assertThat(r.exitCode()).as(r.err()).isEqualTo(2);
+            assertThat(dir.resolve("new")).doesNotExist();
+            assertThat(scratchFolders()).isEmpty();
+        }
+
+        @Test
         void an_unwritable_folder_is_bad_input_named_by_the_users_path() throws Exception {
             Path locked = Files.createDirectories(dir.resolve("locked"));
             // tests may run as root, whom permissions do not stop: then the immutable attribute is used
