@@ -8,15 +8,18 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.function.BiConsumer;
+import java.util.function.BiFunction;
 import java.util.function.Consumer;
 import java.util.function.Function;
 import org.loopform.findings.CheckPolicy;
+import org.loopform.units.BadInput;
 
 /**
  * Checks many loops: reads rows as they come, checks them in parallel on all cores, and hands
  * the outcomes to a sink in input order. At most {@link #WINDOW_PER_THREAD} loops per thread are
- * in flight, so memory stays bounded however long the list is. A bad row becomes an outcome
- * with its problems; it does not stop the others.
+ * in flight, so memory stays bounded however long the list is. A bad row (one that raises
+ * {@link BadInput}) becomes an outcome with its problems; it does not stop the others. Any other
+ * exception is a bug of loopform and ends the audit.
  */
 public final class Audit {
 
@@ -72,15 +75,20 @@ public final class Audit {
 
     /** One row's outcome; input problems become the outcome's problems. */
     public static LoopOutcome check(LoopRow row, CheckPolicy policy) {
+        return check(row, policy, LoopCheck::run);
+    }
+
+    /** As {@link #check(LoopRow, CheckPolicy)} with the check given (tests give one that fails). */
+    static LoopOutcome check(LoopRow row, CheckPolicy policy, BiFunction<LoopSpec, CheckPolicy, CheckResult> checker) {
         if (!row.ok()) {
             return new LoopOutcome(row, null, row.problems());
         }
         try {
-            return new LoopOutcome(row, LoopCheck.run(row.loop(), policy), List.of());
-        } catch (IllegalArgumentException e) {
-            // input problems (FormException, UnitException and the readers' errors are all of this kind)
-            String m = e.getMessage();
-            return new LoopOutcome(row, null, List.of(m.startsWith(row.where()) ? m : row.where() + ": " + m));
+            return new LoopOutcome(row, checker.apply(row.loop(), policy), List.of());
+        } catch (BadInput e) {
+            // only bad input becomes a bad row; anything else is a bug and stops the audit (exit 3)
+            return new LoopOutcome(row, null, e.problems().stream()
+                    .map(m -> m.startsWith(row.where()) ? m : row.where() + ": " + m).toList());
         }
     }
 

@@ -52,7 +52,8 @@ final class AuditCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", description = "Write the outputs into DIR (created whole at the end).")
     Path out;
 
-    @Option(names = "--force", description = "Replace DIR if it exists and is not empty.")
+    @Option(names = "--force", description = "Replace DIR if it holds an earlier loopform output (loopform never"
+            + " replaces a folder it did not write: one without its .loopform-output marker, or with other files).")
     boolean force;
 
     @Option(names = "--no-report", negatable = false, description = "Skip report.html (CSV and JSON only).")

@@ -84,7 +84,8 @@ final class CheckCommand implements Callable<Integer> {
         }
         CheckResult r = LoopCheck.run(loop, policy);
         if (plot != null) {
-            AtomicFiles.write(plot, LoopPlots.svg(r), List.of(loopFile, policyFile == null ? loopFile : policyFile));
+            AtomicFiles.write(plot, AtomicFiles.markedSvg(LoopPlots.svg(r)),
+                    List.of(loopFile, policyFile == null ? loopFile : policyFile));
         }
         out.print(format.format == OutputFormat.json ? CheckReport.json(r) : CheckReport.text(r));
         if (plot != null && format.format == OutputFormat.text) {

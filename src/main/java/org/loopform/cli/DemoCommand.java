@@ -34,7 +34,8 @@ final class DemoCommand implements Callable<Integer> {
     CommandSpec spec;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "loopform-demo",
-            description = "Where to write the report (default: ${DEFAULT-VALUE}); an earlier demo there is replaced.")
+            description = "Where to write the report (default: ${DEFAULT-VALUE}); an earlier loopform output there is"
+                    + " replaced, a folder loopform did not write never is.")
     Path out;
 
     @Mixin
@@ -46,8 +47,8 @@ final class DemoCommand implements Callable<Integer> {
         try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(LOOPS);
              LoopCsvReader rows = LoopCsvReader.of(new InputStreamReader(in, StandardCharsets.UTF_8), LOOPS, null,
                      new LoopDefaults(target, null))) {
-            boolean replace = java.nio.file.Files.exists(out.resolve("report.html"));
-            int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, replace, true,
+            // replaces an earlier demo (a folder loopform wrote, with its marker), never a folder of the user's
+            int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, true, true,
                     CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
                     List.of(), "target " + target.id() + " (invented), scans from the list, default policy", -1),
                     spec.commandLine().getOut());

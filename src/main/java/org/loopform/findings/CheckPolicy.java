@@ -2,6 +2,7 @@ package org.loopform.findings;
 
 import java.util.LinkedHashMap;
 import java.util.Map;
+import org.loopform.units.BadInput;
 
 /**
  * The thresholds the deployment checker holds figures against. Defaults and their sources:
@@ -64,7 +65,7 @@ public record CheckPolicy(double samplingWarn, double samplingFail, double deriv
         Map<String, Double> m = asMap();
         for (var e : overrides.entrySet()) {
             if (!m.containsKey(e.getKey())) {
-                throw new IllegalArgumentException(e.getKey() + ": unknown policy key; known keys are "
+                throw new BadInput(e.getKey() + ": unknown policy key; known keys are "
                         + String.join(", ", m.keySet()));
             }
             m.put(e.getKey(), e.getValue());

@@ -58,13 +58,7 @@ public final class Converter {
                     "No action was given for " + from.id() + "; reverse action (output falls as the PV rises) was "
                             + "assumed. Write action=direct if the controller is direct acting."));
         }
-        ControlLaw law;
-        try {
-            law = StructureLaw.toLaw(src, from.filter().placement());
-        } catch (IllegalArgumentException e) {
-            throw new FormException("the values are too large or too small to compute with (" + e.getMessage()
-                    + "); check their magnitudes and units");
-        }
+        ControlLaw law = StructureLaw.toLaw(src, from.filter().placement());
         FrequencyBand band = TuningBand.implied(law.terms(), ctx.scanSeconds() == null ? 0 : ctx.scanSeconds());
 
         PidSetting candidate = StructureLaw.fromTerms(law.terms(), to.structure(), to.filter().placement(),

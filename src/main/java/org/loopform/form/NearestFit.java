@@ -28,6 +28,12 @@ final class NearestFit {
     private static final int FIT_POINTS = 80;
     private static final int MAX_EVALUATIONS = 40_000;
     /**
+     * The search stays where every coordinate (the log of a gain, a time or a ratio) lies within
+     * 1e-50..1e50: products of three such values stay finite, so every point searched is a valid
+     * setting and law, and no exception has to be caught (a caught exception could hide a bug).
+     */
+    private static final double MAX_ABS_LOG = Math.log(1e50);
+    /**
      * The simplex stops when the cost changes by less than this between iterations; the reported
      * deviations (three significant figures) are settled long before.
      */
@@ -71,12 +77,13 @@ final class NearestFit {
             return x0;
         }
         org.apache.commons.math3.analysis.MultivariateFunction safe = v -> {
-            try {
-                double c = f.applyAsDouble(v);
-                return Double.isFinite(c) ? c : Double.MAX_VALUE;
-            } catch (IllegalArgumentException e) {
-                return Double.MAX_VALUE;
+            for (double x : v) {
+                if (!(Math.abs(x) <= MAX_ABS_LOG)) {
+                    return Double.MAX_VALUE;
+                }
             }
+            double c = f.applyAsDouble(v);
+            return Double.isFinite(c) ? c : Double.MAX_VALUE;
         };
         double[] best = x0;
         double bestValue = safe.value(x0);

@@ -44,29 +44,42 @@ public final class StructureLaw {
                 double invTi = s.hasIntegral() ? 1.0 / s.integral() : 0.0;
                 double td = s.derivative();
                 if (placement == FilterPlacement.DERIVATIVE) {
-                    return new PidTerms(k * (1 + tf * invTi), k * invTi, k * (tf + td),
+                    return terms(k * (1 + tf * invTi), k * invTi, k * (tf + td),
                             tf, k * (b + tf * invTi), k * (b * tf + c * td));
                 }
-                return new PidTerms(k, k * invTi, k * td, tf, k * (b + tf * invTi), k * b * tf);
+                return terms(k, k * invTi, k * td, tf, k * (b + tf * invTi), k * b * tf);
             }
             case PARALLEL -> {
                 double kp = s.gain();
                 double ki = s.integral();
                 double kd = s.derivative();
                 if (placement == FilterPlacement.DERIVATIVE) {
-                    return new PidTerms(kp + ki * tf, ki, kp * tf + kd, tf, b * kp + ki * tf, b * kp * tf + c * kd);
+                    return terms(kp + ki * tf, ki, kp * tf + kd, tf, b * kp + ki * tf, b * kp * tf + c * kd);
                 }
-                return new PidTerms(kp, ki, kd, tf, b * kp + ki * tf, b * kp * tf);
+                return terms(kp, ki, kd, tf, b * kp + ki * tf, b * kp * tf);
             }
             case SERIES -> {
                 double k = s.gain();
                 double invTi = s.hasIntegral() ? 1.0 / s.integral() : 0.0;
                 double td = s.derivative();
                 double g = c == 1.0 ? td : tf;
-                return new PidTerms(k * (1 + td * invTi), k * invTi, k * td, tf, k * (b + g * invTi), k * b * g);
+                return terms(k * (1 + td * invTi), k * invTi, k * td, tf, k * (b + g * invTi), k * b * g);
             }
             default -> throw new IllegalStateException("unknown structure " + s.structure());
         }
+    }
+
+    /**
+     * The law's terms, or bad input when a product of the written values overflows (values such as
+     * 1e200 s): the tuning then cannot be computed with at all, whatever the form.
+     */
+    private static PidTerms terms(double p, double i, double d, double tf, double pr, double dr) {
+        if (!(Double.isFinite(p) && Double.isFinite(i) && Double.isFinite(d) && Double.isFinite(tf)
+                && Double.isFinite(pr) && Double.isFinite(dr))) {
+            throw new FormException("the values are too large or too small to compute with (a term of the law"
+                    + " they write overflows); check their magnitudes and units");
+        }
+        return new PidTerms(p, i, d, tf, pr, dr);
     }
 
     /**

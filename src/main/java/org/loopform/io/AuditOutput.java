@@ -12,10 +12,9 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.util.ArrayList;
 import java.util.Collection;
-import java.util.Comparator;
 import java.util.List;
-import java.util.stream.Stream;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
 import org.loopform.audit.AuditSummary;
@@ -27,10 +26,15 @@ import org.loopform.report.HtmlReport;
 
 /**
  * Writes an audit's output folder as the results stream in: {@code loops.csv}, {@code loops.json},
- * {@code entry-sheet.csv} and, unless turned off, {@code report.html}. Everything goes into a
- * temporary folder beside the target first and is moved into place whole at {@link #finish}, so
- * a failed or interrupted audit leaves nothing half-written; an existing non-empty folder is
- * only replaced with {@code force}, and never when it holds an input.
+ * {@code entry-sheet.csv}, unless turned off {@code report.html}, and loopform's marker
+ * ({@value OutputFolder#MARKER}). Everything goes into a temporary folder beside the target first
+ * and is moved into place whole at {@link #finish}, so a failed or interrupted audit leaves nothing
+ * half-written; the temporary folder is removed on failure, on SIGTERM or Ctrl-C (a shutdown hook),
+ * and, if the process was killed outright, by the next run writing beside it.
+ *
+ * <p>Nothing loopform did not write is ever deleted or replaced: an existing folder is replaced
+ * only when it is empty, or when it holds loopform's marker and nothing but the files the marker
+ * lists, unchanged (with {@code force}); never when an input (reached through links) lies inside it.
  */
 public final class AuditOutput implements AutoCloseable {
 
@@ -39,66 +43,87 @@ public final class AuditOutput implements AutoCloseable {
 
     private static final ObjectMapper MAPPER = new ObjectMapper();
 
+    private final Path shown;
     private final Path target;
     private final Path temp;
     private final boolean force;
     private final boolean html;
+    private final List<Path> inputs;
+    /** The highest folder above the target that this run created (null: none), removed again on failure. */
+    private final Path createdFolders;
+    private final Thread cleanup;
     private final CSVPrinter loopsCsv;
     private final CSVPrinter entrySheet;
     private final JsonGenerator json;
     private final Writer sections;
     private int plotted;
     private boolean finished;
+    private boolean abandoned;
 
-    private AuditOutput(Path target, boolean force, boolean html) throws IOException {
+    private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders)
+            throws IOException {
+        this.shown = shown;
+        this.createdFolders = createdFolders;
         this.target = target;
         this.force = force;
         this.html = html;
+        this.inputs = inputs;
         Path parent = target.getParent();
-        Files.createDirectories(parent);
-        this.temp = Files.createTempDirectory(parent, "." + target.getFileName() + ".tmp-");
-        this.loopsCsv = new CSVPrinter(Files.newBufferedWriter(temp.resolve("loops.csv"), StandardCharsets.UTF_8),
-                CSVFormat.RFC4180.builder().setHeader(AuditRows.LOOP_COLUMNS.toArray(String[]::new)).get());
-        this.entrySheet = new CSVPrinter(Files.newBufferedWriter(temp.resolve("entry-sheet.csv"),
-                StandardCharsets.UTF_8), CSVFormat.RFC4180.builder().setHeader(AuditRows.ENTRY_COLUMNS
-                .toArray(String[]::new)).get());
-        this.json = MAPPER.getFactory().createGenerator(temp.resolve("loops.json").toFile(), JsonEncoding.UTF8);
-        json.useDefaultPrettyPrinter();
-        json.writeStartObject();
-        json.writeArrayFieldStart("loops");
-        this.sections = html ? Files.newBufferedWriter(temp.resolve(".sections.html"), StandardCharsets.UTF_8) : null;
+        OutputFolder.sweepStale(parent);
+        this.temp = Files.createDirectory(parent.resolve(OutputFolder.scratchName(target, "tmp")));
+        this.cleanup = new Thread(this::abandon, "loopform-output-cleanup");
+        Runtime.getRuntime().addShutdownHook(cleanup);
+        try {
+            OutputFolder.markWriting(temp);
+            this.loopsCsv = new CSVPrinter(Files.newBufferedWriter(temp.resolve("loops.csv"), StandardCharsets.UTF_8),
+                    CSVFormat.RFC4180.builder().setHeader(AuditRows.LOOP_COLUMNS.toArray(String[]::new)).get());
+            this.entrySheet = new CSVPrinter(Files.newBufferedWriter(temp.resolve("entry-sheet.csv"),
+                    StandardCharsets.UTF_8), CSVFormat.RFC4180.builder().setHeader(AuditRows.ENTRY_COLUMNS
+                    .toArray(String[]::new)).get());
+            this.json = MAPPER.getFactory().createGenerator(temp.resolve("loops.json").toFile(), JsonEncoding.UTF8);
+            json.useDefaultPrettyPrinter();
+            json.writeStartObject();
+            json.writeArrayFieldStart("loops");
+            this.sections = html ? Files.newBufferedWriter(temp.resolve(".sections.html"), StandardCharsets.UTF_8)
+                    : null;
+        } catch (IOException | RuntimeException e) {
+            abandon();
+            Runtime.getRuntime().removeShutdownHook(cleanup);
+            throw e;
+        }
     }
 
     /**
-     * Opens the output folder {@code out}. Refuses (exit 2) when it exists and is not empty without
-     * {@code force}, or when any of {@code inputs} lies inside it.
+     * Opens the output folder {@code out}. Refuses (exit 2) when any of {@code inputs} lies inside it
+     * (both compared through links), when it is a file or a link to nothing, and when it exists, is not
+     * empty and is not loopform's own; replaces loopform's own only with {@code force}.
      */
     public static AuditOutput create(Path out, boolean force, boolean html, Collection<Path> inputs) {
-        Path abs = out.toAbsolutePath().normalize();
+        Path target = OutputFolder.real(out);
+        List<Path> realInputs = new ArrayList<>();
         for (Path in : inputs) {
-            if (in != null && in.toAbsolutePath().normalize().startsWith(abs)) {
-                throw new InputException(out + ": the output folder holds an input (" + in + "); choose another --out");
+            if (in != null) {
+                realInputs.add(OutputFolder.real(in));
             }
         }
-        if (Files.isRegularFile(abs)) {
-            throw new InputException(out + ": is a file; --out needs a folder");
-        }
-        if (!force && Files.isDirectory(abs) && !isEmpty(abs)) {
-            throw new InputException(out + ": the folder exists and is not empty; add --force to replace it, or"
-                    + " choose another --out");
+        OutputFolder.checkReplaceable(out, target, force, realInputs);
+        Path created = null;
+        for (Path p = target.getParent(); p != null && !Files.exists(p); p = p.getParent()) {
+            created = p;
         }
         try {
-            return new AuditOutput(abs, force, html);
+            Files.createDirectories(target.getParent());
         } catch (IOException e) {
-            throw new InputException(out + ": cannot be written (" + e.getMessage() + ")");
+            throw new InputException(out + ": cannot be created (" + OutputFolder.reason(e) + " in "
+                    + out.toAbsolutePath().normalize().getParent() + "); check the folder above it exists and is"
+                    + " writable, or choose another --out");
         }
-    }
-
-    private static boolean isEmpty(Path dir) {
-        try (Stream<Path> s = Files.list(dir)) {
-            return s.findAny().isEmpty();
+        try {
+            return new AuditOutput(out, target, force, html, List.copyOf(realInputs), created);
         } catch (IOException e) {
-            throw new UncheckedIOException(e);
+            removeCreated(target.getParent(), created);
+            throw new InputException(out + ": cannot be written (" + OutputFolder.reason(e) + "); check the folder"
+                    + " above it is writable and has free space, or choose another --out");
         }
     }
 
@@ -160,8 +185,13 @@ public final class AuditOutput implements AutoCloseable {
                 }
             }
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot write the audit output", e);
+            throw cannotWrite(e);
         }
+    }
+
+    private InputException cannotWrite(IOException e) {
+        return new InputException(shown + ": cannot be written (" + OutputFolder.reason(e) + "); check the disk has"
+                + " free space and the folder is writable; nothing was written there");
     }
 
     /** Writes the summary and the report, then moves the folder into place. */
@@ -183,71 +213,109 @@ public final class AuditOutput implements AutoCloseable {
                 }
                 Files.delete(sectionFile);
             }
+            OutputFolder.markFinished(temp);
             moveIntoPlace();
-            finished = true;
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot write the audit output", e);
+            throw cannotWrite(e);
         }
     }
 
-    private void moveIntoPlace() throws IOException {
+    private synchronized void moveIntoPlace() throws IOException {
+        if (abandoned) {
+            throw new InputException(shown + ": not written; loopform was stopped while writing it");
+        }
+        // the folder may have changed while the audit ran: check it again just before replacing it
+        OutputFolder.checkReplaceable(shown, target, force, inputs);
         Path old = null;
-        if (Files.exists(target)) {
-            if (!force && !isEmpty(target)) {
-                throw new InputException(target + ": the folder appeared while the audit ran; add --force");
-            }
-            old = target.resolveSibling("." + target.getFileName() + ".old-" + System.nanoTime());
+        if (Files.isDirectory(target) && OutputFolder.isEmpty(target)) {
+            Files.delete(target); // an empty folder holds nothing to lose (and fails here if that changed)
+        } else if (Files.exists(target)) {
+            old = target.resolveSibling(OutputFolder.scratchName(target, "old"));
             Files.move(target, old, StandardCopyOption.ATOMIC_MOVE);
         }
-        Files.move(temp, target, StandardCopyOption.ATOMIC_MOVE);
+        try {
+            Files.move(temp, target, StandardCopyOption.ATOMIC_MOVE);
+        } catch (IOException e) {
+            if (old != null) {
+                Files.move(old, target, StandardCopyOption.ATOMIC_MOVE);
+            }
+            throw e;
+        }
+        finished = true;
         try {
             // a temporary folder is private to its owner; the finished one reads like any other
             Files.setPosixFilePermissions(target, java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
         } catch (UnsupportedOperationException e) {
             // not a POSIX file system: leave the platform's default
         }
-        if (old != null) {
-            deleteTree(old);
+        if (old != null && !OutputFolder.removeOwn(old)) {
+            // checked above, so only a change in the last instant leads here: keep what is there
+            throw new InputException(shown + ": written; the earlier output was kept in " + old + " because"
+                    + " something in it changed while loopform replaced it");
         }
     }
 
-    /** The folder the output goes to. */
+    /** Removes the temporary folder unless the output was moved into place (shutdown hook, failures). */
+    private synchronized void abandon() {
+        if (finished || abandoned) {
+            return;
+        }
+        abandoned = true;
+        try {
+            OutputFolder.removeFiles(temp);
+        } catch (IOException e) {
+            // a file may still be open for writing: try once more after closing what we hold
+            closeQuietly();
+            try {
+                OutputFolder.removeFiles(temp);
+            } catch (IOException again) {
+                // nothing more to do; the next run beside it sweeps it
+            }
+        }
+        removeCreated(target.getParent(), createdFolders);
+    }
+
+    /** Removes the empty folders from {@code dir} up to {@code top} that a failed run created. */
+    private static void removeCreated(Path dir, Path top) {
+        if (top == null) {
+            return;
+        }
+        for (Path p = dir; p != null && p.startsWith(top); p = p.getParent()) {
+            try {
+                Files.deleteIfExists(p); // only an empty folder can be deleted: anything put there stays
+            } catch (IOException e) {
+                return;
+            }
+        }
+    }
+
+    /** The folder the output goes to, as the user named it (made absolute). */
     public Path folder() {
-        return target;
+        return shown.toAbsolutePath().normalize();
     }
 
     @Override
     public void close() {
         if (!finished) {
+            closeQuietly();
+            abandon();
+        }
+        try {
+            Runtime.getRuntime().removeShutdownHook(cleanup);
+        } catch (IllegalStateException e) {
+            // the JVM is shutting down: the hook is running or has run
+        }
+    }
+
+    private void closeQuietly() {
+        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections}) {
             try {
-                json.close();
-                loopsCsv.close();
-                entrySheet.close();
-                if (sections != null) {
-                    sections.close();
+                if (c != null) {
+                    c.close();
                 }
-            } catch (IOException e) {
+            } catch (IOException | RuntimeException e) {
                 // closing a half-written output that is about to be deleted
             }
-            deleteTree(temp);
         }
     }
-
-    private static void deleteTree(Path dir) {
-        if (!Files.exists(dir)) {
-            return;
-        }
-        try (Stream<Path> s = Files.walk(dir)) {
-            s.sorted(Comparator.reverseOrder()).forEach(p -> {
-                try {
-                    Files.delete(p);
-                } catch (IOException e) {
-                    throw new UncheckedIOException(e);
-                }
-            });
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-    }
-
 }

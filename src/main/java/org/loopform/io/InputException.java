@@ -1,24 +1,19 @@
 package org.loopform.io;
 
 import java.util.List;
+import org.loopform.units.BadInput;
 
 /**
  * A file that cannot be used as it is. Holds every problem found, each already written as
  * {@code file:line: field: requirement (got value); fix.}; the message lists them one a line.
  */
-public class InputException extends IllegalArgumentException {
-    private final List<String> problems;
+public class InputException extends BadInput {
 
     public InputException(List<String> problems) {
-        super(String.join(System.lineSeparator(), problems));
-        this.problems = List.copyOf(problems);
+        super(problems);
     }
 
     public InputException(String problem) {
-        this(List.of(problem));
-    }
-
-    public List<String> problems() {
-        return problems;
+        super(problem);
     }
 }

@@ -25,6 +25,7 @@ import org.loopform.audit.LoopRow;
 import org.loopform.audit.LoopSpec;
 import org.loopform.form.FormDefinition;
 import org.loopform.process.ProcessModel;
+import org.loopform.units.BadInput;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
 import org.loopform.units.UnitException;
@@ -164,10 +165,10 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
                         + previous + "); every loop needs its own tag"));
             }
             return LoopRow.of(i, defaults.apply(spec));
-        } catch (IllegalArgumentException e) {
-            String m = e.getMessage();
-            return LoopRow.bad(i, tag, where, e instanceof InputException ie ? ie.problems()
-                    : List.of(m.startsWith(name + ":") ? m : where + ": " + m));
+        } catch (BadInput e) {
+            // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
+            return LoopRow.bad(i, tag, where, e.problems().stream()
+                    .map(m -> m.startsWith(name + ":") ? m : where + ": " + m).toList());
         }
     }
 

@@ -12,6 +12,7 @@ import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;
 import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
+import org.loopform.units.BadInput;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
 import org.loopform.units.UnitException;
@@ -103,9 +104,10 @@ public final class LoopFileReader {
                 } else {
                     rows.add(org.loopform.audit.LoopRow.of(i, defaults.apply(spec)));
                 }
-            } catch (IllegalArgumentException e) {
-                rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, e instanceof InputException ie ? ie.problems()
-                        : List.of(where + ": " + e.getMessage())));
+            } catch (BadInput e) {
+                // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
+                rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, e instanceof InputException ? e.problems()
+                        : e.problems().stream().map(m -> where + ": " + m).toList()));
             }
         }
         return rows;

@@ -29,13 +29,17 @@ public final class PolicyFileReader {
                 }
             });
         }
+        Map<String, Double> merged = new LinkedHashMap<>(CheckPolicy.DEFAULT.asMap());
+        merged.putAll(m);
+        if (problems.isEmpty() && merged.get("sampling_fail") < merged.get("sampling_warn")) {
+            YamlNode at = root.get("sampling_fail").or(() -> root.get("sampling_warn")).orElse(root);
+            problems.add(at.where() + "the fail threshold must not be below sampling_warn (got sampling_fail "
+                    + merged.get("sampling_fail") + ", sampling_warn " + merged.get("sampling_warn")
+                    + "); raise sampling_fail or lower sampling_warn");
+        }
         if (!problems.isEmpty()) {
             throw new InputException(problems);
         }
-        try {
-            return CheckPolicy.DEFAULT.with(m);
-        } catch (IllegalArgumentException e) {
-            throw new InputException(shownName + ":" + root.line() + ": " + e.getMessage());
-        }
+        return CheckPolicy.DEFAULT.with(m);
     }
 }

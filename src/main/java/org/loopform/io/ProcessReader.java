@@ -87,36 +87,82 @@ public final class ProcessReader {
         } else if (!units.equals("percent")) {
             throw new InputException(where.apply("gain_units") + "must be percent or engineering (got '" + units + "')");
         }
-        try {
-            return switch (model) {
-                case "fopdt" -> new FirstOrderPlusDeadTime(number(v, "gain", where) * scale,
-                        seconds(v, "time_constant", where), deadTime(v, where));
-                case "sopdt" -> v.containsKey("damping") || v.containsKey("natural_frequency")
-                        ? SecondOrderPlusDeadTime.ofNaturalFrequency(number(v, "gain", where) * scale,
-                        number(v, "damping", where), perSecond(v, "natural_frequency", where), deadTime(v, where))
-                        : SecondOrderPlusDeadTime.ofTimeConstants(number(v, "gain", where) * scale,
-                        seconds(v, "time_constant", where), seconds(v, "time_constant_2", where), deadTime(v, where));
-                case "integrating" -> new IntegratingPlusDeadTime(number(v, "gain", where) * scale, deadTime(v, where),
-                        v.containsKey("lag") ? seconds(v, "lag", where) : 0.0);
-                case "tf" -> {
-                    double[] num = list(v, "num", where);
-                    double[] den = list(v, "den", where);
-                    for (int k = 0; k < num.length; k++) {
-                        num[k] *= scale;
-                    }
-                    yield new GeneralTransferFunction(TransferFunction.ofDescending(num, den), deadTime(v, where));
+        // every value is checked here, under the user's key, so that the model records' own checks
+        // (which name Java fields) never see bad input
+        return switch (model) {
+            case "fopdt" -> new FirstOrderPlusDeadTime(gain(v, scale, where),
+                    seconds(v, "time_constant", where, false), deadTime(v, where));
+            case "sopdt" -> v.containsKey("damping") || v.containsKey("natural_frequency")
+                    ? SecondOrderPlusDeadTime.ofNaturalFrequency(gain(v, scale, where),
+                    positive(v, "damping", number(v, "damping", where), "", where),
+                    positive(v, "natural_frequency", perSecond(v, "natural_frequency", where), " rad/s", where),
+                    deadTime(v, where))
+                    : SecondOrderPlusDeadTime.ofTimeConstants(gain(v, scale, where),
+                    seconds(v, "time_constant", where, false), seconds(v, "time_constant_2", where, false),
+                    deadTime(v, where));
+            case "integrating" -> new IntegratingPlusDeadTime(gain(v, scale, where), deadTime(v, where),
+                    v.containsKey("lag") ? seconds(v, "lag", where, true) : 0.0);
+            case "tf" -> {
+                double[] num = list(v, "num", where);
+                double[] den = list(v, "den", where);
+                for (int k = 0; k < num.length; k++) {
+                    num[k] *= scale;
                 }
-                case "" -> throw new InputException(where.apply("model") + "required; one of fopdt, sopdt, "
-                        + "integrating, tf");
-                default -> throw new InputException(where.apply("model") + "must be fopdt, sopdt, integrating or tf "
-                        + "(got '" + model + "')");
-            };
-        } catch (IllegalArgumentException e) {
-            if (e instanceof InputException) {
-                throw e;
+                int numDegree = degree(num);
+                int denDegree = degree(den);
+                if (numDegree < 0) {
+                    throw new InputException(where.apply("num") + "must not be all zeros (got " + v.get("num")
+                            + "); a process with no gain cannot be controlled");
+                }
+                if (denDegree < 0) {
+                    throw new InputException(where.apply("den") + "must not be all zeros (got " + v.get("den")
+                            + "); list the denominator's coefficients, highest power of s first");
+                }
+                if (numDegree > denDegree) {
+                    throw new InputException(where.apply("num") + "must not have a higher power of s than den (got "
+                            + "degree " + numDegree + " over " + denDegree + "); a real process is proper: check the"
+                            + " order of the coefficients, highest power first");
+                }
+                yield new GeneralTransferFunction(TransferFunction.ofDescending(num, den), deadTime(v, where));
             }
-            throw new InputException(where.apply("model") + e.getMessage());
+            case "" -> throw new InputException(where.apply("model") + "required; one of fopdt, sopdt, "
+                    + "integrating, tf");
+            default -> throw new InputException(where.apply("model") + "must be fopdt, sopdt, integrating or tf "
+                    + "(got '" + model + "')");
+        };
+    }
+
+    /** The degree of a polynomial given highest power first, or -1 when all its coefficients are zero. */
+    private static int degree(double[] descending) {
+        for (int k = 0; k < descending.length; k++) {
+            if (descending[k] != 0.0) {
+                return descending.length - 1 - k;
+            }
         }
+        return -1;
+    }
+
+    /** The process gain in %/% ({@code scale} turns an engineering-unit gain into %/%). */
+    private static double gain(Map<String, String> v, double scale, java.util.function.Function<String, String> where) {
+        double g = number(v, "gain", where) * scale;
+        if (!Double.isFinite(g)) {
+            throw new InputException(where.apply("gain") + "must be a finite gain in %/% (got '" + v.get("gain")
+                    + "' scaled by the ranges to " + g + "); check the gain and the ranges");
+        }
+        if (g == 0.0) {
+            throw new InputException(where.apply("gain") + "must not be zero (got '" + v.get("gain") + "'); a process"
+                    + " the output does not move cannot be controlled: give its measured gain, with its sign");
+        }
+        return g;
+    }
+
+    private static double positive(Map<String, String> v, String key, double x, String unit,
+                                   java.util.function.Function<String, String> where) {
+        if (!(x > 0) || !Double.isFinite(x)) {
+            throw new InputException(where.apply(key) + "must be finite and > 0" + unit + " (got '" + v.get(key)
+                    + "')");
+        }
+        return x;
     }
 
     private static String need(Map<String, String> v, String key, java.util.function.Function<String, String> where) {
@@ -129,24 +175,37 @@ public final class ProcessReader {
 
     private static double number(Map<String, String> v, String key, java.util.function.Function<String, String> where) {
         String s = need(v, key, where);
+        double x;
         try {
-            return Double.parseDouble(s.trim());
+            x = Double.parseDouble(s.trim());
         } catch (NumberFormatException e) {
             throw new InputException(where.apply(key) + "must be a number (got '" + s + "')");
         }
+        if (!Double.isFinite(x)) {
+            throw new InputException(where.apply(key) + "must be a finite number (got '" + s + "')");
+        }
+        return x;
     }
 
-    private static double seconds(Map<String, String> v, String key, java.util.function.Function<String, String> where) {
+    /** A time in seconds, > 0 (or >= 0 when {@code zeroAllowed}). */
+    private static double seconds(Map<String, String> v, String key, java.util.function.Function<String, String> where,
+                                  boolean zeroAllowed) {
         String s = need(v, key, where);
+        double x;
         try {
-            return Measure.parseSeconds(s, TimeUnit.SECONDS);
+            x = Measure.parseSeconds(s, TimeUnit.SECONDS);
         } catch (UnitException e) {
             throw new InputException(where.apply(key) + e.getMessage());
         }
+        if (!Double.isFinite(x) || x < 0 || x == 0 && !zeroAllowed) {
+            throw new InputException(where.apply(key) + "must be a finite time " + (zeroAllowed ? ">= 0" : "> 0")
+                    + " (got '" + s + "'); write it with its unit, e.g. 60 s or 1.5 min");
+        }
+        return x;
     }
 
     private static double deadTime(Map<String, String> v, java.util.function.Function<String, String> where) {
-        return v.containsKey("dead_time") ? seconds(v, "dead_time", where) : 0.0;
+        return v.containsKey("dead_time") ? seconds(v, "dead_time", where, true) : 0.0;
     }
 
     private static double perSecond(Map<String, String> v, String key,
@@ -178,7 +237,11 @@ public final class ProcessReader {
                 continue;
             }
             try {
-                out.add(Double.parseDouble(part));
+                double c = Double.parseDouble(part);
+                if (!Double.isFinite(c)) {
+                    throw new NumberFormatException(part);
+                }
+                out.add(c);
             } catch (NumberFormatException e) {
                 throw new InputException(where.apply(key) + "must be a list of numbers, highest power of s first, "
                         + "e.g. [1, 3, 1] (got '" + part + "')");

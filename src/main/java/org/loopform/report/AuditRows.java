@@ -70,7 +70,7 @@ public final class AuditRows {
                 r.add("");
             }
             r.add(String.join(" | ", o.problems()));
-            return r;
+            return spreadsheetRow(r);
         }
         CheckResult c = o.result();
         Conversion v = c.conversion();
@@ -118,7 +118,7 @@ public final class AuditRows {
         r.add(c.findings().stream().filter(f -> f.severity() != Severity.INFO)
                 .map(f -> f.topic().id() + " (" + f.severity().id() + ")").collect(Collectors.joining("; ")));
         r.add("");
-        return r;
+        return spreadsheetRow(r);
     }
 
     public static List<List<String>> entryRows(LoopOutcome o) {
@@ -134,7 +134,33 @@ public final class AuditRows {
         if (v.entered().action() != null) {
             rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id()));
         }
-        return rows;
+        return rows.stream().map(AuditRows::spreadsheetRow).toList();
+    }
+
+    /**
+     * Plain decimal numbers, which a spreadsheet reads as numbers and never as formulas, so they
+     * keep their sign ({@code -1.5}, {@code +2e-3}).
+     */
+    private static final java.util.regex.Pattern PLAIN_NUMBER =
+            java.util.regex.Pattern.compile("[+-]?(\\d+\\.?\\d*|\\.\\d+)([eE][+-]?\\d+)?");
+
+    /**
+     * {@code cell} made safe for a spreadsheet: a cell beginning with {@code =}, {@code +}, {@code -},
+     * {@code @}, a tab, a carriage return or a NUL is a formula to Excel, LibreOffice Calc and Google
+     * Sheets, so it gets a leading single quote, which they read as "text" (OWASP, "CSV Injection",
+     * owasp.org/www-community/attacks/CSV_Injection; OWASP ASVS 5.0, requirement 1.2.10), unless it is a
+     * plain number such as {@code -1.5}, which stays a number. CSV quoting itself is the printer's.
+     */
+    public static String spreadsheetCell(String cell) {
+        if (cell == null || cell.isEmpty() || "=+-@\t\r\0".indexOf(cell.charAt(0)) < 0
+                || PLAIN_NUMBER.matcher(cell).matches()) {
+            return cell;
+        }
+        return "'" + cell;
+    }
+
+    private static List<String> spreadsheetRow(List<String> row) {
+        return row.stream().map(AuditRows::spreadsheetCell).toList();
     }
 
     public static ObjectNode loopJson(LoopOutcome o) {
