@@ -67,7 +67,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     /** The header's column names, lower case; an empty name is a column without a name. */
     private final List<String> columns;
     private final char separator;
-    private final Map<String, String> firstSeen = new HashMap<>();
+    private final TagIndex firstSeen = new TagIndex();
     private final Map<String, FormDefinition> forms = new HashMap<>();
     private CSVRecord pending;
     private long pendingLine;
@@ -302,10 +302,10 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         }
         try {
             LoopSpec spec = row(cells, where);
-            String previous = firstSeen.putIfAbsent(spec.tag(), where);
-            if (previous != null) {
+            int previous = firstSeen.putIfAbsent(spec.tag(), (int) Math.min(Integer.MAX_VALUE, pendingLine));
+            if (previous >= 0) {
                 return LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag " + tag + " (first at "
-                        + previous + "); every loop needs its own tag"));
+                        + name + ":" + previous + "); every loop needs its own tag"));
             }
             return LoopRow.of(i, defaults.apply(spec));
         } catch (IllegalArgumentException e) {
