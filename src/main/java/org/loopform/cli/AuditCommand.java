@@ -14,7 +14,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.LoopCsvReader;
-import org.loopform.io.LoopFileReader;
+import org.loopform.io.LoopYamlReader;
 import org.loopform.io.PolicyFileReader;
 import org.loopform.report.Cautions;
 import org.loopform.units.Numbers;
@@ -93,15 +93,17 @@ final class AuditCommand implements Callable<Integer> {
                 + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
                 + (policyFile != null ? ", policy " + policyFile : ", default policy");
         int n = threads != null ? Math.max(1, threads) : Runtime.getRuntime().availableProcessors();
+        // progress by bytes read: a pipe (/dev/stdin) can be read only once, so it is never counted ahead
+        long size = Files.isRegularFile(input) ? sizeOf(input) : -1;
         if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
-            List<LoopRow> rows = LoopFileReader.rows(input, name, defaults);
-            return AuditRunner.run(rows.iterator(), settings(name, fail, policy, n, inputs, settings,
-                    AuditRunner.Progress.loops(rows.size())), spec.commandLine().getOut(), spec.commandLine().getErr());
+            try (LoopYamlReader reader = LoopYamlReader.open(input, name, defaults)) {
+                return AuditRunner.run(reader, settings(name, fail, policy, n, inputs, settings,
+                        AuditRunner.Progress.bytes(size, reader::bytesRead)), spec.commandLine().getOut(),
+                        spec.commandLine().getErr());
+            }
         }
         try (LoopCsvReader reader = LoopCsvReader.open(input, name, defaults)) {
             Iterator<LoopRow> rows = reader;
-            // progress by bytes read: a pipe (/dev/stdin) can be read only once, so it is never counted ahead
-            long size = Files.isRegularFile(input) ? sizeOf(input) : -1;
             return AuditRunner.run(rows, settings(name, fail, policy, n, inputs, settings,
                     AuditRunner.Progress.bytes(size, reader::bytesRead)), spec.commandLine().getOut(),
                     spec.commandLine().getErr());

@@ -38,16 +38,12 @@ final class AuditRunner {
 
     /**
      * How far through its input the audit is: bytes read of a known size (a CSV file; a pipe has no
-     * size and shows bytes only), or loops of a known count (a YAML list, read whole first).
-     * The input is never read a second time to find its length.
+     * size and shows bytes only), or loops counted with no total (the bundled demo). The input is
+     * never read a second time to find its length.
      */
     record Progress(String unit, long unitSize, long total, LongSupplier position) {
         static Progress bytes(long size, LongSupplier bytesRead) {
             return new Progress(" MB", 1 << 20, size, bytesRead);
-        }
-
-        static Progress loops(long count) {
-            return new Progress(" loops", 1, count, null);
         }
 
         static final Progress UNKNOWN = new Progress(" loops", 1, -1, null);
