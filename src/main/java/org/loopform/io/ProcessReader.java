@@ -12,6 +12,7 @@ import org.loopform.process.IntegratingPlusDeadTime;
 import org.loopform.process.ProcessModel;
 import org.loopform.process.SecondOrderPlusDeadTime;
 import org.loopform.units.Measure;
+import org.loopform.units.Plausible;
 import org.loopform.units.Span;
 import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
@@ -87,14 +88,34 @@ public final class ProcessReader {
 
     private static double number(Map<String, String> v, String key, java.util.function.Function<String, String> where) {
         String s = need(v, key, where);
+        double x;
         try {
-            return Double.parseDouble(s.trim());
+            x = Double.parseDouble(s.trim());
         } catch (NumberFormatException e) {
             throw new InputException(where.apply(key) + "must be a number (got '" + s + "')");
         }
+        if (key.equals("gain") && !Plausible.gain(x)) {
+            throw new InputException(where.apply(key) + "must lie " + Plausible.gainRange() + " (got '" + s.trim()
+                    + "'); check the value and its units");
+        }
+        if (!Double.isFinite(x)) {
+            throw new InputException(where.apply(key) + "must be a finite number (got '" + s.trim() + "')");
+        }
+        return x;
     }
 
+    /** A time that must be > 0 (time constants, lags), within {@link Plausible}'s limits. */
     private static double seconds(Map<String, String> v, String key, java.util.function.Function<String, String> where) {
+        double t = anySeconds(v, key, where);
+        if (!Plausible.time(t)) {
+            throw new InputException(where.apply(key) + "must lie " + Plausible.timeRange() + " (got '"
+                    + v.get(key).trim() + "'); check the value and its unit");
+        }
+        return t;
+    }
+
+    private static double anySeconds(Map<String, String> v, String key,
+                                     java.util.function.Function<String, String> where) {
         String s = need(v, key, where);
         try {
             return Measure.parseSeconds(s, TimeUnit.SECONDS);
@@ -103,8 +124,17 @@ public final class ProcessReader {
         }
     }
 
+    /** The dead time: 0, or within {@link Plausible}'s limits. */
     private static double deadTime(Map<String, String> v, java.util.function.Function<String, String> where) {
-        return v.containsKey("dead_time") ? seconds(v, "dead_time", where) : 0.0;
+        if (!v.containsKey("dead_time")) {
+            return 0.0;
+        }
+        double t = anySeconds(v, "dead_time", where);
+        if (!Plausible.timeOrZero(t)) {
+            throw new InputException(where.apply("dead_time") + "must be 0 or lie " + Plausible.timeRange()
+                    + " (got '" + v.get("dead_time").trim() + "'); check the value and its unit");
+        }
+        return t;
     }
 
     private static double perSecond(Map<String, String> v, String key,
@@ -113,13 +143,20 @@ public final class ProcessReader {
         try {
             Measure m = Measure.parse(s);
             String u = m.unit().replace(" ", "");
+            double radPerSecond;
             if (u.isEmpty() || u.equals("rad/s") || u.equals("1/s")) {
-                return m.value();
+                radPerSecond = m.value();
+            } else if (u.equals("rad/min") || u.equals("1/min")) {
+                radPerSecond = m.value() / 60;
+            } else {
+                throw new InputException(where.apply(key) + "unknown unit '" + m.unit() + "'; write rad/s or rad/min");
             }
-            if (u.equals("rad/min") || u.equals("1/min")) {
-                return m.value() / 60;
+            // a natural frequency is the inverse of a time: the same limits, inverted
+            if (!Plausible.time(1 / radPerSecond)) {
+                throw new InputException(where.apply(key) + "must lie within 1e-7 rad/s to 1e6 rad/s (got '" + s.trim()
+                        + "'); check the value and its unit");
             }
-            throw new InputException(where.apply(key) + "unknown unit '" + m.unit() + "'; write rad/s or rad/min");
+            return radPerSecond;
         } catch (UnitException e) {
             throw new InputException(where.apply(key) + e.getMessage());
         }
