@@ -26,10 +26,10 @@ final class AuditRunner {
     private AuditRunner() {
     }
 
-    private static void spec(PrintWriter out) {
-        out.println("No loops were found in the input: it needs a header row and one loop a row (CSV), or a"
-                + " 'loops:' list (YAML).");
-        out.flush();
+    private static void spec(PrintWriter err, String input) {
+        err.println("loopform: " + input + ": no loops were found; a loop list needs a header row and one loop a row"
+                + " (CSV), or a 'loops:' list (YAML)");
+        err.flush();
     }
 
     record Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
@@ -105,7 +105,7 @@ final class AuditRunner {
             return ExitCodes.BAD_INPUT;
         }
         if (summary.loops() == 0) {
-            spec(out);
+            spec(err, s.inputName());
             return ExitCodes.BAD_INPUT;
         }
         Verdict w = summary.worstVerdict();
