@@ -12,12 +12,17 @@ import org.loopform.findings.Topic;
 
 /**
  * The audit's counts, gathered as results stream past: loops by verdict, findings by topic and
- * severity, bad rows, and the worst loops (kept to {@link #WORST_KEPT}, so memory stays bounded).
+ * severity, bad rows, and the worst loops (kept to {@link #WORST_KEPT}) and the first bad-row problems
+ * (kept to {@link #BAD_ROW_PROBLEMS_KEPT}, the rest counted), so memory stays bounded however many
+ * loops and bad rows stream past.
  */
 public final class AuditSummary {
 
     /** How many of the worst loops the summary keeps, worst first. */
     public static final int WORST_KEPT = 25;
+
+    /** How many bad-row problems the summary keeps in full, in input order; later ones are only counted. */
+    public static final int BAD_ROW_PROBLEMS_KEPT = 200;
 
     /** One of the worst loops: tag, verdict, counts of fail and warn findings, and its worst finding's words. */
     public record Worst(int index, String tag, Verdict verdict, int fails, int warns, String headline,
@@ -52,6 +57,7 @@ public final class AuditSummary {
     private int loops;
     private int exact;
     private int badRowCount;
+    private long badRowProblemCount;
 
     private static final Comparator<Worst> WORST_FIRST = Comparator.comparing(Worst::verdict).reversed()
             .thenComparing(Comparator.comparingInt(Worst::fails).reversed())
@@ -63,7 +69,11 @@ public final class AuditSummary {
         loops++;
         if (!o.ok()) {
             badRowCount++;
-            badRows.addAll(o.problems());
+            for (String p : o.problems()) {
+                if (badRowProblemCount++ < BAD_ROW_PROBLEMS_KEPT) {
+                    badRows.add(p);
+                }
+            }
             return;
         }
         CheckResult r = o.result();
@@ -125,8 +135,14 @@ public final class AuditSummary {
         return List.copyOf(worst);
     }
 
+    /** The first {@link #BAD_ROW_PROBLEMS_KEPT} bad-row problems, in input order. */
     public List<String> badRows() {
         return List.copyOf(badRows);
+    }
+
+    /** Every bad-row problem counted, kept or not. */
+    public long badRowProblemCount() {
+        return badRowProblemCount;
     }
 
     /** Rows that could not be read or checked. */

@@ -1,5 +1,6 @@
 package org.loopform.cli;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Iterator;
@@ -13,7 +14,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.LoopCsvReader;
-import org.loopform.io.LoopFileReader;
+import org.loopform.io.LoopYamlReader;
 import org.loopform.io.PolicyFileReader;
 import org.loopform.report.Cautions;
 import org.loopform.units.Numbers;
@@ -93,28 +94,33 @@ final class AuditCommand implements Callable<Integer> {
                 + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
                 + (policyFile != null ? ", policy " + policyFile : ", default policy");
         int n = threads != null ? Math.max(1, threads) : Runtime.getRuntime().availableProcessors();
+        // progress by bytes read: a pipe (/dev/stdin) can be read only once, so it is never counted ahead
+        long size = Files.isRegularFile(input) ? sizeOf(input) : -1;
         if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
-            List<LoopRow> rows = LoopFileReader.rows(input, name, defaults);
-            return AuditRunner.run(rows.iterator(), settings(name, fail, policy, n, inputs, settings, rows.size()),
-                    spec.commandLine().getOut());
+            try (LoopYamlReader reader = LoopYamlReader.open(input, name, defaults)) {
+                return AuditRunner.run(reader, settings(name, fail, policy, n, inputs, settings,
+                        AuditRunner.Progress.bytes(size, reader::bytesRead)), spec.commandLine().getOut(),
+                        spec.commandLine().getErr());
+            }
         }
         try (LoopCsvReader reader = LoopCsvReader.open(input, name, defaults)) {
             Iterator<LoopRow> rows = reader;
-            return AuditRunner.run(rows, settings(name, fail, policy, n, inputs, settings, lineCount(input)),
-                    spec.commandLine().getOut());
+            return AuditRunner.run(rows, settings(name, fail, policy, n, inputs, settings,
+                    AuditRunner.Progress.bytes(size, reader::bytesRead)), spec.commandLine().getOut(),
+                    spec.commandLine().getErr());
         }
     }
 
     private AuditRunner.Settings settings(String name, Severity fail, CheckPolicy policy, int n, List<Path> inputs,
-                                          String settings, long expected) {
+                                          String settings, AuditRunner.Progress progress) {
         return new AuditRunner.Settings(name, out, force, !noReport, policy, fail, format.format, n, inputs, settings,
-                expected);
+                progress);
     }
 
-    private static long lineCount(Path p) {
-        try (var lines = java.nio.file.Files.lines(p)) {
-            return Math.max(0, lines.count() - 1);
-        } catch (java.io.IOException | java.io.UncheckedIOException e) {
+    private static long sizeOf(Path p) {
+        try {
+            return Files.size(p);
+        } catch (java.io.IOException e) {
             return -1;
         }
     }

@@ -6,6 +6,7 @@ import java.time.ZonedDateTime;
 import java.time.format.DateTimeFormatter;
 import java.util.Iterator;
 import java.util.List;
+import java.util.function.LongSupplier;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import me.tongfei.progressbar.ProgressBarStyle;
@@ -25,21 +26,36 @@ final class AuditRunner {
     private AuditRunner() {
     }
 
-    private static void spec(PrintWriter out) {
-        out.println("No loops were found in the input: it needs a header row and one loop a row (CSV), or a"
-                + " 'loops:' list (YAML).");
-        out.flush();
+    private static void spec(PrintWriter err, String input) {
+        err.println("loopform: " + input + ": no loops were found; a loop list needs a header row and one loop a row"
+                + " (CSV), or a 'loops:' list (YAML)");
+        err.flush();
     }
 
     record Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
-                    OutputFormat format, int threads, List<Path> inputs, String settingsText, long expectedRows) {
+                    OutputFormat format, int threads, List<Path> inputs, String settingsText, Progress progress) {
     }
 
-    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out) {
+    /**
+     * How far through its input the audit is: bytes read of a known size (a CSV file; a pipe has no
+     * size and shows bytes only), or loops counted with no total (the bundled demo). The input is
+     * never read a second time to find its length.
+     */
+    record Progress(String unit, long unitSize, long total, LongSupplier position) {
+        static Progress bytes(long size, LongSupplier bytesRead) {
+            return new Progress(" MB", 1 << 20, size, bytesRead);
+        }
+
+        static final Progress UNKNOWN = new Progress(" loops", 1, -1, null);
+    }
+
+    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs());
+        Progress progress = s.progress();
         ProgressBar bar = System.console() != null && System.getenv("CI") == null ? new ProgressBarBuilder()
-                .setTaskName("checking").setInitialMax(s.expectedRows()).setStyle(ProgressBarStyle.ASCII)
-                .setUnit(" loops", 1).continuousUpdate().build() : null;
+                .setTaskName("checking").setInitialMax(progress.total()).setStyle(ProgressBarStyle.ASCII)
+                .setUnit(progress.unit(), progress.unitSize()).continuousUpdate().build() : null;
+        BadRowLog badRows = new BadRowLog(err);
         AuditSummary summary;
         try {
             boolean html = output != null && output.html();
@@ -48,11 +64,21 @@ final class AuditRunner {
                         if (output != null) {
                             output.accept(o, rendered);
                         }
+                        badRows.accept(o);
                         if (bar != null) {
-                            bar.step();
+                            if (progress.position() != null) {
+                                bar.stepTo(Math.max(0, progress.position().getAsLong()));
+                            } else {
+                                bar.step();
+                            }
                         }
                     });
-            if (output != null) {
+            badRows.finish();
+            if (output != null && summary.checked() == 0) {
+                // every row was bad (or there were none): no folder of empty results; close() removes the temporary one
+                err.println("loopform: no loop could be checked, so nothing was written to " + s.out());
+                err.flush();
+            } else if (output != null) {
                 output.finish(summary, new AuditInfo("loopform migration audit", s.inputName(),
                         ZonedDateTime.now().withNano(0).format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText()));
             }
@@ -64,7 +90,7 @@ final class AuditRunner {
                 output.close();
             }
         }
-        String folder = output == null ? null : output.folder().toString();
+        String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
         if (s.format() == OutputFormat.json) {
             var n = AuditRows.summaryJson(summary);
             if (folder != null) {
@@ -79,7 +105,7 @@ final class AuditRunner {
             return ExitCodes.BAD_INPUT;
         }
         if (summary.loops() == 0) {
-            spec(out);
+            spec(err, s.inputName());
             return ExitCodes.BAD_INPUT;
         }
         Verdict w = summary.worstVerdict();

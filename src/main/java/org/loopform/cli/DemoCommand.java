@@ -1,7 +1,6 @@
 package org.loopform.cli;
 
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
@@ -45,13 +44,13 @@ final class DemoCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         FormDefinition target = FormFileReader.parse(resource(TARGET), TARGET);
         try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(LOOPS);
-             LoopCsvReader rows = LoopCsvReader.of(new InputStreamReader(in, StandardCharsets.UTF_8), LOOPS, null,
+             LoopCsvReader rows = LoopCsvReader.of(in, LOOPS, null,
                      new LoopDefaults(target, null))) {
             // replaces an earlier demo (a folder loopform wrote, with its marker), never a folder of the user's
             int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, true, true,
                     CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
-                    List.of(), "target " + target.id() + " (invented), scans from the list, default policy", -1),
-                    spec.commandLine().getOut());
+                    List.of(), "target " + target.id() + " (invented), scans from the list, default policy",
+                    AuditRunner.Progress.UNKNOWN), spec.commandLine().getOut(), spec.commandLine().getErr());
             if (format.format == OutputFormat.text) {
                 spec.commandLine().getOut().println("Open " + out.resolve("report.html").toAbsolutePath()
                         + " in a browser. The plant and its loops are invented for this demonstration.");

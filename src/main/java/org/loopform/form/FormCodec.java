@@ -5,6 +5,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.stream.Collectors;
 import org.loopform.units.Measure;
+import org.loopform.units.Plausible;
 import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
 
@@ -153,6 +154,8 @@ public final class FormCodec {
         };
         double b = weight(form, values, "b", form.b());
         double c = weight(form, values, "c", form.c());
+        plausible(form, values, gain, parallel ? (integral == 0 ? Double.POSITIVE_INFINITY : gain / integral)
+                : integral, td, tf);
         return new PidSetting(form.structure(), gain, integral, derivative, tf, b, c);
     }
 
@@ -240,6 +243,32 @@ public final class FormCodec {
                     + " for a controller without integral action";
         }
         return "";
+    }
+
+    /**
+     * Refuses times beyond {@link Plausible}'s limits, in the terms the user wrote: the integral
+     * time (Kc/Ki for parallel forms; infinite when integral action is off), the derivative time
+     * and the filter time, all in seconds.
+     */
+    private static void plausible(FormDefinition form, Map<String, String> values, double gain,
+                                  double integralSeconds, double derivativeSeconds, double filterSeconds) {
+        String i = form.integralName();
+        if (Double.isFinite(integralSeconds) && !Plausible.time(Math.abs(integralSeconds))) {
+            throw new FormException(i + ": " + values.get(i) + " gives an integral time of "
+                    + Math.abs(integralSeconds) + " s; it must lie " + Plausible.timeRange() + "; check the value and"
+                    + " its unit, or write the form's 'off' value for no integral action");
+        }
+        String d = form.derivativeName();
+        if (!Plausible.timeOrZero(Math.abs(derivativeSeconds))) {
+            throw new FormException(d + ": " + values.get(d) + " gives a derivative time of "
+                    + Math.abs(derivativeSeconds) + " s; it must be 0 or lie " + Plausible.timeRange()
+                    + "; check the value and its unit");
+        }
+        if (!Plausible.timeOrZero(filterSeconds)) {
+            String f = values.containsKey("tf") ? "tf" : values.containsKey("n") ? "n" : "filter";
+            throw new FormException(f + ": the derivative filter time comes to " + filterSeconds + " s; it must be 0"
+                    + " or lie " + Plausible.timeRange() + "; check the filter and derivative values");
+        }
     }
 
     private enum Kind { GAIN, INTEGRAL, DERIVATIVE, FILTER_TIME, PLAIN }

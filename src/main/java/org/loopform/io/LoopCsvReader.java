@@ -2,21 +2,22 @@ package org.loopform.io;
 
 import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.PushbackReader;
+import java.io.InputStream;
 import java.io.Reader;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.NoSuchElementException;
 import java.util.Set;
+import java.util.function.LongSupplier;
+import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
@@ -31,13 +32,17 @@ import org.loopform.units.Span;
 import org.loopform.units.UnitException;
 
 /**
- * Reads a loop list as CSV, one loop a row, streaming: the header names the columns (snake_case,
- * any order): {@code tag}, {@code form}, the parameter columns, {@code scan}, {@code pv_range},
- * {@code output_range}, optional process columns and optional {@code target_form},
- * {@code target_scan}. Empty cells are absent; a cell may carry a unit ({@code 30s}). A UTF-8
- * byte-order mark is skipped, quoting follows RFC 4180, and a header with more semicolons than
- * commas makes {@code ;} the separator. A bad row becomes a {@link LoopRow} with its problems;
- * a repeated tag is a problem of the later row.
+ * Reads a loop list as CSV, one loop a row, streaming and reading its input once (a pipe works
+ * like a file): the header names the columns (snake_case, any order): {@code tag}, {@code form},
+ * the parameter columns, {@code scan}, {@code pv_range}, {@code output_range}, optional process
+ * columns and optional {@code target_form}, {@code target_scan}. Empty cells are absent; a cell may
+ * carry a unit ({@code 30s}). A UTF-8 byte-order mark is skipped, quoting follows RFC 4180, and the
+ * separator is the one of {@code ,} {@code ;} or tab that the header uses most.
+ *
+ * <p>Nothing is guessed: a row whose cell count differs from the header's, a decimal comma in a
+ * number, or a value under a column without a name is a bad row that says so; a header that names
+ * a column twice, an unclosed quote and bytes that are not UTF-8 stop the file with the line.
+ * A bad row becomes a {@link LoopRow} with its problems; a repeated tag is a problem of the later row.
  */
 public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
 
@@ -47,98 +52,218 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             "dead_time", "lag", "process_gain_units");
     static final Set<String> OTHER = Set.of("tag", "form", "scan", "pv_range", "output_range", "target_form",
             "target_scan");
+    /** Columns that hold numbers (with an optional unit), where a decimal comma is a problem. */
+    static final Set<String> NUMERIC = Set.of("kc", "pb", "kp", "ti", "reset", "ki", "td", "kd", "n", "tf", "b", "c",
+            "scan", "target_scan", "pv_range", "output_range", "process_gain", "time_constant", "time_constant_2",
+            "dead_time", "lag");
+    private static final Pattern DECIMAL_COMMA = Pattern.compile("\\d,\\d");
+    private static final char[] SEPARATORS = {',', ';', '\t'};
 
     private final String name;
     private final Path folder;
     private final CSVParser parser;
     private final Iterator<CSVRecord> records;
+    private final LongSupplier bytesRead;
     private final LoopDefaults defaults;
-    private final Map<String, String> firstSeen = new HashMap<>();
+    /** The header's column names, lower case; an empty name is a column without a name. */
+    private final List<String> columns;
+    private final char separator;
+    private final TagIndex firstSeen = new TagIndex();
     private final Map<String, FormDefinition> forms = new HashMap<>();
+    private CSVRecord pending;
+    private long pendingLine;
     private int index;
 
-    private LoopCsvReader(Reader in, String name, Path folder, LoopDefaults defaults) throws IOException {
+    private LoopCsvReader(Reader in, LongSupplier bytesRead, String name, Path folder, LoopDefaults defaults)
+            throws IOException {
         this.name = name;
         this.folder = folder;
         this.defaults = defaults;
-        PushbackReader pr = new PushbackReader(new BufferedReader(in), 1);
-        int first = pr.read();
-        if (first != '\uFEFF' && first != -1) {
-            pr.unread(first);
-        }
-        BufferedReader br = new BufferedReader(pr);
-        br.mark(1 << 16);
+        this.bytesRead = bytesRead;
+        BufferedReader br = new BufferedReader(in, 1 << 16);
         String header = br.readLine();
-        br.reset();
-        if (header == null || header.isBlank()) {
-            throw new InputException(name + ":1: the file is empty; the first line must be a header such as "
-                    + "tag,form,kc,ti,td,scan");
+        if (header != null && header.startsWith("\uFEFF")) {
+            header = header.substring(1);
         }
-        char sep = count(header, ';') > count(header, ',') ? ';' : ',';
-        CSVFormat format = CSVFormat.RFC4180.builder().setDelimiter(sep).setHeader().setSkipHeaderRecord(true)
-                .setIgnoreEmptyLines(true).setTrim(true).get();
+        if (header == null || header.isBlank()) {
+            throw new InputException(name + ":1: " + (header == null ? "the file is empty" : "the first line is blank")
+                    + "; the first line must be a header such as tag,form,kc,ti,td,scan");
+        }
+        this.separator = separator(header);
+        CSVFormat format = CSVFormat.RFC4180.builder().setDelimiter(separator).setIgnoreEmptyLines(false)
+                .setTrim(true).get();
+        this.columns = header(header, format);
+        // the header line is consumed: the parser's line 1 is the file's line 2
         this.parser = CSVParser.parse(br, format);
+        this.records = parser.iterator();
+    }
+
+    private List<String> header(String line, CSVFormat format) {
+        List<String> raw = new ArrayList<>();
+        try (CSVParser p = CSVParser.parse(line, format)) {
+            for (CSVRecord r : p) {
+                r.forEach(raw::add);
+                break;
+            }
+        } catch (IOException | UncheckedIOException e) {
+            throw new InputException(name + ":1: the header's quotes are not closed; write the column names"
+                    + " without quotes, such as tag,form,kc,ti,td");
+        }
+        List<String> cols = new ArrayList<>();
         List<String> problems = new ArrayList<>();
-        for (String h : parser.getHeaderNames()) {
-            String k = h.trim().toLowerCase(java.util.Locale.ROOT);
-            if (!PARAMETERS.contains(k) && !PROCESS.contains(k) && !OTHER.contains(k)) {
-                problems.add(name + ":1: " + h + ": unknown column; columns are tag, form, the parameters ("
-                        + String.join(", ", PARAMETERS.stream().sorted().toList()) + "), scan, pv_range, output_range,"
-                        + " process columns (" + String.join(", ", PROCESS.stream().sorted().toList())
-                        + "), target_form, target_scan");
+        Map<String, Integer> firstColumn = new HashMap<>();
+        for (int k = 0; k < raw.size(); k++) {
+            String h = raw.get(k).trim();
+            String key = h.toLowerCase(Locale.ROOT);
+            cols.add(key);
+            if (key.isEmpty()) {
+                continue; // a column without a name: allowed while its cells stay empty
+            }
+            Integer first = firstColumn.putIfAbsent(key, k + 1);
+            if (first != null) {
+                problems.add(name + ":1: " + key + ": columns " + first + " and " + (k + 1) + " are both named '" + h
+                        + "'; keep one of them (loopform does not choose between two values)");
+            } else if (!PARAMETERS.contains(key) && !PROCESS.contains(key) && !OTHER.contains(key)) {
+                problems.add(name + ":1: " + h + ": unknown column" + (raw.size() == 1 ? " (the header has a single"
+                        + " column: separate column names with ',' or ';')" : "") + "; columns are tag, form, the"
+                        + " parameters (" + String.join(", ", PARAMETERS.stream().sorted().toList()) + "), scan,"
+                        + " pv_range, output_range, process columns (" + String.join(", ", PROCESS.stream().sorted()
+                        .toList()) + "), target_form, target_scan");
             }
         }
         for (String need : List.of("tag", "form")) {
-            if (parser.getHeaderNames().stream().noneMatch(h -> h.trim().equalsIgnoreCase(need))) {
+            if (!firstColumn.containsKey(need)) {
                 problems.add(name + ":1: " + need + ": required column is missing from the header");
             }
         }
         if (!problems.isEmpty()) {
-            parser.close();
             throw new InputException(problems);
         }
-        this.records = parser.iterator();
+        return List.copyOf(cols);
     }
 
-    private static int count(String s, char c) {
-        int n = 0;
-        for (int k = 0; k < s.length(); k++) {
-            if (s.charAt(k) == c) {
-                n++;
+    /** The separator the header uses most, outside quotes: ',' unless ';' or tab is more frequent. */
+    static char separator(String header) {
+        int[] counts = new int[SEPARATORS.length];
+        boolean quoted = false;
+        for (int k = 0; k < header.length(); k++) {
+            char ch = header.charAt(k);
+            if (ch == '"') {
+                quoted = !quoted;
+            }
+            for (int s = 0; !quoted && s < SEPARATORS.length; s++) {
+                if (ch == SEPARATORS[s]) {
+                    counts[s]++;
+                }
             }
         }
-        return n;
+        int best = 0;
+        for (int s = 1; s < SEPARATORS.length; s++) {
+            if (counts[s] > counts[best]) {
+                best = s;
+            }
+        }
+        return SEPARATORS[best];
     }
 
-    /** Opens {@code path}; file-level problems (no file, bad header) are thrown at once. */
+    /** Opens {@code path}, once; file-level problems (no file, a folder, bad header) are thrown at once. */
     public static LoopCsvReader open(Path path, String shownName, LoopDefaults defaults) {
+        Utf8Reader in = TextInput.open(path, shownName);
         try {
             Path abs = path.toAbsolutePath();
-            return new LoopCsvReader(Files.newBufferedReader(path, StandardCharsets.UTF_8), shownName,
-                    abs.getParent(), defaults);
-        } catch (NoSuchFileException e) {
-            throw new InputException(shownName + ": no such file; check the path");
+            return new LoopCsvReader(in, in::bytesRead, shownName, abs.getParent(), defaults);
+        } catch (NotUtf8Exception e) {
+            closeQuietly(in);
+            throw e.toInput();
         } catch (IOException e) {
-            throw new InputException(shownName + ": cannot be read (" + e.getMessage() + ")");
+            closeQuietly(in);
+            throw TextInput.unreadable(e, shownName);
+        } catch (RuntimeException e) {
+            closeQuietly(in);
+            throw e;
+        }
+    }
+
+    private static void closeQuietly(Reader r) {
+        try {
+            r.close();
+        } catch (IOException ignored) {
+            // the file is given up on already
+        }
+    }
+
+    /**
+     * Reads CSV bytes from a stream once, as strict UTF-8 (bundled examples, pipes); forms given by
+     * path are resolved against {@code folder}.
+     */
+    public static LoopCsvReader of(InputStream stream, String shownName, Path folder, LoopDefaults defaults) {
+        Utf8Reader in = new Utf8Reader(stream, shownName);
+        try {
+            return new LoopCsvReader(in, in::bytesRead, shownName, folder, defaults);
+        } catch (NotUtf8Exception e) {
+            closeQuietly(in);
+            throw e.toInput();
+        } catch (IOException e) {
+            closeQuietly(in);
+            throw TextInput.unreadable(e, shownName);
         }
     }
 
     /** Reads CSV text (tests, bundled examples); forms given by path are resolved against {@code folder}. */
     public static LoopCsvReader of(Reader in, String shownName, Path folder, LoopDefaults defaults) {
         try {
-            return new LoopCsvReader(in, shownName, folder, defaults);
+            return new LoopCsvReader(in, () -> -1, shownName, folder, defaults);
         } catch (IOException e) {
             throw new InputException(shownName + ": cannot be read (" + e.getMessage() + ")");
         }
     }
 
+    /** Bytes read from the file so far (for progress), or -1 when the source does not count them. */
+    public long bytesRead() {
+        return bytesRead.getAsLong();
+    }
+
     @Override
     public boolean hasNext() {
-        try {
-            return records.hasNext();
-        } catch (UncheckedIOException | IllegalStateException e) {
-            throw new InputException(name + ": not valid CSV: " + e.getMessage());
+        while (pending == null) {
+            long before = parser.getCurrentLineNumber();
+            try {
+                if (!records.hasNext()) {
+                    return false;
+                }
+                CSVRecord r = records.next();
+                if (!(r.size() == 1 && r.get(0).isBlank())) {
+                    pending = r;
+                    pendingLine = before + 2;
+                }
+            } catch (UncheckedIOException | IllegalStateException e) {
+                throw notCsv(e, before + 2);
+            }
         }
+        return true;
+    }
+
+    private InputException notCsv(RuntimeException e, long line) {
+        Throwable c = e.getCause();
+        if (c instanceof NotUtf8Exception n) {
+            return n.toInput();
+        }
+        String m = c != null && c.getMessage() != null ? c.getMessage() : String.valueOf(e.getMessage());
+        String where = name + ":" + line + ": ";
+        if (m.contains("EOF reached before encapsulated token finished")) {
+            return new InputException(where + "a quote (\") opens a cell on this line and is never closed, so the"
+                    + " rest of the file would be one cell; close the quote, and double any quote inside a quoted"
+                    + " cell (\"\")");
+        }
+        if (m.contains("between encapsulated token and delimiter")) {
+            return new InputException(where + "text follows a closing quote (\") before the next separator; a"
+                    + " quoted cell must end at its closing quote: double a quote inside a quoted cell (\"\"), or"
+                    + " do not quote the cell");
+        }
+        if (c instanceof IOException io && !(c.getClass().getName().startsWith("org.apache.commons.csv"))) {
+            return TextInput.unreadable(io, name);
+        }
+        return new InputException(where + "not valid CSV near this line; check its quotes and separators");
     }
 
     @Override
@@ -146,23 +271,42 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         if (!hasNext()) {
             throw new NoSuchElementException();
         }
-        CSVRecord rec = records.next();
+        CSVRecord rec = pending;
+        pending = null;
         int i = index++;
-        // the parser has read this record (and no further) here: its line is the current line
-        String where = name + ":" + parser.getCurrentLineNumber();
+        String where = name + ":" + pendingLine;
+        int tagColumn = columns.indexOf("tag");
+        String tag = tagColumn < rec.size() ? rec.get(tagColumn).trim() : "";
+        if (rec.size() != columns.size()) {
+            return LoopRow.bad(i, tag, where, List.of(cellCount(where, rec)));
+        }
         Map<String, String> cells = new LinkedHashMap<>();
-        rec.toMap().forEach((k, v) -> {
-            if (v != null && !v.isBlank()) {
-                cells.put(k.trim().toLowerCase(java.util.Locale.ROOT), v.trim());
+        List<String> problems = new ArrayList<>();
+        for (int k = 0; k < rec.size(); k++) {
+            String key = columns.get(k);
+            String v = rec.get(k).trim();
+            if (v.isEmpty()) {
+                continue;
             }
-        });
-        String tag = cells.getOrDefault("tag", "");
+            if (key.isEmpty()) {
+                problems.add(where + ": column " + (k + 1) + " has no name in the header, but this row has a value"
+                        + " there ('" + v + "'); name the column, or empty its cells");
+            } else if (NUMERIC.contains(key) && DECIMAL_COMMA.matcher(v).find()) {
+                problems.add(where + ": " + key + ": '" + v + "' has a comma in a number; write decimals with a"
+                        + " point (1.5, not 1,5) and no thousands separators (loopform does not guess which was meant)");
+            } else {
+                cells.put(key, v);
+            }
+        }
+        if (!problems.isEmpty()) {
+            return LoopRow.bad(i, tag, where, problems);
+        }
         try {
             LoopSpec spec = row(cells, where);
-            String previous = firstSeen.putIfAbsent(spec.tag(), where);
-            if (previous != null) {
+            int previous = firstSeen.putIfAbsent(spec.tag(), (int) Math.min(Integer.MAX_VALUE, pendingLine));
+            if (previous >= 0) {
                 return LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag " + tag + " (first at "
-                        + previous + "); every loop needs its own tag"));
+                        + name + ":" + previous + "); every loop needs its own tag"));
             }
             return LoopRow.of(i, defaults.apply(spec));
         } catch (BadInput e) {
@@ -170,6 +314,31 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             return LoopRow.bad(i, tag, where, e.problems().stream()
                     .map(m -> m.startsWith(name + ":") ? m : where + ": " + m).toList());
         }
+    }
+
+    /** "14 cells, the header has 13", with the likely cause. */
+    private String cellCount(String where, CSVRecord rec) {
+        int cells = rec.size();
+        String s = where + ": " + cells + (cells == 1 ? " cell" : " cells") + ", the header has " + columns.size();
+        if (cells > columns.size()) {
+            return s + (separator == ','
+                    ? "; a decimal comma in a comma-separated file (1,5 for 1.5)? Write decimals with a point, and"
+                    + " quote any cell that holds a comma (\"A,B\"); the row is not read, as its values may have shifted"
+                    : "; a separator ('" + shown(separator) + "') inside a cell? Quote such cells; the row is not read,"
+                    + " as its values may have shifted");
+        }
+        for (char other : SEPARATORS) {
+            if (other != separator && rec.stream().anyMatch(v -> v.indexOf(other) >= 0)) {
+                return s + "; the row seems separated by '" + shown(other) + "' but the header by '" + shown(separator)
+                        + "'; use one separator in the whole file";
+            }
+        }
+        return s + "; a missing cell? Every row needs a cell for every column: leave a cell empty, but keep its"
+                + " separator";
+    }
+
+    private static String shown(char separator) {
+        return separator == '\t' ? "tab" : String.valueOf(separator);
     }
 
     private LoopSpec row(Map<String, String> c, String where) {

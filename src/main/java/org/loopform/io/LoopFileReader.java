@@ -12,7 +12,6 @@ import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;
 import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
-import org.loopform.units.BadInput;
 import org.loopform.units.Measure;
 import org.loopform.units.Span;
 import org.loopform.units.UnitException;
@@ -71,44 +70,14 @@ public final class LoopFileReader {
 
     /**
      * The loops of a YAML loop list as rows, in order: a block that cannot be read becomes a bad
-     * row with its problems, and so does a repeated tag; file-level problems are thrown.
+     * row with its problems, and so does a repeated tag; file-level problems are thrown. Reads the
+     * whole list into memory; {@link LoopYamlReader} streams it.
      */
     public static List<org.loopform.audit.LoopRow> rows(Path path, String shownName,
                                                          org.loopform.audit.LoopDefaults defaults) {
-        YamlNode root = YamlSource.read(path, shownName);
-        List<YamlNode> items;
-        if (root.isMapping() && root.get("loops").isPresent()) {
-            List<String> bad = root.unknownKeys(Set.of("loops"));
-            if (!bad.isEmpty()) {
-                throw new InputException(bad);
-            }
-            items = root.get("loops").get().items();
-        } else if (root.isMapping()) {
-            items = List.of(root);
-        } else {
-            throw new InputException(root.where() + "a loop list is a mapping with 'loops:' holding loop blocks");
-        }
         List<org.loopform.audit.LoopRow> rows = new ArrayList<>();
-        Map<String, String> seen = new LinkedHashMap<>();
-        for (int i = 0; i < items.size(); i++) {
-            YamlNode item = items.get(i);
-            String where = item.file() + ":" + item.line();
-            String tag = item.isMapping() && item.get("tag").isPresent() && item.get("tag").get().isScalar()
-                    ? item.get("tag").get().text() : "";
-            try {
-                LoopSpec spec = loop(item, defaults.targetForm() != null);
-                String first = seen.putIfAbsent(spec.tag(), where);
-                if (first != null) {
-                    rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag "
-                            + tag + " (first at " + first + "); every loop needs its own tag")));
-                } else {
-                    rows.add(org.loopform.audit.LoopRow.of(i, defaults.apply(spec)));
-                }
-            } catch (BadInput e) {
-                // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
-                rows.add(org.loopform.audit.LoopRow.bad(i, tag, where, e instanceof InputException ? e.problems()
-                        : e.problems().stream().map(m -> where + ": " + m).toList()));
-            }
+        try (LoopYamlReader r = LoopYamlReader.open(path, shownName, defaults)) {
+            r.forEachRemaining(rows::add);
         }
         return rows;
     }
@@ -118,7 +87,7 @@ public final class LoopFileReader {
         return loop(n, false);
     }
 
-    private static LoopSpec loop(YamlNode n, boolean targetOptional) {
+    static LoopSpec loop(YamlNode n, boolean targetOptional) {
         List<String> problems = new ArrayList<>(n.unknownKeys(LOOP_KEYS));
         if (!problems.isEmpty()) {
             throw new InputException(problems);

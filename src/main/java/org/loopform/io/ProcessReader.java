@@ -12,6 +12,7 @@ import org.loopform.process.IntegratingPlusDeadTime;
 import org.loopform.process.ProcessModel;
 import org.loopform.process.SecondOrderPlusDeadTime;
 import org.loopform.units.Measure;
+import org.loopform.units.Plausible;
 import org.loopform.units.Span;
 import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
@@ -184,10 +185,14 @@ public final class ProcessReader {
         if (!Double.isFinite(x)) {
             throw new InputException(where.apply(key) + "must be a finite number (got '" + s + "')");
         }
+        if (key.equals("gain") && !Plausible.gain(x)) {
+            throw new InputException(where.apply(key) + "must lie " + Plausible.gainRange() + " (got '" + s.trim()
+                    + "'); check the value and its units");
+        }
         return x;
     }
 
-    /** A time in seconds, > 0 (or >= 0 when {@code zeroAllowed}). */
+    /** A time in seconds, > 0 (or >= 0 when {@code zeroAllowed}), within {@link Plausible}'s limits. */
     private static double seconds(Map<String, String> v, String key, java.util.function.Function<String, String> where,
                                   boolean zeroAllowed) {
         String s = need(v, key, where);
@@ -200,6 +205,10 @@ public final class ProcessReader {
         if (!Double.isFinite(x) || x < 0 || x == 0 && !zeroAllowed) {
             throw new InputException(where.apply(key) + "must be a finite time " + (zeroAllowed ? ">= 0" : "> 0")
                     + " (got '" + s + "'); write it with its unit, e.g. 60 s or 1.5 min");
+        }
+        if (x != 0 && !Plausible.time(x)) {
+            throw new InputException(where.apply(key) + (zeroAllowed ? "must be 0 or lie " : "must lie ")
+                    + Plausible.timeRange() + " (got '" + s.trim() + "'); check the value and its unit");
         }
         return x;
     }
@@ -214,13 +223,20 @@ public final class ProcessReader {
         try {
             Measure m = Measure.parse(s);
             String u = m.unit().replace(" ", "");
+            double radPerSecond;
             if (u.isEmpty() || u.equals("rad/s") || u.equals("1/s")) {
-                return m.value();
+                radPerSecond = m.value();
+            } else if (u.equals("rad/min") || u.equals("1/min")) {
+                radPerSecond = m.value() / 60;
+            } else {
+                throw new InputException(where.apply(key) + "unknown unit '" + m.unit() + "'; write rad/s or rad/min");
             }
-            if (u.equals("rad/min") || u.equals("1/min")) {
-                return m.value() / 60;
+            // a natural frequency is the inverse of a time: the same limits, inverted
+            if (!Plausible.time(1 / radPerSecond)) {
+                throw new InputException(where.apply(key) + "must lie within 1e-7 rad/s to 1e6 rad/s (got '" + s.trim()
+                        + "'); check the value and its unit");
             }
-            throw new InputException(where.apply(key) + "unknown unit '" + m.unit() + "'; write rad/s or rad/min");
+            return radPerSecond;
         } catch (UnitException e) {
             throw new InputException(where.apply(key) + e.getMessage());
         }

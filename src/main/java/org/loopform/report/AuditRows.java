@@ -206,6 +206,7 @@ public final class AuditRows {
         }
         ArrayNode b = n.putArray("bad_row_problems");
         s.badRows().forEach(b::add);
+        n.put("bad_row_problems_not_listed", s.badRowProblemCount() - s.badRows().size());
         return n;
     }
 
@@ -241,8 +242,8 @@ public final class AuditRows {
         if (!s.badRows().isEmpty()) {
             sb.append(nl).append("Bad rows (not checked):").append(nl);
             s.badRows().stream().limit(20).forEach(p -> sb.append("  ").append(p).append(nl));
-            if (s.badRows().size() > 20) {
-                sb.append("  ... and ").append(s.badRows().size() - 20).append(" more in loops.csv").append(nl);
+            if (s.badRowProblemCount() > 20) {
+                sb.append("  ... and ").append(s.badRowProblemCount() - 20).append(" more in loops.csv").append(nl);
             }
         }
         if (outFolder != null) {

@@ -93,7 +93,7 @@ final class HtmlSummary {
         }
         sb.append("</div>\n</div>\n");
         writeWorst(sb, s.worst(), s.count(Verdict.FAIL) + s.count(Verdict.WARN));
-        writeBadRows(sb, s.badRows());
+        writeBadRows(sb, s.badRows(), s.badRowProblemCount());
         sb.append("</section>\n");
         w.write(sb.toString());
     }
@@ -127,7 +127,7 @@ final class HtmlSummary {
         sb.append("</tbody></table>\n");
     }
 
-    private static void writeBadRows(StringBuilder sb, List<String> problems) {
+    private static void writeBadRows(StringBuilder sb, List<String> problems, long total) {
         if (problems.isEmpty()) {
             return;
         }
@@ -138,8 +138,8 @@ final class HtmlSummary {
                     : Html.esc(p)).append("</li>\n");
         }
         sb.append("</ul>\n");
-        if (problems.size() > BAD_ROWS_LISTED) {
-            sb.append("<p class=\"note\">").append(problems.size() - BAD_ROWS_LISTED)
+        if (total > Math.min(problems.size(), BAD_ROWS_LISTED)) {
+            sb.append("<p class=\"note\">").append(total - Math.min(problems.size(), BAD_ROWS_LISTED))
                     .append(" more problems are listed in their rows' sections below.</p>\n");
         }
     }

@@ -58,12 +58,17 @@ public record Measure(double value, String unit) {
 
     /**
      * Reads a duration that must be positive, such as a scan time: as {@link #parseSeconds} with
-     * bare numbers in seconds, and an error saying so when it is zero or negative.
+     * bare numbers in seconds, and an error saying so when it is zero or negative or beyond the
+     * {@link Plausible} time limits.
      */
     public static double parsePositiveSeconds(String text) {
         double s = parseSeconds(text, TimeUnit.SECONDS);
         if (!(s > 0)) {
             throw new UnitException("a duration must be > 0 s (got '" + text.trim() + "')");
+        }
+        if (!Plausible.time(s)) {
+            throw new UnitException("a duration must lie " + Plausible.timeRange() + " (got '" + text.trim()
+                    + "'); check the value and its unit");
         }
         return s;
     }

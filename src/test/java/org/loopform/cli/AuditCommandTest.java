@@ -116,4 +116,55 @@ class AuditCommandTest {
         CliRun again = CliRun.of("demo", "--out", out.toString());
         assertThat(again.exitCode()).isEqualTo(0);
     }
+
+    @Test
+    void a_list_read_from_a_fifo_is_read_whole_and_its_last_value_is_not_cut() throws Exception {
+        Path fifo = dir.resolve("pipe.csv");
+        org.junit.jupiter.api.Assumptions.assumeTrue(new ProcessBuilder("mkfifo", fifo.toString()).start().waitFor() == 0,
+                "mkfifo is available");
+        StringBuilder sb = new StringBuilder("tag,form,pb,ti,td,scan\n");
+        for (int k = 0; k < 1999; k++) {
+            sb.append("TIC-").append(k).append(",series-pb-min,").append(50 + k % 200).append(",2.5,0,1 s\n");
+        }
+        sb.append("TIC-LAST,series-pb-min,180,2.5,0,1 s\n");
+        Thread writer = new Thread(() -> {
+            try {
+                Files.writeString(fifo, sb);
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        });
+        writer.start();
+        Path out = dir.resolve("out");
+        CliRun r = CliRun.of("audit", fifo.toString(), "--to", "series-pb-min", "--out", out.toString(), "--no-report");
+        writer.join(10_000);
+        assertThat(r.exitCode()).as(r.err()).isIn(0, 1);
+        assertThat(r.out()).startsWith("Audit of 2000 loops");
+        // series-pb-min to itself is the identity (pb = 100 / kc both ways: common practice)
+        assertThat(Files.readString(out.resolve("entry-sheet.csv"))).contains("TIC-LAST,series-pb-min,pb,180,%");
+    }
+
+    @Test
+    void bad_rows_go_to_stderr_too_and_an_audit_of_only_bad_rows_writes_no_folder() throws Exception {
+        Path out = dir.resolve("out");
+        CliRun r = CliRun.of("audit", csv("tag,form,kc,ti,td\nA,ideal,1,5,60,0\nB,ideal,abc,60,0\n").toString(),
+                "--to", "ideal", "--scan", "1s", "--out", out.toString());
+        assertThat(r.exitCode()).isEqualTo(2);
+        assertThat(r.err()).contains("loops.csv:2: 6 cells, the header has 5").contains("loops.csv:3: loop B: tuning: kc")
+                .contains("nothing was written");
+        assertThat(out).doesNotExist();
+        assertThat(Files.list(dir).map(p -> p.getFileName().toString())).containsExactly("loops.csv");
+    }
+
+    @Test
+    void many_bad_rows_are_counted_beyond_the_first_hundred() throws Exception {
+        StringBuilder sb = new StringBuilder("tag,form,kc,ti,td\n");
+        for (int k = 0; k < 250; k++) {
+            sb.append("T-").append(k).append(",ideal,x,60,0\n");
+        }
+        CliRun r = CliRun.of("audit", csv(sb.toString()).toString(), "--to", "ideal", "--scan", "1s");
+        assertThat(r.exitCode()).isEqualTo(2);
+        assertThat(r.err().lines().filter(l -> l.contains(": kc")).count()).isEqualTo(100);
+        assertThat(r.err()).contains("... and 150 more problems; 250 bad rows in all");
+    }
 }

@@ -97,4 +97,169 @@ class LoopCsvReaderTest {
         assertThat(rows.get(0).problems()).singleElement().asString().contains("target_form: required")
                 .contains("--to");
     }
+
+    /** A stream that cannot be re-read or rewound and hands out one byte a call, as a slow pipe does. */
+    private static final class TricklingStream extends java.io.InputStream {
+        private final byte[] bytes;
+        private int next;
+
+        TricklingStream(String text) {
+            this.bytes = text.getBytes(java.nio.charset.StandardCharsets.UTF_8);
+        }
+
+        @Override
+        public int read() {
+            return next < bytes.length ? bytes[next++] & 0xff : -1;
+        }
+
+        @Override
+        public int read(byte[] b, int off, int len) {
+            if (len == 0) {
+                return 0;
+            }
+            int c = read();
+            if (c < 0) {
+                return -1;
+            }
+            b[off] = (byte) c;
+            return 1;
+        }
+
+        @Override
+        public boolean markSupported() {
+            return false;
+        }
+    }
+
+    private static String bigList(int loops) {
+        StringBuilder sb = new StringBuilder("tag,form,pb,ti,td,scan,target_form\n");
+        for (int k = 0; k < loops - 1; k++) {
+            sb.append("TIC-").append(k).append(",series-pb-min,").append(50 + k % 200).append(",2.5,0,1 s,ideal\n");
+        }
+        return sb.append("TIC-LAST,series-pb-min,180,2.5,0,1 s,ideal\n").toString();
+    }
+
+    @Test
+    void a_stream_read_a_byte_at_a_time_gives_every_row_and_the_last_value_whole() {
+        List<LoopRow> rows = new ArrayList<>();
+        String text = bigList(2000);
+        try (LoopCsvReader r = LoopCsvReader.of(new TricklingStream(text), "pipe", null, LoopDefaults.NONE)) {
+            r.forEachRemaining(rows::add);
+            assertThat(r.bytesRead()).isEqualTo(text.getBytes(java.nio.charset.StandardCharsets.UTF_8).length);
+        }
+        assertThat(rows).hasSize(2000).allMatch(LoopRow::ok);
+        assertThat(rows.get(1999).loop().tuning()).containsEntry("pb", "180");
+        assertThat(rows.get(1999).where()).isEqualTo("pipe:2001");
+    }
+
+    @Test
+    void a_fifo_is_read_once_to_its_end() throws Exception {
+        java.nio.file.Path dir = java.nio.file.Files.createTempDirectory("loopform-fifo");
+        java.nio.file.Path fifo = dir.resolve("loops.csv");
+        org.junit.jupiter.api.Assumptions.assumeTrue(new ProcessBuilder("mkfifo", fifo.toString()).start().waitFor() == 0,
+                "mkfifo is available");
+        String text = bigList(2000);
+        Thread writer = new Thread(() -> {
+            try {
+                java.nio.file.Files.writeString(fifo, text);
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        });
+        writer.start();
+        List<LoopRow> rows = new ArrayList<>();
+        try (LoopCsvReader r = LoopCsvReader.open(fifo, "loops.csv", LoopDefaults.NONE)) {
+            r.forEachRemaining(rows::add);
+        } finally {
+            writer.join(10_000);
+            java.nio.file.Files.deleteIfExists(fifo);
+            java.nio.file.Files.deleteIfExists(dir);
+        }
+        assertThat(rows).hasSize(2000);
+        assertThat(rows.get(1999).tag()).isEqualTo("TIC-LAST");
+        assertThat(rows.get(1999).loop().tuning()).containsEntry("pb", "180");
+    }
+
+    @Test
+    void multi_byte_characters_split_across_reads_are_kept_and_lines_are_counted_past_quoted_line_breaks() {
+        List<LoopRow> rows = new ArrayList<>();
+        String text = "tag,form,kc,ti,td,target_form\n\"TIC-\u00b5\u00b0\nsecond line\",ideal,1,60,0,ideal\n\n"
+                + "TIC-2,ideal,1,60,0,ideal";
+        try (LoopCsvReader r = LoopCsvReader.of(new TricklingStream(text), "loops.csv", null, LoopDefaults.NONE)) {
+            r.forEachRemaining(rows::add);
+        }
+        assertThat(rows).hasSize(2);
+        assertThat(rows.get(0).tag()).isEqualTo("TIC-\u00b5\u00b0\nsecond line");
+        assertThat(rows.get(0).where()).isEqualTo("loops.csv:2");
+        // line 4 is blank and skipped; the last row has no line break after it
+        assertThat(rows.get(1).where()).isEqualTo("loops.csv:5");
+    }
+
+    @Test
+    void bytes_that_are_not_utf8_stop_the_file_at_their_line() {
+        byte[] latin1 = "tag,form,kc,ti,td\nTIC-1,ideal,1,60,0\nTIC-\u00e9,ideal,1,60,0\n"
+                .getBytes(java.nio.charset.StandardCharsets.ISO_8859_1);
+        assertThatThrownBy(() -> {
+            try (LoopCsvReader r = LoopCsvReader.of(new java.io.ByteArrayInputStream(latin1), "loops.csv", null,
+                    LoopDefaults.NONE)) {
+                r.forEachRemaining(x -> { });
+            }
+        }).isInstanceOf(InputException.class).hasMessageStartingWith("loops.csv:3: not UTF-8 text (byte 0xE9")
+                .hasMessageContaining("save the file as UTF-8");
+    }
+
+    @Test
+    void a_row_with_more_or_fewer_cells_than_the_header_is_a_bad_row_that_says_so() {
+        List<LoopRow> rows = read("tag,form,kc,ti,td,target_form\n"
+                + "TIC-1,ideal,1,5,60,0,ideal\n"
+                + "TIC-2,ideal,1\n"
+                + "TIC-3;ideal;1;60;0;ideal\n"
+                + "TIC-4,ideal,1.5,60,0,ideal\n");
+        assertThat(rows).hasSize(4);
+        assertThat(rows.get(0).problems()).singleElement().asString()
+                .startsWith("loops.csv:2: 7 cells, the header has 6; a decimal comma");
+        assertThat(rows.get(1).problems()).singleElement().asString()
+                .startsWith("loops.csv:3: 3 cells, the header has 6; a missing cell?");
+        assertThat(rows.get(2).problems()).singleElement().asString()
+                .startsWith("loops.csv:4: 1 cell, the header has 6; the row seems separated by ';'");
+        assertThat(rows.get(3).ok()).isTrue();
+    }
+
+    @Test
+    void a_decimal_comma_in_a_semicolon_file_is_a_bad_row_not_a_guess() {
+        List<LoopRow> rows = read("tag;form;kc;ti;td;target_form\nTIC-1;ideal;1,5;60;0;ideal\n");
+        assertThat(rows.get(0).problems()).singleElement().asString()
+                .startsWith("loops.csv:2: kc: '1,5' has a comma in a number; write decimals with a point");
+    }
+
+    @Test
+    void a_tab_separated_file_is_read() {
+        List<LoopRow> rows = read("tag\tform\tkc\tti\ttd\ttarget_form\nTIC-1\tideal\t1.5\t60\t0\tideal\n");
+        assertThat(rows.get(0).ok()).isTrue();
+        assertThat(rows.get(0).loop().tuning()).containsEntry("kc", "1.5");
+    }
+
+    @Test
+    void a_column_named_twice_stops_the_file_naming_both_columns() {
+        assertThatThrownBy(() -> read("tag,form,kc,ti,td,TI\nA,ideal,1,60,0,30\n"))
+                .isInstanceOf(InputException.class)
+                .hasMessageContaining("loops.csv:1: ti: columns 4 and 6 are both named 'TI'");
+    }
+
+    @Test
+    void an_unnamed_column_is_allowed_while_empty_and_a_bad_row_when_it_holds_a_value() {
+        List<LoopRow> rows = read("tag,form,kc,ti,td,target_form,\nA,ideal,1,60,0,ideal,\nB,ideal,1,60,0,ideal,7\n");
+        assertThat(rows.get(0).ok()).isTrue();
+        assertThat(rows.get(1).problems()).singleElement().asString()
+                .startsWith("loops.csv:3: column 7 has no name in the header, but this row has a value there ('7')");
+    }
+
+    @Test
+    void an_unclosed_quote_stops_the_file_at_the_line_it_opens() {
+        assertThatThrownBy(() -> read("tag,form,kc,ti,td,target_form\nA,ideal,1,60,0,ideal\n\"B,ideal,1,60,0,ideal\n"
+                + "C,ideal,1,60,0,ideal\n"))
+                .isInstanceOf(InputException.class)
+                .hasMessageStartingWith("loops.csv:3: a quote (\") opens a cell on this line and is never closed")
+                .hasMessageNotContaining("org.apache");
+    }
 }
