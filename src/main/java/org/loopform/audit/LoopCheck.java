@@ -12,6 +12,7 @@ import org.loopform.analysis.StepMetrics;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.CheckRules;
 import org.loopform.findings.Finding;
+import org.loopform.findings.ResponseRules;
 import org.loopform.form.AlgorithmKind;
 import org.loopform.form.AntiWindup;
 import org.loopform.form.Conversion;
@@ -98,6 +99,7 @@ public final class LoopCheck {
         ClosedLoopRun targetRun = null;
         double refStep = 0;
         double refError = 0;
+        StepTest steps = null;
         if (loop.hasProcess()) {
             ProcessModel p = loop.process();
             double low = lawBand.lowRadPerSecond() / 10;
@@ -127,6 +129,7 @@ public final class LoopCheck {
                 targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
             }
             targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
+            steps = test;
             if (sourceScan != null) {
                 designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
                         sourceScan), p.sampled(sourceScan), test);
@@ -162,6 +165,11 @@ public final class LoopCheck {
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
                 discretization, mismatchBand.highRadPerSecond()), policy));
+        if (targetRun != null) {
+            findings.addAll(ResponseRules.evaluate(new ResponseRules.Inputs(designMargins, targetMargins, ds, ts, dl, tl,
+                    h, targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1), steps.loadStepPercent()),
+                    policy));
+        }
         if (targetRun != null && conversion.enteredLaw().terms().i() == 0) {
             double simulatedSeconds = targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1);
             findings.add(new Finding(org.loopform.findings.Topic.ROBUSTNESS, org.loopform.findings.Severity.INFO,
