@@ -9,6 +9,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.Conversion;
 import org.loopform.law.LawDeviation;
 import org.loopform.simulate.ClosedLoopRun;
+import org.loopform.simulate.StepTest;
 
 /**
  * Everything a check found out about one loop: the conversion, the design and target loops'
@@ -18,6 +19,8 @@ import org.loopform.simulate.ClosedLoopRun;
  * {@code referenceErrorPercent} is the largest PV change the extrapolation made, % of span: an
  * estimate of the finer run's error, and so a bound on the extrapolated one's. Both are 0 when
  * the design loop runs the source's own algorithm at its own scan (nothing is approximated).
+ * {@code steps} are the setpoint and load steps both loops were tested with (null without a
+ * process model): the standard ones, or smaller ones that keep the target's output off its limits.
  */
 public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversion,
                           LoopMargins designMargins, LoopMargins targetMargins,
@@ -26,7 +29,7 @@ public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversi
                           ClosedLoopRun designRun, ClosedLoopRun targetRun,
                           LawDeviation mismatch, ControllerMismatch.Curve mismatchCurve,
                           double referenceStepSeconds, double referenceErrorPercent,
-                          List<Finding> findings) {
+                          List<Finding> findings, StepTest steps) {
 
     public CheckResult {
         findings = List.copyOf(findings);

@@ -100,6 +100,7 @@ public final class LoopCheck {
         double refStep = 0;
         double refError = 0;
         StepTest steps = null;
+        List<Finding> stepFindings = List.of();
         if (loop.hasProcess()) {
             ProcessModel p = loop.process();
             double low = lawBand.lowRadPerSecond() / 10;
@@ -128,8 +129,12 @@ public final class LoopCheck {
                     target.algorithm(), h), sampledTarget, test)) {
                 targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
             }
-            targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
-            steps = test;
+            StepChoice choice = StepChoice.run(test, target, entered, h, sampledTarget,
+                    targetMargins.stability() != org.loopform.analysis.ClosedLoopStability.UNSTABLE);
+            targetRun = choice.targetRun();
+            steps = choice.steps();
+            stepFindings = choice.findings();
+            test = steps;
             if (sourceScan != null) {
                 designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
                         sourceScan), p.sampled(sourceScan), test);
@@ -165,6 +170,7 @@ public final class LoopCheck {
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
                 discretization, mismatchBand.highRadPerSecond()), policy));
+        findings.addAll(stepFindings);
         if (targetRun != null) {
             findings.addAll(ResponseRules.evaluate(new ResponseRules.Inputs(designMargins, targetMargins, ds, ts, dl, tl,
                     h, targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1), steps.loadStepPercent()),
@@ -179,7 +185,7 @@ public final class LoopCheck {
                     + " design and target, not with other loops."));
         }
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
-                mismatch, curve, refStep, refError, findings);
+                mismatch, curve, refStep, refError, findings, steps);
     }
 
     /**
