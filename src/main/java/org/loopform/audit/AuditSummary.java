@@ -41,7 +41,7 @@ public final class AuditSummary {
             case LIMITS -> 8;
             case SAMPLING -> 7;
             case DERIVATIVE -> 6;
-            case DISCRETIZATION -> 5;
+            case DISCRETIZATION, RESPONSE -> 5;
             case WINDUP -> 4;
             case ROUNDING -> 3;
             case REALIZABILITY -> 2;

@@ -10,6 +10,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.Conversion;
 import org.loopform.law.LawDeviation;
 import org.loopform.simulate.ClosedLoopRun;
+import org.loopform.simulate.StepTest;
 
 /**
  * Everything a check found out about one loop: the conversion, the design and target loops'
@@ -20,6 +21,8 @@ import org.loopform.simulate.ClosedLoopRun;
  * estimate of the finer run's error, and so a bound on the extrapolated one's. The stabilities
  * are decided from the closed-loop poles (null without a process model). Both are 0 when
  * the design loop runs the source's own algorithm at its own scan (nothing is approximated).
+ * {@code steps} are the setpoint and load steps both loops were tested with (null without a
+ * process model): the standard ones, or smaller ones that keep the target's output off its limits.
  */
 public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversion,
                           LoopMargins designMargins, LoopMargins targetMargins,
@@ -28,7 +31,8 @@ public record CheckResult(LoopSpec loop, double scanSeconds, Conversion conversi
                           ClosedLoopRun designRun, ClosedLoopRun targetRun,
                           LawDeviation mismatch, ControllerMismatch.Curve mismatchCurve,
                           double referenceStepSeconds, double referenceErrorPercent,
-                          List<Finding> findings, LoopStability designStability, LoopStability targetStability) {
+                          List<Finding> findings, StepTest steps, LoopStability designStability,
+                          LoopStability targetStability) {
 
     public CheckResult {
         findings = List.copyOf(findings);

@@ -17,6 +17,7 @@ import org.loopform.analysis.StepMetrics;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.CheckRules;
 import org.loopform.findings.Finding;
+import org.loopform.findings.ResponseRules;
 import org.loopform.form.AlgorithmKind;
 import org.loopform.form.AntiWindup;
 import org.loopform.form.Conversion;
@@ -105,6 +106,8 @@ public final class LoopCheck {
         LoopStability targetStability = null;
         double refStep = 0;
         double refError = 0;
+        StepTest steps = null;
+        List<Finding> stepFindings = List.of();
         if (loop.hasProcess()) {
             ProcessModel p = loop.process();
             double low = lawBand.lowRadPerSecond() / 10;
@@ -137,7 +140,11 @@ public final class LoopCheck {
                     ? horizon(designMargins, targetMargins, designLaw, p) : horizonSeconds;
             horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
             StepTest test = StepTest.standard(horizon);
-            targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
+            StepChoice choice = StepChoice.run(test, target, entered, h, sampledTarget, targetStability.isStable());
+            targetRun = choice.targetRun();
+            steps = choice.steps();
+            stepFindings = choice.findings();
+            test = steps;
             if (sourceScan != null) {
                 designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
                         sourceScan), p.sampled(sourceScan), test);
@@ -173,6 +180,12 @@ public final class LoopCheck {
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
                 discretization, mismatchBand.highRadPerSecond()), policy));
+        findings.addAll(stepFindings);
+        if (targetRun != null) {
+            findings.addAll(ResponseRules.evaluate(new ResponseRules.Inputs(designMargins, targetMargins, ds, ts, dl, tl,
+                    h, targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1), steps.loadStepPercent()),
+                    policy));
+        }
         if (targetRun != null && conversion.enteredLaw().terms().i() == 0) {
             double simulatedSeconds = targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1);
             findings.add(new Finding(org.loopform.findings.Topic.ROBUSTNESS, org.loopform.findings.Severity.INFO,
@@ -182,7 +195,7 @@ public final class LoopCheck {
                     + " design and target, not with other loops."));
         }
         return new CheckResult(loop, h, conversion, designMargins, targetMargins, ds, dl, ts, tl, designRun, targetRun,
-                mismatch, curve, refStep, refError, findings, designStability, targetStability);
+                mismatch, curve, refStep, refError, findings, steps, designStability, targetStability);
     }
 
     /**

@@ -1,6 +1,7 @@
 package org.loopform.cli;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import org.loopform.audit.CheckResult;
@@ -9,6 +10,7 @@ import org.loopform.audit.LoopSpec;
 import org.loopform.audit.ScanSweep;
 import org.loopform.audit.Verdict;
 import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.PolicyKey;
 import org.loopform.io.AtomicFiles;
 import org.loopform.io.LoopFileReader;
 import org.loopform.io.PolicyFileReader;
@@ -17,7 +19,9 @@ import org.loopform.report.CheckReport;
 import org.loopform.report.LoopPlots;
 import org.loopform.report.SweepReport;
 import org.loopform.units.Measure;
+import org.loopform.units.Numbers;
 import org.loopform.units.TimeUnit;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -58,9 +62,9 @@ final class CheckCommand implements Callable<Integer> {
             + " responses and of the controller mismatch.")
     Path plot;
 
-    @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds overriding the defaults"
-            + " (keys: sampling_warn, sampling_fail, derivative_nh_td_warn, derivative_lead_kept_warn, ms_warn,"
-            + " ms_increase_warn, phase_margin_warn_deg, gain_margin_warn, mismatch_warn_db, mismatch_warn_deg).")
+    @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds overriding the defaults,"
+            + " one 'key: number' a line (the keys are listed below). A fail threshold must not be laxer than its"
+            + " warning; an unstable loop fails whatever the policy.")
     Path policyFile;
 
     @Mixin
@@ -93,6 +97,57 @@ final class CheckCommand implements Callable<Integer> {
         }
         out.flush();
         return r.verdict() == Verdict.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+    }
+
+    /** Help section key of the policy key list. */
+    static final String POLICY_SECTION = "policyKeys";
+
+    /**
+     * Adds the policy keys, with their defaults, units and meanings, to {@code check}'s help, just
+     * before its footer: the list is read from the catalogue ({@link PolicyKey}), so it stays complete.
+     */
+    static void describePolicy(CommandLine check) {
+        check.getHelpSectionMap().put(POLICY_SECTION, help -> policyHelp(help.commandSpec().usageMessage().width()));
+        List<String> keys = new ArrayList<>(check.getHelpSectionKeys());
+        keys.add(keys.indexOf(CommandLine.Model.UsageMessageSpec.SECTION_KEY_FOOTER), POLICY_SECTION);
+        check.setHelpSectionKeys(keys);
+    }
+
+    /** "Policy keys (--policy FILE), default in brackets:" and one wrapped entry a key. */
+    static String policyHelp(int width) {
+        StringBuilder sb = new StringBuilder();
+        String nl = System.lineSeparator();
+        sb.append(nl).append("Policy keys for --policy FILE, with their defaults (sources: README, 'Check policy'):")
+                .append(nl);
+        for (PolicyKey k : PolicyKey.values()) {
+            String head = "  " + k.id() + " = " + Numbers.plain(k.defaultValue()) + " " + k.unit() + ": ";
+            wrap(sb, head + k.meaning() + ".", width, "      ");
+        }
+        return sb.toString();
+    }
+
+    private static void wrap(StringBuilder sb, String text, int width, String indent) {
+        String nl = System.lineSeparator();
+        int column = 0;
+        boolean first = true;
+        for (String word : text.split(" ", -1)) {
+            if (word.isEmpty() && first) {
+                sb.append(' ');
+                column++;
+                continue;
+            }
+            if (!first && column + 1 + word.length() > width) {
+                sb.append(nl).append(indent);
+                column = indent.length();
+            } else if (!first) {
+                sb.append(' ');
+                column++;
+            }
+            sb.append(word);
+            column += word.length();
+            first = false;
+        }
+        sb.append(nl);
     }
 
     static double[] range(String text) {

@@ -76,6 +76,7 @@ public final class Main implements Runnable {
             c.getErr().println("Try '" + c.getCommandSpec().qualifiedName() + " --help' for usage.");
             return ExitCodes.BAD_INPUT;
         });
+        CheckCommand.describePolicy(cl.getSubcommands().get("check"));
         cl.getSubcommands().get("generate-completion").getCommandSpec().usageMessage().hidden(false);
         return cl;
     }

@@ -1,78 +1,172 @@
 package org.loopform.findings;
 
+import java.util.EnumMap;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import org.loopform.units.BadInput;
 
 /**
- * The thresholds the deployment checker holds figures against. Defaults and their sources:
- * <ul>
- *   <li>{@code sampling_warn} 0.5 and {@code sampling_fail} 1.0, scan time times crossover
- *       (rad): h wc of about 0.15 to 0.5 is the usual choice (Astrom & Wittenmark,
- *       Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory); at h wc = 1 the hold
- *       alone costs about 29 deg of phase (its delay h/2, Wittenmark, Astrom & Arzen 2002, verified);</li>
- *   <li>{@code derivative_nh_td_warn} 0.6: N h / Td of about 0.2 to 0.6 (same book, from memory);</li>
- *   <li>{@code derivative_lead_kept_warn} 0.5: half the continuous derivative's phase lead at crossover
- *       kept (common practice);</li>
- *   <li>{@code ms_warn} 2.0: Ms of 1.3 to 2 is reasonable (Astrom & Hagglund 1995, as cited in Octave's
- *       control package documentation - verified);</li>
- *   <li>{@code ms_increase_warn} 0.1: the target's Ms more than 10 % above the design's (common practice);</li>
- *   <li>{@code phase_margin_warn_deg} 30 and {@code gain_margin_warn} 2 (common practice: PM 30 to 60 deg,
- *       GM 2 to 5);</li>
- *   <li>{@code mismatch_warn_db} 1 and {@code mismatch_warn_deg} 5: the sampled controller's response
- *       against the design law over the tuning's band (loopform policy, common practice).</li>
- * </ul>
+ * The thresholds the deployment checker holds figures against, one value for each
+ * {@link PolicyKey}; the keys, defaults, units and sources are listed there.
+ *
+ * <p>Defaults and their sources, in short: the scan rules {@code sampling_warn} 0.5 rad and
+ * {@code sampling_fail} 1 rad of h wc and {@code derivative_nh_td_warn} 0.6 (Astrom &amp;
+ * Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory; Wittenmark, Astrom
+ * &amp; Arzen 2002, verified, for the hold's h/2 delay); robustness: {@code ms_warn} 2 (Ms 1.3 to 2
+ * is reasonable: Astrom &amp; Hagglund 1995 as cited by Octave's control package and Wikipedia's
+ * "Sensitivity (control systems)" - verified), {@code ms_fail} 3, {@code phase_margin_fail_deg}
+ * 20 and {@code gain_margin_fail} 1.5 (loopform policy: the margins Ms 3 guarantees,
+ * GM &gt;= Ms/(Ms-1) = 1.5 and PM &gt;= 2 arcsin(1/(2 Ms)) = 19.2 deg, Skogestad &amp; Postlethwaite,
+ * Multivariable Feedback Control, ch. 2 - from memory; "we usually aim for a gain margin of
+ * &gt; 1.5 and a phase margin above 30-45 deg", ControlSystems.jl documentation, analysis example -
+ * verified), {@code phase_margin_warn_deg} 30 and {@code gain_margin_warn} 2 (common practice:
+ * PM 30 to 60 deg, GM 2 to 5); the delay margin in target scans, fail below 1 and warn below 2
+ * (loopform policy: one or two scans of added latency must not destabilize the loop); the
+ * response rules (common practice) hold the target's responses to the design's.
+ *
+ * <p>Invariants: every value finite and &gt;= 0, and each fail threshold on the bad side of its
+ * warning (or equal), so that a loop fails only where it would also warn.
  */
-public record CheckPolicy(double samplingWarn, double samplingFail, double derivativeNhTdWarn,
-                          double derivativeLeadKeptWarn, double msWarn, double msIncreaseWarn,
-                          double phaseMarginWarnDegrees, double gainMarginWarn, double mismatchWarnDb,
-                          double mismatchWarnDegrees) {
+public record CheckPolicy(Map<PolicyKey, Double> values) {
 
-    public CheckPolicy {
-        double[] all = {samplingWarn, samplingFail, derivativeNhTdWarn, derivativeLeadKeptWarn, msWarn, msIncreaseWarn,
-                phaseMarginWarnDegrees, gainMarginWarn, mismatchWarnDb, mismatchWarnDegrees};
-        for (double v : all) {
-            if (!(v >= 0) || !Double.isFinite(v)) {
-                throw new IllegalArgumentException("policy thresholds must be finite and >= 0 (got " + v + ")");
-            }
-        }
-        if (samplingFail < samplingWarn) {
-            throw new IllegalArgumentException("sampling_fail (" + samplingFail + ") must not be below sampling_warn ("
-                    + samplingWarn + ")");
-        }
+    /** A fail key, the warn key it must not be laxer than, and whether higher figures are worse. */
+    private record Pair(PolicyKey fail, PolicyKey warn, boolean higherIsWorse) {
     }
 
-    public static final CheckPolicy DEFAULT = new CheckPolicy(0.5, 1.0, 0.6, 0.5, 2.0, 0.1, 30, 2, 1, 5);
+    private static final List<Pair> PAIRS = List.of(
+            new Pair(PolicyKey.SAMPLING_FAIL, PolicyKey.SAMPLING_WARN, true),
+            new Pair(PolicyKey.MS_FAIL, PolicyKey.MS_WARN, true),
+            new Pair(PolicyKey.PHASE_MARGIN_FAIL_DEG, PolicyKey.PHASE_MARGIN_WARN_DEG, false),
+            new Pair(PolicyKey.GAIN_MARGIN_FAIL, PolicyKey.GAIN_MARGIN_WARN, false),
+            new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false));
 
-    /** The policy keys as a policy file writes them, with this policy's values. */
+    public CheckPolicy {
+        EnumMap<PolicyKey, Double> copy = new EnumMap<>(PolicyKey.class);
+        for (PolicyKey k : PolicyKey.values()) {
+            Double v = values.get(k);
+            if (v == null) {
+                throw new PolicyException(k.id() + ": missing from the policy", k);
+            }
+            if (!(v >= 0) || !Double.isFinite(v)) {
+                throw new PolicyException(k.id() + ": must be a finite number >= 0 (got " + v + ")", k);
+            }
+            copy.put(k, v);
+        }
+        for (Pair p : PAIRS) {
+            double fail = copy.get(p.fail());
+            double warn = copy.get(p.warn());
+            if (p.higherIsWorse() ? fail < warn : fail > warn) {
+                throw new PolicyException(p.fail().id() + ": must not be " + (p.higherIsWorse() ? "below "
+                        : "above ") + p.warn().id() + " (got " + plain(fail) + " against " + plain(warn) + " "
+                        + p.warn().unit() + "): a loop must fail only where it would also warn; "
+                        + (p.higherIsWorse() ? "raise " : "lower ") + p.fail().id() + " or "
+                        + (p.higherIsWorse() ? "lower " : "raise ") + p.warn().id() + ".", p.fail(), p.warn());
+            }
+        }
+        values = java.util.Collections.unmodifiableMap(copy);
+    }
+
+    /** The defaults of {@link PolicyKey}. */
+    public static final CheckPolicy DEFAULT = defaults();
+
+    private static CheckPolicy defaults() {
+        Map<PolicyKey, Double> m = new EnumMap<>(PolicyKey.class);
+        for (PolicyKey k : PolicyKey.values()) {
+            m.put(k, k.defaultValue());
+        }
+        return new CheckPolicy(m);
+    }
+
+    public double get(PolicyKey key) {
+        return values.get(key);
+    }
+
+    /** The policy keys as a policy file writes them, with this policy's values, in catalogue order. */
     public Map<String, Double> asMap() {
         Map<String, Double> m = new LinkedHashMap<>();
-        m.put("sampling_warn", samplingWarn);
-        m.put("sampling_fail", samplingFail);
-        m.put("derivative_nh_td_warn", derivativeNhTdWarn);
-        m.put("derivative_lead_kept_warn", derivativeLeadKeptWarn);
-        m.put("ms_warn", msWarn);
-        m.put("ms_increase_warn", msIncreaseWarn);
-        m.put("phase_margin_warn_deg", phaseMarginWarnDegrees);
-        m.put("gain_margin_warn", gainMarginWarn);
-        m.put("mismatch_warn_db", mismatchWarnDb);
-        m.put("mismatch_warn_deg", mismatchWarnDegrees);
+        values.forEach((k, v) -> m.put(k.id(), v));
         return m;
     }
 
-    /** This policy with the keys of {@code overrides} replaced; an unknown key is an error naming the known ones. */
+    /**
+     * This policy with the keys of {@code overrides} (as a policy file writes them) replaced; an
+     * unknown key is an error naming the known ones.
+     */
     public CheckPolicy with(Map<String, Double> overrides) {
-        Map<String, Double> m = asMap();
+        Map<PolicyKey, Double> m = new EnumMap<>(values);
         for (var e : overrides.entrySet()) {
-            if (!m.containsKey(e.getKey())) {
+            PolicyKey k = PolicyKey.byId(e.getKey());
+            if (k == null) {
                 throw new BadInput(e.getKey() + ": unknown policy key; known keys are "
-                        + String.join(", ", m.keySet()));
+                        + String.join(", ", asMap().keySet()));
             }
-            m.put(e.getKey(), e.getValue());
+            m.put(k, e.getValue());
         }
-        return new CheckPolicy(m.get("sampling_warn"), m.get("sampling_fail"), m.get("derivative_nh_td_warn"),
-                m.get("derivative_lead_kept_warn"), m.get("ms_warn"), m.get("ms_increase_warn"),
-                m.get("phase_margin_warn_deg"), m.get("gain_margin_warn"), m.get("mismatch_warn_db"),
-                m.get("mismatch_warn_deg"));
+        return new CheckPolicy(m);
+    }
+
+    private static String plain(double v) {
+        return org.loopform.units.Numbers.plain(v);
+    }
+
+    public double samplingWarn() {
+        return get(PolicyKey.SAMPLING_WARN);
+    }
+
+    public double samplingFail() {
+        return get(PolicyKey.SAMPLING_FAIL);
+    }
+
+    public double derivativeNhTdWarn() {
+        return get(PolicyKey.DERIVATIVE_NH_TD_WARN);
+    }
+
+    public double derivativeLeadKeptWarn() {
+        return get(PolicyKey.DERIVATIVE_LEAD_KEPT_WARN);
+    }
+
+    public double msWarn() {
+        return get(PolicyKey.MS_WARN);
+    }
+
+    public double msFail() {
+        return get(PolicyKey.MS_FAIL);
+    }
+
+    public double msIncreaseWarn() {
+        return get(PolicyKey.MS_INCREASE_WARN);
+    }
+
+    public double phaseMarginWarnDegrees() {
+        return get(PolicyKey.PHASE_MARGIN_WARN_DEG);
+    }
+
+    public double phaseMarginFailDegrees() {
+        return get(PolicyKey.PHASE_MARGIN_FAIL_DEG);
+    }
+
+    public double gainMarginWarn() {
+        return get(PolicyKey.GAIN_MARGIN_WARN);
+    }
+
+    public double gainMarginFail() {
+        return get(PolicyKey.GAIN_MARGIN_FAIL);
+    }
+
+    public double delayMarginWarnScans() {
+        return get(PolicyKey.DELAY_MARGIN_WARN_SCANS);
+    }
+
+    public double delayMarginFailScans() {
+        return get(PolicyKey.DELAY_MARGIN_FAIL_SCANS);
+    }
+
+    public double mismatchWarnDb() {
+        return get(PolicyKey.MISMATCH_WARN_DB);
+    }
+
+    public double mismatchWarnDegrees() {
+        return get(PolicyKey.MISMATCH_WARN_DEG);
     }
 }

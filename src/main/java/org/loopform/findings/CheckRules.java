@@ -23,6 +23,8 @@ public final class CheckRules {
             + "(from memory)";
     static final String MS_SOURCE = "Astrom & Hagglund 1995, as cited in Octave control package docs: Ms 1.3 to 2";
     static final String COMMON = "common practice";
+    static final String MS_BOUNDS = "Skogestad & Postlethwaite, Multivariable Feedback Control, ch. 2 (from memory):"
+            + " GM >= Ms/(Ms-1), PM >= 2 arcsin(1/(2 Ms))";
 
     private CheckRules() {
     }
@@ -160,36 +162,76 @@ public final class CheckRules {
         if (t == null) {
             return;
         }
-        if (t.stability() == ClosedLoopStability.UNSTABLE || !t.marginsPositive()) {
-            out.add(new Finding(Topic.ROBUSTNESS, Severity.FAIL, t.phaseMarginDegrees().isPresent()
-                    ? t.phaseMarginDegrees().getAsDouble() : null, 0.0, "deg", COMMON,
-                    "The target loop is unstable as it will run (negative margin): do not deploy this tuning."));
+        if (t.stability() == ClosedLoopStability.UNSTABLE) {
+            // StabilityRule fails it from the closed-loop poles, whatever the policy; its margins describe
+            // nothing to hold against thresholds
             return;
         }
-        if (t.maximumSensitivity() > p.msWarn()) {
-            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.maximumSensitivity(), p.msWarn(), "ratio", MS_SOURCE,
-                    "The target loop's maximum sensitivity Ms is " + Numbers.significant(t.maximumSensitivity(), 3)
-                            + ", above " + Numbers.plain(p.msWarn()) + ": it amplifies disturbances near "
-                            + Numbers.significant(t.maximumSensitivityRadPerSecond(), 3) + " rad/s and is close to"
-                            + " instability."));
+        double ms = t.maximumSensitivity();
+        Severity msSeverity = ms > p.msFail() ? Severity.FAIL : ms > p.msWarn() ? Severity.WARN : null;
+        if (msSeverity != null) {
+            boolean fail = msSeverity == Severity.FAIL;
+            out.add(new Finding(Topic.ROBUSTNESS, msSeverity, ms, fail ? p.msFail() : p.msWarn(), "ratio",
+                    fail ? PolicyKey.MS_FAIL.source() : MS_SOURCE, "The target loop's maximum sensitivity Ms is "
+                    + Numbers.significant(ms, 3) + ", above " + Numbers.plain(fail ? p.msFail() : p.msWarn())
+                    + (fail ? " (the fail threshold)" : "") + ": it amplifies disturbances near "
+                    + Numbers.significant(t.maximumSensitivityRadPerSecond(), 3) + " rad/s and "
+                    + (fail ? "is at the edge of instability; do not deploy this tuning: retune or scan faster."
+                    : "is close to instability.")));
         }
         LoopMargins d = in.designLoop();
-        if (d != null && t.maximumSensitivity() > d.maximumSensitivity() * (1 + p.msIncreaseWarn())) {
-            double rise = t.maximumSensitivity() / d.maximumSensitivity() - 1;
+        if (d != null && ms > d.maximumSensitivity() * (1 + p.msIncreaseWarn())) {
+            double rise = ms / d.maximumSensitivity() - 1;
             out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, 100 * rise, 100 * p.msIncreaseWarn(), "%", COMMON,
                     "Robustness is lost in the migration: Ms rises from " + Numbers.significant(d.maximumSensitivity(), 3)
-                            + " (design) to " + Numbers.significant(t.maximumSensitivity(), 3) + " (target)."));
+                            + " (design) to " + Numbers.significant(ms, 3) + " (target)."));
         }
-        if (t.phaseMarginDegrees().isPresent() && t.phaseMarginDegrees().getAsDouble() < p.phaseMarginWarnDegrees()) {
-            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.phaseMarginDegrees().getAsDouble(),
-                    p.phaseMarginWarnDegrees(), "deg", COMMON, "The target loop's phase margin is "
-                    + Numbers.significant(t.phaseMarginDegrees().getAsDouble(), 3) + " deg, below "
-                    + Numbers.plain(p.phaseMarginWarnDegrees()) + " deg."));
+        if (t.phaseMarginDegrees().isPresent()) {
+            double pm = t.phaseMarginDegrees().getAsDouble();
+            boolean fail = pm < p.phaseMarginFailDegrees();
+            if (fail || pm < p.phaseMarginWarnDegrees()) {
+                double limit = fail ? p.phaseMarginFailDegrees() : p.phaseMarginWarnDegrees();
+                out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, pm, limit, "deg",
+                        (fail ? PolicyKey.PHASE_MARGIN_FAIL_DEG : PolicyKey.PHASE_MARGIN_WARN_DEG).source(),
+                        "The target loop's phase margin is " + Numbers.significant(pm, 3) + " deg, below "
+                        + Numbers.plain(limit) + " deg" + (fail ? " (the fail threshold): it will ring badly and is at"
+                        + " the edge of instability; do not deploy this tuning: retune or scan faster." : ".")));
+            }
         }
-        if (t.gainMargin().isPresent() && t.gainMargin().getAsDouble() < p.gainMarginWarn()) {
-            out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, t.gainMargin().getAsDouble(), p.gainMarginWarn(),
-                    "ratio", COMMON, "The target loop's gain margin is " + Numbers.significant(t.gainMargin().getAsDouble(), 3)
-                    + ", below " + Numbers.plain(p.gainMarginWarn()) + "."));
+        if (t.gainMargin().isPresent()) {
+            double gm = t.gainMargin().getAsDouble();
+            boolean fail = gm < p.gainMarginFail();
+            if (fail || gm < p.gainMarginWarn()) {
+                double limit = fail ? p.gainMarginFail() : p.gainMarginWarn();
+                out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, gm, limit, "ratio",
+                        (fail ? PolicyKey.GAIN_MARGIN_FAIL : PolicyKey.GAIN_MARGIN_WARN).source(),
+                        "The target loop's gain margin is " + Numbers.significant(gm, 3) + ", below "
+                        + Numbers.plain(limit) + (fail ? " (the fail threshold): a process gain " + Numbers.significant(
+                        100 * (gm - 1), 2) + " % higher than modelled makes it unstable; do not deploy this tuning:"
+                        + " retune or scan faster." : ".")));
+            }
+        }
+        delayMargin(in, t, p, out);
+    }
+
+    /** The delay margin in target scans: how many scans of added latency the loop stands. */
+    private static void delayMargin(Inputs in, LoopMargins t, CheckPolicy p, List<Finding> out) {
+        if (t.delayMarginSeconds().isEmpty()) {
+            return;
+        }
+        double dmSeconds = t.delayMarginSeconds().getAsDouble();
+        double scans = dmSeconds / in.scanSeconds();
+        boolean fail = scans < p.delayMarginFailScans();
+        if (fail || scans < p.delayMarginWarnScans()) {
+            double limit = fail ? p.delayMarginFailScans() : p.delayMarginWarnScans();
+            out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, scans, limit, "scans",
+                    (fail ? PolicyKey.DELAY_MARGIN_FAIL_SCANS : PolicyKey.DELAY_MARGIN_WARN_SCANS).source(),
+                    "The target loop's delay margin is " + Numbers.significant(dmSeconds, 3) + " s, "
+                    + Numbers.significant(scans, 3) + " scans of " + Numbers.plain(in.scanSeconds()) + " s, below "
+                    + Numbers.plain(limit) + " scans" + (fail ? " (the fail threshold): one scan of added latency (a"
+                    + " late input or output update) makes it unstable; do not deploy this tuning: retune or scan"
+                    + " faster." : ": a little added latency (late input or output updates) would bring it close to"
+                    + " instability.")));
         }
     }
 

@@ -2,9 +2,12 @@ package org.loopform.findings;
 
 import java.util.Locale;
 
-/** What a finding is about; the JSON name is the lower-case constant name. */
+/**
+ * What a finding is about; the JSON name is the lower-case constant name. {@code RESPONSE}: the
+ * target's step responses are worse than the design's (overshoot, settling, IAE, load peak).
+ */
 public enum Topic {
-    REALIZABILITY, FILTER, SAMPLING, DERIVATIVE, DISCRETIZATION, ROUNDING, LIMITS, ROBUSTNESS, WINDUP, UNITS,
+    REALIZABILITY, FILTER, SAMPLING, DERIVATIVE, DISCRETIZATION, ROUNDING, LIMITS, ROBUSTNESS, RESPONSE, WINDUP, UNITS,
     /** The controller's direction (direct or reverse acting) against the process's. */
     ACTION,
     /** Closed-loop stability, decided from the closed-loop poles. */

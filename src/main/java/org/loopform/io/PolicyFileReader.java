@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.PolicyException;
 
 /** Reads a policy file: a flat YAML mapping of threshold names to numbers, overriding the defaults. */
 public final class PolicyFileReader {
@@ -16,16 +17,19 @@ public final class PolicyFileReader {
         YamlNode root = YamlSource.read(path, shownName);
         List<String> problems = new ArrayList<>(root.unknownKeys(CheckPolicy.DEFAULT.asMap().keySet()));
         Map<String, Double> m = new LinkedHashMap<>();
+        Map<String, YamlNode> entries = root.entries();
         if (problems.isEmpty()) {
-            root.entries().forEach((k, v) -> {
+            entries.forEach((k, v) -> {
                 try {
                     double x = Double.parseDouble(v.text().trim());
                     if (!(x >= 0) || !Double.isFinite(x)) {
-                        problems.add(v.where() + "must be a number >= 0 (got '" + v.text() + "')");
+                        problems.add(v.where() + "must be a number >= 0 (got '" + v.text() + "'); see loopform check"
+                                + " --help for the key's meaning and default.");
                     }
                     m.put(k, x);
                 } catch (NumberFormatException e) {
-                    problems.add(v.where() + "must be a number (got '" + v.text() + "')");
+                    problems.add(v.where() + "must be a number (got '" + v.text() + "'); write a plain number such as "
+                            + CheckPolicy.DEFAULT.asMap().get(k) + ", without a unit.");
                 }
             });
         }
@@ -40,6 +44,15 @@ public final class PolicyFileReader {
         if (!problems.isEmpty()) {
             throw new InputException(problems);
         }
-        return CheckPolicy.DEFAULT.with(m);
+        try {
+            return CheckPolicy.DEFAULT.with(m);
+        } catch (PolicyException e) {
+            // point at the key the message names where the file sets it, else at the top of the file
+            int line = e.keys().stream().map(k -> entries.get(k.id())).filter(java.util.Objects::nonNull)
+                    .findFirst().map(YamlNode::line).orElse(root.line());
+            throw new InputException(shownName + ":" + line + ": " + e.getMessage());
+        } catch (org.loopform.units.BadInput e) {
+            throw new InputException(shownName + ":" + root.line() + ": " + e.getMessage());
+        }
     }
 }

@@ -65,7 +65,8 @@ public final class CheckReport {
             t.row("output travel (load)", fmt(dl.outputTravelPercent(), 4), fmt(tl.outputTravelPercent(), 4), "%");
             sb.append(t.render(2));
             var sp = r.targetRun().setpoint();
-            sb.append("  Steps of 10 % (setpoint) and 10 % at the process input (load) about 50 %, over ")
+            sb.append("  Steps of ").append(fmt(r.steps().setpointStepPercent(), 3)).append(" % (setpoint) and ")
+                    .append(fmt(r.steps().loadStepPercent(), 3)).append(" % at the process input (load) about 50 %, over ")
                     .append(fmt(sp.timeSeconds(sp.size() - 1), 4)).append(" s; ");
             if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
                 sb.append("the continuous design loop is simulated on ").append(fmt(r.referenceStepSeconds(), 3))
@@ -172,6 +173,9 @@ public final class CheckReport {
         mm.put("gain_db", r.mismatch().gainDb());
         mm.put("phase_deg", r.mismatch().phaseDegrees());
         if (r.hasProcess()) {
+            ObjectNode steps = n.putObject("steps");
+            steps.put("setpoint_pct", r.steps().setpointStepPercent());
+            steps.put("load_pct", r.steps().loadStepPercent());
             ObjectNode ref = n.putObject("reference");
             ref.put("step_s", r.referenceStepSeconds());
             ref.put("pv_error_pct", r.referenceErrorPercent());

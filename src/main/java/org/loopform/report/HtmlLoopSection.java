@@ -179,7 +179,8 @@ final class HtmlLoopSection {
         row(sb, "output travel (load)", Html.fig(dl.outputTravelPercent(), 4), Html.fig(tl.outputTravelPercent(), 4),
                 "%");
         var sp = r.targetRun().setpoint();
-        sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of 10 % and load step of 10 % at the process"
+        sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of ").append(Html.fig(r.steps().setpointStepPercent(), 3))
+                .append(" % and load step of ").append(Html.fig(r.steps().loadStepPercent(), 3)).append(" % at the process"
                 + " input, about 50 %, over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
         boolean designUnstable = !r.designStability().isStable();
         sb.append(" Stability from the closed-loop poles: design ").append(r.designStability().verdict().word())

@@ -46,8 +46,9 @@ class LoopCheckEdgeCasesTest {
         assertThat(r.designMargins().stability()).isEqualTo(ClosedLoopStability.UNSTABLE);
         assertThat(r.targetMargins().stability()).isEqualTo(ClosedLoopStability.UNSTABLE);
         assertThat(r.verdict()).isEqualTo(Verdict.FAIL);
+        assertThat(r.targetStability().verdict()).isEqualTo(org.loopform.analysis.Stability.UNSTABLE);
         assertThat(r.findings()).anySatisfy(f -> {
-            assertThat(f.topic()).isEqualTo(Topic.ROBUSTNESS);
+            assertThat(f.topic()).isEqualTo(Topic.STABILITY);
             assertThat(f.severity()).isEqualTo(Severity.FAIL);
         });
     }

@@ -1,0 +1,53 @@
+package org.loopform.audit;
+
+import java.util.List;
+import org.loopform.findings.Finding;
+import org.loopform.findings.SaturationRules;
+import org.loopform.form.FormDefinition;
+import org.loopform.form.PidSetting;
+import org.loopform.lti.SampledStateSpace;
+import org.loopform.scan.ScanController;
+import org.loopform.simulate.ClosedLoopRun;
+import org.loopform.simulate.LoopSimulator;
+import org.loopform.simulate.StepTest;
+import org.loopform.simulate.StepTest.OutputExtremes;
+
+/**
+ * The steps a check tests the loops with, the target loop's run under them, and what the output
+ * limits did. The target loop runs the standard steps first; when its output reaches a limit,
+ * the linear (unlimited) loop runs them once, the steps are scaled to keep the output off the
+ * limits ({@link StepTest#scaledToStayWithin}) and the target loop runs again. An unstable loop
+ * keeps the standard steps: no step keeps it linear.
+ */
+record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> findings) {
+
+    StepChoice {
+        findings = List.copyOf(findings);
+    }
+
+    static StepChoice run(StepTest standard, FormDefinition target, PidSetting entered, double scanSeconds,
+                          SampledStateSpace process, boolean stable) {
+        ClosedLoopRun run = LoopSimulator.run(ScanController.of(target, entered, scanSeconds), process, standard);
+        if (!stable) {
+            return new StepChoice(standard, run, List.of());
+        }
+        double low = target.algorithm().outputLowPercent();
+        double high = target.algorithm().outputHighPercent();
+        OutputExtremes linearSetpoint = null;
+        OutputExtremes linearLoad = null;
+        StepTest steps = standard;
+        if (OutputExtremes.of(run.setpoint()).reaches(low, high) || OutputExtremes.of(run.load()).reaches(low, high)) {
+            ClosedLoopRun linear = LoopSimulator.run(ScanController.unlimited(entered, target.filter().placement(),
+                    target.algorithm(), scanSeconds), process, standard);
+            linearSetpoint = OutputExtremes.of(linear.setpoint());
+            linearLoad = OutputExtremes.of(linear.load());
+            steps = standard.scaledToStayWithin(linearSetpoint, linearLoad, low, high);
+            if (!steps.equals(standard)) {
+                run = LoopSimulator.run(ScanController.of(target, entered, scanSeconds), process, steps);
+            }
+        }
+        List<Finding> findings = SaturationRules.evaluate(new SaturationRules.Inputs(standard, steps, run.setpoint(),
+                run.load(), linearSetpoint, linearLoad, low, high));
+        return new StepChoice(steps, run, findings);
+    }
+}

@@ -1,0 +1,108 @@
+package org.loopform.findings;
+
+/**
+ * One threshold of the check policy: the key a policy file writes, its default, the unit it is
+ * in, what it means and where the default comes from. The catalogue is the one place a key is
+ * declared; {@link CheckPolicy}, the policy file reader and {@code loopform check --help} read it.
+ * A rule "fires" when a figure is worse than its threshold; for a {@code _fail} key that means
+ * severity fail, for a {@code _warn} key severity warn.
+ */
+public enum PolicyKey {
+    SAMPLING_WARN("sampling_warn", 0.5, "rad", "scan time x target crossover above which the scan is slow",
+            CheckRules.ASTROM_WITTENMARK + ": h wc of about 0.15 to 0.5"),
+    SAMPLING_FAIL("sampling_fail", 1.0, "rad", "scan time x target crossover above which the scan fails",
+            "at h wc = 1 the hold alone costs about 29 deg at crossover (its h/2 delay, "
+                    + CheckRules.WITTENMARK_2002 + ")"),
+    DERIVATIVE_NH_TD_WARN("derivative_nh_td_warn", 0.6, "ratio", "N h / Td above which the scan is coarse for the"
+            + " derivative filter", CheckRules.ASTROM_WITTENMARK + ": N h / Td of about 0.2 to 0.6"),
+    DERIVATIVE_LEAD_KEPT_WARN("derivative_lead_kept_warn", 0.5, "fraction", "share of the continuous derivative's"
+            + " phase lead at crossover the sampled derivative must keep", CheckRules.COMMON),
+    MS_WARN("ms_warn", 2.0, "ratio", "target maximum sensitivity Ms above which the loop warns", CheckRules.MS_SOURCE),
+    MS_FAIL("ms_fail", 3.0, "ratio", "target Ms above which the loop fails (the Nyquist curve within 1/3 of -1)",
+            "loopform policy (common practice): Ms 3 still guarantees GM >= 1.5 and PM >= 19.2 deg by "
+                    + CheckRules.MS_BOUNDS),
+    MS_INCREASE_WARN("ms_increase_warn", 0.1, "fraction", "rise of Ms from design to target above which robustness is"
+            + " lost in the migration", CheckRules.COMMON),
+    PHASE_MARGIN_WARN_DEG("phase_margin_warn_deg", 30, "deg", "target phase margin below which the loop warns",
+            "common practice: PM 30 to 60 deg; ControlSystems.jl docs, analysis example: 'above 30-45 deg'"),
+    PHASE_MARGIN_FAIL_DEG("phase_margin_fail_deg", 20, "deg", "target phase margin below which the loop fails",
+            "loopform policy (common practice): the phase margin Ms 3 guarantees, 2 arcsin(1/6) = 19.2 deg, by "
+                    + CheckRules.MS_BOUNDS),
+    GAIN_MARGIN_WARN("gain_margin_warn", 2, "ratio", "target gain margin below which the loop warns",
+            "common practice: GM 2 to 5"),
+    GAIN_MARGIN_FAIL("gain_margin_fail", 1.5, "ratio", "target gain margin below which the loop fails",
+            "ControlSystems.jl docs, analysis example: 'we usually aim for a gain margin of > 1.5'; also the GM"
+                    + " Ms 3 guarantees, 3/(3-1), by " + CheckRules.MS_BOUNDS),
+    DELAY_MARGIN_WARN_SCANS("delay_margin_warn_scans", 2, "scans", "target delay margin, in target scans, below which"
+            + " the loop warns", "loopform policy (common practice): two scans of added latency must not make the"
+            + " loop unstable"),
+    DELAY_MARGIN_FAIL_SCANS("delay_margin_fail_scans", 1, "scans", "target delay margin, in target scans, below which"
+            + " the loop fails", "loopform policy (common practice): one late I/O update (one scan of added"
+            + " latency) must not make the loop unstable"),
+    MISMATCH_WARN_DB("mismatch_warn_db", 1, "dB", "gain departure of the controller as run from its own law over"
+            + " its band above which the discretization warns", "loopform policy (common practice)"),
+    MISMATCH_WARN_DEG("mismatch_warn_deg", 5, "deg", "phase departure of the controller as run from its own law"
+            + " above which the discretization warns", "loopform policy (common practice)"),
+    OVERSHOOT_RISE_WARN("overshoot_rise_warn", 0.5, "fraction", "setpoint overshoot worse than the design's by more"
+            + " than this share AND by more than overshoot_rise_warn_pct warns", CheckRules.COMMON),
+    OVERSHOOT_RISE_WARN_PCT("overshoot_rise_warn_pct", 2, "% of step", "the absolute part of the overshoot rule,"
+            + " in percentage points of the setpoint step", CheckRules.COMMON),
+    SETTLING_RISE_WARN("settling_rise_warn", 0.5, "fraction", "setpoint settling time (2 % band) longer than the"
+            + " design's by more than this share AND by more than settling_rise_warn_scans warns; a target that"
+            + " does not settle where the design does warns too", CheckRules.COMMON),
+    SETTLING_RISE_WARN_SCANS("settling_rise_warn_scans", 2, "scans", "the absolute part of the settling rule, in"
+            + " target scans (the resolution of the target's settling time)", CheckRules.COMMON),
+    IAE_RISE_WARN("iae_rise_warn", 0.25, "fraction", "setpoint-step or load-step IAE above the design's by more than"
+            + " this share warns", CheckRules.COMMON),
+    LOAD_PEAK_RISE_WARN("load_peak_rise_warn", 0.25, "fraction", "load-step peak deviation above the design's by more"
+            + " than this share AND by more than load_peak_rise_warn_pct warns", CheckRules.COMMON),
+    LOAD_PEAK_RISE_WARN_PCT("load_peak_rise_warn_pct", 1, "% of step", "the absolute part of the load peak rule, in"
+            + " percent of the load step", CheckRules.COMMON);
+
+    private final String id;
+    private final double defaultValue;
+    private final String unit;
+    private final String meaning;
+    private final String source;
+
+    PolicyKey(String id, double defaultValue, String unit, String meaning, String source) {
+        this.id = id;
+        this.defaultValue = defaultValue;
+        this.unit = unit;
+        this.meaning = meaning;
+        this.source = source;
+    }
+
+    /** The key as a policy file writes it, e.g. {@code phase_margin_fail_deg}. */
+    public String id() {
+        return id;
+    }
+
+    public double defaultValue() {
+        return defaultValue;
+    }
+
+    /** The unit the value is in ("ratio", "deg", "scans", "fraction"...). */
+    public String unit() {
+        return unit;
+    }
+
+    public String meaning() {
+        return meaning;
+    }
+
+    /** Where the default comes from. */
+    public String source() {
+        return source;
+    }
+
+    /** The key whose {@link #id()} is {@code id}, or null. */
+    public static PolicyKey byId(String id) {
+        for (PolicyKey k : values()) {
+            if (k.id.equals(id)) {
+                return k;
+            }
+        }
+        return null;
+    }
+}
