@@ -901,12 +901,12 @@ def special_loops():
     # sampled loops the scan makes unstable (the design loop is stable)
     add("unstable-sampled", "FOPDT 1, 10 s, no dead time; PI kc 3 ti 8 s; scan 7 s", fopdt(1, 10, 0), 3, 8, 0, 10,
         "ideal", 7)
-    add("unstable-sampled", "FOPDT 1, 10 s, 1 s; PI kc 4 ti 8 s; scan 5 s", fopdt(1, 10, 1), 4, 8, 0, 10, "ideal", 5)
-    add("unstable-sampled", "PID whose derivative kicks at a slow scan", fopdt(1, 10, 1), 5, 6, 1.5, 10, "ideal", 1.5)
+    add("unstable-sampled", "FOPDT 1, 10 s, 1 s; PI kc 4 ti 8 s; scan 6 s", fopdt(1, 10, 1), 4, 8, 0, 10, "ideal", 6)
+    add("unstable-sampled", "PID whose derivative kicks at a slow scan", fopdt(1, 10, 1), 5, 6, 1.5, 10, "ideal", 4.5)
     add("unstable-sampled", "SOPDT PID, slow scan", sopdt(1, 0.7, 0.5, 0.5), 2.5, 4, 0.8, 10, "ideal-pb-repeats", 1.2)
-    add("unstable-sampled", "integrating PI, scan of twice the dead time", integrating(0.1, 1), 3, 8, 0, 10,
-        "ideal", 2.0)
-    add("unstable-sampled", "FOPDT PI, velocity form, slow scan", fopdt(2, 30, 3), 3, 25, 0, 10, "ideal-velocity", 12)
+    add("unstable-sampled", "integrating PI, scan of eight times the dead time", integrating(0.1, 1), 3, 8, 0, 10,
+        "ideal", 8.0)
+    add("unstable-sampled", "FOPDT PI, velocity form, slow scan", fopdt(2, 30, 3), 3, 25, 0, 10, "ideal-velocity", 15)
 
     # negative process gain: a reverse-acting controller is positive feedback; a direct-acting one is not
     neg = [("fopdt", fopdt(-1, 60, 5), 2, 60, 0, 1.0),
