@@ -787,11 +787,11 @@ def random_loops(rng):
                 ultimate(process)
             except Fragile:
                 continue
-            loop_sign = 1.0
-            if rng.uniform() < 0.1:
-                process = flip_process_sign(process)
-                loop_sign = -1.0  # a direct-acting controller on a negative-gain process: negative feedback
+            loop_sign = -1.0 if rng.uniform() < 0.1 else 1.0
             kc, ti, td, n, scan = random_tuning(rng, process, loop_sign)
+            if loop_sign < 0:
+                # a direct-acting controller on a negative-gain process: negative feedback, tuned as its mirror
+                process = flip_process_sign(process)
             name = "random-%s-%03d" % (model, made + 1)
             lp = make_loop(name, "random-" + model, "random %s, %s" % (model, "PID" if td > 0 else "PI"),
                            process, kc, ti, td, n, target_for(rng, n, td, ti), scan)
@@ -968,10 +968,6 @@ def fmt(key, figures):
 
 
 def main():
-    os.makedirs(LOOP_DIR, exist_ok=True)
-    for old in os.listdir(LOOP_DIR):
-        if old.endswith(".yaml"):
-            os.remove(os.path.join(LOOP_DIR, old))
     loops = []
     for lp in special_loops():
         lp["design"] = design_figures(lp)
@@ -980,6 +976,11 @@ def main():
               "GM", lp["target_figures"].get("gain_margin"), file=sys.stderr)
         loops.append(lp)
     loops.extend(random_loops(np.random.default_rng(SEED)))
+    # only now that every loop has its reference: replace the old files
+    os.makedirs(LOOP_DIR, exist_ok=True)
+    for old in os.listdir(LOOP_DIR):
+        if old.endswith(".yaml"):
+            os.remove(os.path.join(LOOP_DIR, old))
     rows = []
     for lp in loops:
         with open(os.path.join(LOOP_DIR, lp["name"] + ".yaml"), "w") as f:
