@@ -27,6 +27,8 @@ public final class SampledStability {
     /** Beyond e^40 (or below e^-40) the magnitude is reported at the bound. */
     static final double LARGEST_LOG_RADIUS = 40;
     static final int BASE_POINTS = 16;
+    /** A circle this close (relative) to an open-loop pole's radius is moved just outside it. */
+    static final double POLE_CLEARANCE = 1e-9;
     static final int POINTS_PER_DECADE = 8;
     private static final double[] WINDOW = {-8, -4, -2, -1, -0.5, -0.25, 0, 0.25, 0.5, 1, 2, 4, 8};
 
@@ -51,6 +53,14 @@ public final class SampledStability {
         double largest = Math.exp(-bisect(counter, false));
         return new LoopStability(Stability.STABLE, StabilityTest.SAMPLED_POLES, 0, OptionalDouble.of(largest),
                 "Every closed-loop pole lies inside the unit circle (largest |z| = " + magnitude(largest) + ").");
+    }
+
+    /**
+     * The number of closed-loop poles outside the circle {@code |z| = 1 + radiusOffset} (the count the
+     * verdict and the bisection use).
+     */
+    public static int polesOutside(SampledLoop loop, double radiusOffset) {
+        return new Counter(loop).outside(radiusOffset);
     }
 
     private static String magnitude(double r) {
@@ -104,6 +114,13 @@ public final class SampledStability {
 
         /** Closed-loop poles outside {@code |z| = 1 + offset}. */
         int outside(double offset) {
+            // a circle through an open-loop pole has no winding number: step just outside the pole
+            for (Complex p : poles) {
+                double r = p.abs();
+                if (Math.abs(r - (1 + offset)) <= POLE_CLEARANCE * r) {
+                    offset += 2 * POLE_CLEARANCE * r;
+                }
+            }
             double radius = 1 + offset;
             int openLoopOutside = 0;
             List<Double> points = new ArrayList<>();
@@ -134,7 +151,8 @@ public final class SampledStability {
             }
             double[] ts = points.stream().mapToDouble(Double::doubleValue).filter(t -> t >= 0 && t <= Math.PI)
                     .toArray();
-            ArgumentWalk walk = new ArgumentWalk((theta, out) -> loop.at(offset, theta, out), loop.delayScans());
+            final double circle = offset;
+            ArgumentWalk walk = new ArgumentWalk((theta, out) -> loop.at(circle, theta, out), loop.delayScans());
             double turns = walk.change(ts) / Math.PI;
             long whole = Math.round(turns);
             if (walk.unresolved() || Math.abs(turns - whole) > 0.25) {
