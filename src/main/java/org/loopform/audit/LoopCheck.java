@@ -100,8 +100,7 @@ public final class LoopCheck {
         double refError = 0;
         if (loop.hasProcess()) {
             ProcessModel p = loop.process();
-            double low = lawBand.lowRadPerSecond() / 10;
-            double high = continuousTop(designLaw, p);
+            double low = bandBottom(lawBand, p);
             Double sourceScan = loop.sourceScanSeconds();
             if (sourceScan != null) {
                 PidSetting src = conversion.sourceSetting();
@@ -111,7 +110,10 @@ public final class LoopCheck {
                 designMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / sourceScan),
                         sourceScan)).analyze(sampledLoop(sourcePulse, sampled));
             } else {
-                designMargins = MarginAnalysis.over(FrequencyBand.of(low, high)).analyze(continuousLoop(designLaw, p));
+                LoopResponse design = continuousLoop(designLaw, p);
+                FrequencyBand band = MarginAnalysis.reachingNegligibleGain(design,
+                        FrequencyBand.of(low, Math.max(continuousTop(designLaw, p), 10 * low)));
+                designMargins = MarginAnalysis.over(band).analyze(design);
             }
             SampledStateSpace sampledTarget = p.sampled(h);
             targetMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / h), h))
@@ -124,7 +126,7 @@ public final class LoopCheck {
             if (targetMargins.stability() == org.loopform.analysis.ClosedLoopStability.UNDETERMINED
                     && LoopSimulator.runsAway(ScanController.unlimited(entered, target.filter().placement(),
                     target.algorithm(), h), sampledTarget, test)) {
-                targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
+                targetMargins = targetMargins.withStability(org.loopform.analysis.ClosedLoopStability.UNSTABLE);
             }
             targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
             if (sourceScan != null) {
@@ -190,12 +192,6 @@ public final class LoopCheck {
         return new FrequencyBand(low, top);
     }
 
-    private static LoopMargins withStability(LoopMargins m, org.loopform.analysis.ClosedLoopStability s) {
-        return new LoopMargins(m.gainMargin(), m.phaseCrossoverRadPerSecond(), m.phaseMarginDegrees(),
-                m.crossoverRadPerSecond(), m.delayMarginSeconds(), m.maximumSensitivity(),
-                m.maximumSensitivityRadPerSecond(), s);
-    }
-
     private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
         try {
             return FormCodec.decode(target, FormCodec.asText(c.entered()), ctx, "target");
@@ -231,22 +227,65 @@ public final class LoopCheck {
     }
 
     /**
-     * Top of the continuous band: a decade above the law's corners and above the process's own
-     * time scale (its dead time, and the sum of its pole magnitudes, den[n-1]/den[n] in ascending
-     * powers), and no more than 20/L with dead time L (the phase then turns too fast for the grid).
+     * Bottom of the band, design and target alike: a decade below the band the tuning implies
+     * (two below its lowest corner) and two decades below the process's lowest nonzero corner,
+     * so an integrating or conditionally stable loop's phase has settled on its low-frequency
+     * branch there and no crossing lies below.
      */
-    private static double continuousTop(ControlLaw law, ProcessModel p) {
+    static double bandBottom(FrequencyBand lawBand, ProcessModel p) {
+        double low = lawBand.lowRadPerSecond() / 10;
+        var rational = p.rationalPart();
+        low = Math.min(low, lowestCorner(rational.numerator()) / 100);
+        low = Math.min(low, lowestCorner(rational.denominator()) / 100);
+        return low;
+    }
+
+    /**
+     * Top of the continuous band before it is raised to where |L| is negligible: a decade above
+     * the band the tuning implies (so past the derivative filter corner 1/Tf) and a decade above
+     * the process's highest corner and 1/L with dead time L. The margin search's grid follows the
+     * dead-time phase however fast it turns, so the top is not cut for it.
+     */
+    static double continuousTop(ControlLaw law, ProcessModel p) {
         double high = TuningBand.implied(law.terms(), 0).highRadPerSecond() * 10;
-        var den = p.rationalPart().denominator();
-        int n = den.degree();
-        if (n >= 1 && den.coefficient(n) != 0) {
-            high = Math.max(high, 10 * Math.abs(den.coefficient(n - 1) / den.coefficient(n)));
-        }
+        var rational = p.rationalPart();
+        high = Math.max(high, 10 * highestCorner(rational.numerator()));
+        high = Math.max(high, 10 * highestCorner(rational.denominator()));
         if (p.deadTimeSeconds() > 0) {
             high = Math.max(high, 10 / p.deadTimeSeconds());
-            high = Math.min(high, 20 / p.deadTimeSeconds());
         }
         return high;
+    }
+
+    /**
+     * An upper bound on the magnitudes of the roots of {@code a}, Fujiwara's bound
+     * {@code 2 max_i |a_(n-i) / a_n|^(1/i)} (M. Fujiwara, Tohoku Math. J. 10, 1916 - from memory;
+     * at most twice the largest root for a polynomial with real negative roots). 0 for a constant.
+     */
+    static double highestCorner(org.loopform.lti.Polynomial a) {
+        int n = a.degree();
+        double bound = 0;
+        for (int i = 1; i <= n; i++) {
+            bound = Math.max(bound, Math.pow(Math.abs(a.coefficient(n - i) / a.coefficient(n)), 1.0 / i));
+        }
+        return 2 * bound;
+    }
+
+    /**
+     * A lower bound on the magnitudes of the nonzero roots of {@code a}: Fujiwara's bound applied
+     * to the reversed polynomial, its roots' reciprocals. Infinity when {@code a} has no nonzero root.
+     */
+    static double lowestCorner(org.loopform.lti.Polynomial a) {
+        int n = a.degree();
+        int m = 0;
+        while (m < n && a.coefficient(m) == 0) {
+            m++; // roots at the origin (integrators) have no corner
+        }
+        double bound = 0;
+        for (int i = 1; i <= n - m; i++) {
+            bound = Math.max(bound, Math.pow(Math.abs(a.coefficient(m + i) / a.coefficient(m)), 1.0 / i));
+        }
+        return bound > 0 ? 1 / (2 * bound) : Double.POSITIVE_INFINITY;
     }
 
     private static LoopResponse continuousLoop(ControlLaw law, ProcessModel p) {

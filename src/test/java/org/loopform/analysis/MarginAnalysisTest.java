@@ -46,14 +46,26 @@ class MarginAnalysisTest {
             assertThat(margins.stability()).isEqualTo(ClosedLoopStability.STABLE);
         }
 
-        // Derived exactly from Ku = 8 for 1/(s + 1)^3: a P gain k gives GM = 8/k at w = sqrt(3).
+        // Derived exactly from Ku = 8 for 1/(s + 1)^3: a P gain k gives the factor 8/k at w = sqrt(3),
+        // the only phase crossover; above 1 it is the gain margin, below 1 the lower gain margin
+        // (the gain must shrink by it), and then no gain increase reaches the limit.
         @ParameterizedTest
         @CsvSource({"7.9, STABLE", "8.1, UNSTABLE", "1.0, STABLE", "20.0, UNSTABLE"})
         void third_order_lag_under_p_control_is_stable_below_ku(double gain, ClosedLoopStability expected) {
             LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(gain))));
 
-            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
-            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isCloseTo(Math.sqrt(3), within(1e-6));
+            assertThat(margins.phaseCrossovers()).hasSize(1);
+            PhaseCrossover only = margins.phaseCrossovers().get(0);
+            assertThat(only.gainFactor()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+            assertThat(only.radPerSecond()).isCloseTo(Math.sqrt(3), within(1e-6));
+            if (gain < 8) {
+                assertThat(margins.gainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+                assertThat(margins.lowerGainMargin()).isEmpty();
+            } else {
+                assertThat(margins.gainMargin()).isEmpty();
+                assertThat(margins.gainMarginNote()).contains(MarginNote.NO_UPPER_GAIN_LIMIT);
+                assertThat(margins.lowerGainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+            }
             assertThat(margins.stability()).isEqualTo(expected);
             assertThat(margins.marginsPositive()).isEqualTo(expected == ClosedLoopStability.STABLE);
         }
