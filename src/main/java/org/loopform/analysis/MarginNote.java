@@ -11,11 +11,11 @@ public enum MarginNote {
      * Phase crossovers exist, but at every one {@code |L| >= 1}: raising the gain moves no
      * crossing onto -1, so there is no upper limit (a lower one may exist).
      */
-    NO_UPPER_GAIN_LIMIT("|L| > 1 at every -180 deg crossing, so no gain increase reaches the limit"),
+    NO_UPPER_GAIN_LIMIT("|L| > 1 at every -180 deg crossing"),
     /** No gain crossover because {@code |L| < 1} over the whole response. */
     GAIN_STAYS_BELOW_ONE("|L| never reaches 1"),
-    /** No gain crossover because {@code |L| > 1} over the whole band analysed. */
-    GAIN_STAYS_ABOVE_ONE("|L| never falls to 1 in the band analysed"),
+    /** No gain crossover because {@code |L| > 1} over the whole band analysed (a sampled loop: up to pi/h). */
+    GAIN_STAYS_ABOVE_ONE("|L| stays above 1"),
     /** The figure was built without a full search (for example by hand); nothing more is known. */
     NOT_IN_BAND("not found in the band analysed");
 

@@ -52,7 +52,7 @@ public final class CheckReport {
                 t.row("lower gain margin", MarginFigures.lowerGainMargin(d, 3), MarginFigures.lowerGainMargin(g, 3),
                         "ratio");
             }
-            t.row("crossover", fmt(d.crossoverRadPerSecond(), 3), fmt(g.crossoverRadPerSecond(), 3), "rad/s");
+            t.row("crossover", MarginFigures.crossover(d, 3), MarginFigures.crossover(g, 3), "rad/s");
             t.row("max sensitivity Ms", fmt(d.maximumSensitivity(), 3), fmt(g.maximumSensitivity(), 3), "ratio");
             t.row("delay margin", MarginFigures.delayMargin(d, 3), MarginFigures.delayMargin(g, 3), "s");
             t.row("delay margin in scans", MarginFigures.delayMarginScans(d, designScanSeconds(r), 3),

@@ -169,7 +169,8 @@ final class HtmlLoopSection {
             row(sb, "lower gain margin", Html.esc(MarginFigures.lowerGainMargin(d, 3)),
                     Html.esc(MarginFigures.lowerGainMargin(g, 3)), "ratio");
         }
-        row(sb, "crossover", Html.fig(d.crossoverRadPerSecond(), 3), Html.fig(g.crossoverRadPerSecond(), 3), "rad/s");
+        row(sb, "crossover", Html.esc(MarginFigures.crossover(d, 3)), Html.esc(MarginFigures.crossover(g, 3)),
+                "rad/s");
         row(sb, "max sensitivity Ms", Html.fig(d.maximumSensitivity(), 3), Html.fig(g.maximumSensitivity(), 3),
                 "ratio");
         row(sb, "delay margin", Html.esc(MarginFigures.delayMargin(d, 3)), Html.esc(MarginFigures.delayMargin(g, 3)),

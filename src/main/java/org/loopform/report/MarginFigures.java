@@ -32,6 +32,11 @@ final class MarginFigures {
         return orNone(m.phaseMarginDegrees(), m.phaseMarginNote(), digits);
     }
 
+    /** The gain crossover where the phase margin is read; missing for the same reason it is. */
+    static String crossover(LoopMargins m, int digits) {
+        return orNone(m.crossoverRadPerSecond(), m.phaseMarginNote(), digits);
+    }
+
     static String delayMargin(LoopMargins m, int digits) {
         return orNone(m.delayMarginSeconds(), m.delayMarginNote(), digits);
     }
