@@ -26,12 +26,19 @@ Target loop: L(z) = C(z) P(z) at z = exp(i w h), 0 < w <= pi/h.
   (s replaced by (1 - q)/h; Wittenmark, Astrom and Arzen, "Computer Control: An Overview",
   IFAC Professional Brief, 2002, Table 3).
 
-Margins (definitions after Astrom and Murray, Feedback Systems, 2008, section 9.3 - from
+Margins (definitions after Astrom and Murray, Feedback Systems, 2008, ch. 9-10 - from
 memory): numpy evaluates each loop on a log-spaced grid of 2,000,001 points, the phase is
-unwrapped along it (anchored in (-270, 90] degrees at the band bottom), every gain crossover and
-every pass of the negative real axis is refined with scipy.optimize.brentq, and the peak of
-1/|1 + L| with scipy.optimize.minimize_scalar. With several crossovers the smallest margin is
-reported; the delay margin is the smallest PM[rad] / w over the gain crossovers.
+unwrapped along it, every gain crossover and every pass of the unwrapped phase through
+-180 + 360 k degrees is refined with scipy.optimize.brentq, and the peak of 1/|1 + L| with
+scipy.optimize.minimize_scalar. The gain margin is the smallest 1/|L| at or above 1 over the
+phase crossovers, the lower gain margin the largest below 1; a sampled loop whose L(-1) is real
+and negative has a phase crossover at the Nyquist frequency itself (its Nyquist plot passes the
+axis there and continues into its mirror image). Each phase margin is wrapped into (-180, 180]
+degrees and the smallest reported; the delay margin is the smallest ((PM mod 360) in rad) / w.
+
+Earlier versions skipped the Nyquist end point as "a touch, not a pass", which is wrong: the
+plot of a sampled loop crosses the negative real axis at z = -1. No loop here has its crossover
+there, so no row changed; the conventions changed with the definitions above.
 """
 import csv
 import math
@@ -184,20 +191,33 @@ def margins(response, low, high):
         x = brentq(lambda v: abs(at(v)) - 1.0, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
         p = np.angle(at(x))
         p += 2 * math.pi * round((phase[k] - p) / (2 * math.pi))
-        margin = math.pi + p
-        if math.degrees(margin) < pm:
-            pm, wc = math.degrees(margin), x
-        dm = min(dm, margin / x)
+        margin = math.degrees(math.pi + p)
+        margin -= 360 * math.ceil((margin - 180) / 360)  # into (-180, 180]
+        if margin < pm:
+            pm, wc = margin, x
+        dm = min(dm, math.radians(margin % 360) / x)
 
-    gm, wpc = math.inf, None
+    factors = []
+    top_level = round((phase[-1] + math.pi) / (2 * math.pi))
+    top_on_axis = abs(phase[-1] - (-math.pi + 2 * math.pi * top_level)) < 1e-9
+    if top_on_axis:
+        phase[-1] = -math.pi + 2 * math.pi * top_level
+        factors.append((1.0 / abs(l[-1]), w[-1]))
     turns = np.floor((phase + math.pi) / (2 * math.pi))
     for k in np.nonzero(np.diff(turns))[0]:
-        if k + 1 == len(w) - 1 and abs(l[-1].imag) < 1e-12 * abs(l[-1]):
-            continue  # the sampled loop is real at the Nyquist frequency: a touch, not a pass
-        x = brentq(lambda v: at(v).imag, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
-        g = 1.0 / abs(at(x))
-        if g < gm:
-            gm, wpc = g, x
+        if top_on_axis and k == len(w) - 2:
+            continue  # the end point, counted above
+        level = -math.pi + 2 * math.pi * max(turns[k], turns[k + 1])
+
+        def from_level(v):
+            a = np.angle(at(v))
+            return a + 2 * math.pi * round((phase[k] - a) / (2 * math.pi)) - level
+        x = brentq(from_level, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
+        factors.append((1.0 / abs(at(x)), x))
+    upper = [f for f in factors if f[0] >= 1]
+    gm, wpc = min(upper) if upper else (math.inf, None)
+    lower = [f[0] for f in factors if f[0] < 1]
+    lgm = max(lower) if lower else None
 
     k = int(np.argmin(np.abs(1 + l)))
     lo, hi = w[max(k - 1, 0)], w[min(k + 1, len(w) - 1)]
@@ -206,7 +226,7 @@ def margins(response, low, high):
     wms = res.x if res.fun < abs(1 + l[k]) else w[k]
     ms = 1.0 / min(res.fun, abs(1 + l[k]))
     return dict(gain_margin=gm, phase_crossover_rad_s=wpc, phase_margin_deg=pm, crossover_rad_s=wc,
-                delay_margin_s=dm, ms=ms, ms_rad_s=wms)
+                delay_margin_s=dm, ms=ms, ms_rad_s=wms, lower_gain_margin=lgm)
 
 
 def loop_yaml(lp):
@@ -224,7 +244,7 @@ def fmt(x):
 def main():
     os.makedirs(OUT_DIR, exist_ok=True)
     keys = ["gain_margin", "phase_crossover_rad_s", "phase_margin_deg", "crossover_rad_s", "delay_margin_s",
-            "ms", "ms_rad_s"]
+            "ms", "ms_rad_s", "lower_gain_margin"]
     rows = []
     for lp in LOOPS:
         with open(os.path.join(OUT_DIR, lp["name"] + ".yaml"), "w") as f:

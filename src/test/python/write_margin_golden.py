@@ -16,10 +16,19 @@ settings are moderate values chosen for the test; they are inputs, not checks.
 
 Conventions shared with the Java code (definitions, not computed values): the controller is
 ideal PID, C(s) = K (1 + 1/(Ti s) + Td s / (1 + s Td/N)), Ti = 0 meaning no integral action and
-Td = 0 no derivative action; phase is taken at the bottom of the band in (-270, 90] degrees;
-with several crossovers the smallest margin is reported; the delay margin is the smallest
-PM[rad] / omega over the gain crossovers. A sampled loop ("z") gives its loop polynomials in z
-and is evaluated at z = exp(i omega h) up to the Nyquist frequency pi / h.
+Td = 0 no derivative action; phase is unwrapped from the bottom of the band (the branch there
+does not matter: every figure is read modulo 360 degrees); the gain margin is the smallest
+1/|L| at or above 1 over the passes of the phase through -180 + 360 k degrees (a band top on
+the negative real axis, a sampled loop at z = -1, counts as one), the lower gain margin the
+largest below 1; each phase margin is wrapped into (-180, 180] degrees and the smallest
+reported; the delay margin is the smallest ((PM mod 360) in rad) / omega over the gain
+crossovers (Astrom and Murray, Feedback Systems, 2008, ch. 9-10 - from memory). A sampled loop
+("z") gives its loop polynomials in z and is evaluated at z = exp(i omega h) up to the Nyquist
+frequency pi / h.
+
+Earlier versions of this script reported the smallest 1/|L| over all phase crossovers as the
+gain margin and the unwrapped phase margin; the row fopdt_unstable_p changed with the
+definitions (its only crossover below 1 is now the lower gain margin).
 """
 import csv
 import math
@@ -87,19 +96,32 @@ def margins(row):
         # unwrapped phase at the root: its principal value moved to the branch of the neighbour
         p = np.angle(lv(x))
         p += 2 * math.pi * round((phase[k] - p) / (2 * math.pi))
-        margin = math.pi + p
-        if math.degrees(margin) < pm_deg:
-            pm_deg, wc = math.degrees(margin), x
-        dm = min(dm, margin / x)
+        margin = math.degrees(math.pi + p)
+        margin -= 360 * math.ceil((margin - 180) / 360)  # into (-180, 180]
+        if margin < pm_deg:
+            pm_deg, wc = margin, x
+        dm = min(dm, math.radians(margin % 360) / x)
 
-    gm, wpc = math.inf, None
-    # crossings of the negative real axis: the unwrapped phase passes -180 - 360 m
+    factors = []
+    # the unwrapped phase passes -180 + 360 m
+    top_level = round((phase[-1] + math.pi) / (2 * math.pi))
+    top_on_axis = abs(phase[-1] - (-math.pi + 2 * math.pi * top_level)) < 1e-9
+    if top_on_axis:
+        phase[-1] = -math.pi + 2 * math.pi * top_level
+        factors.append((1.0 / abs(l[-1]), w[-1]))
     shifted = np.floor((phase + math.pi) / (2 * math.pi))
     for k in np.nonzero(np.diff(shifted))[0]:
-        x = brentq(lambda v: lv(v).imag, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
-        g = 1.0 / abs(lv(x))
-        if g < gm:
-            gm, wpc = g, x
+        if top_on_axis and k == len(w) - 2:
+            continue  # the end point, counted above
+        level = -math.pi + 2 * math.pi * max(shifted[k], shifted[k + 1])
+        base = phase[k] - np.angle(l[k])
+        x = brentq(lambda v: base + np.angle(lv(v)) + 2 * math.pi * round(
+            (np.angle(l[k]) - np.angle(lv(v))) / (2 * math.pi)) - level, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
+        factors.append((1.0 / abs(lv(x)), x))
+    upper = [f for f in factors if f[0] >= 1]
+    gm, wpc = min(upper) if upper else (math.inf, None)
+    lower = [f[0] for f in factors if f[0] < 1]
+    lgm = max(lower) if lower else None
 
     k = int(np.argmin(np.abs(1 + l)))
     lo, hi = w[max(k - 1, 0)], w[min(k + 1, len(w) - 1)]
@@ -107,7 +129,7 @@ def margins(row):
                           options={"xatol": 1e-13 * w[k]})
     wms = res.x if res.fun < abs(1 + l[k]) else w[k]
     ms = 1.0 / min(res.fun, abs(1 + l[k]))
-    return gm, wpc, pm_deg, wc, dm, ms, wms, unstable_poles(row, w, l)
+    return gm, wpc, pm_deg, wc, dm, ms, wms, unstable_poles(row, w, l), lgm
 
 
 def unstable_poles(row, w, l):
@@ -139,15 +161,15 @@ def main():
     header = ["id", "domain", "process_num", "process_den", "dead_time_s", "kc", "ti_s", "td_s", "n",
               "scan_s", "band_low_rad_s", "band_high_rad_s", "gain_margin", "phase_crossover_rad_s",
               "phase_margin_deg", "crossover_rad_s", "delay_margin_s", "ms", "ms_rad_s",
-              "closed_loop_unstable_poles"]
+              "closed_loop_unstable_poles", "lower_gain_margin"]
     with open(OUT, "w", newline="") as f:
         out = csv.writer(f, lineterminator="\n")
         out.writerow(header)
         for row in LOOPS:
-            gm, wpc, pm, wc, dm, ms, wms, poles = margins(row)
+            gm, wpc, pm, wc, dm, ms, wms, poles, lgm = margins(row)
             out.writerow([row[0], row[1], " ".join(repr(c) for c in row[2]), " ".join(repr(c) for c in row[3])]
                          + [repr(float(v)) for v in row[4:12]]
-                         + [fmt(gm), fmt(wpc), fmt(pm), fmt(wc), fmt(dm), fmt(ms), fmt(wms), str(poles)])
+                         + [fmt(gm), fmt(wpc), fmt(pm), fmt(wc), fmt(dm), fmt(ms), fmt(wms), str(poles), fmt(lgm)])
             print(row[0], "GM", fmt(gm), "PM", fmt(pm), "wc", fmt(wc), "Ms", fmt(ms), "unstable", poles)
 
 

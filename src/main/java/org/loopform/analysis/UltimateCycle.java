@@ -33,13 +33,18 @@ public record UltimateCycle(double ultimateGain, double ultimateRadPerSecond) {
     public static UltimateCycle of(LoopResponse process, FrequencyBand band) {
         Objects.requireNonNull(process, "process");
         LoopMargins margins = MarginAnalysis.over(band).analyze(process);
-        if (margins.gainMargin().isEmpty()) {
+        PhaseCrossover lowest = null;
+        for (PhaseCrossover c : margins.phaseCrossovers()) {
+            if (lowest == null || c.gainFactor() < lowest.gainFactor()) {
+                lowest = c;
+            }
+        }
+        if (lowest == null) {
             throw new IllegalArgumentException("process phase never reaches -180 degrees between "
                     + band.lowRadPerSecond() + " and " + band.highRadPerSecond()
                     + " rad/s, so it has no ultimate gain there; widen the band or check the model");
         }
-        return new UltimateCycle(margins.gainMargin().getAsDouble(),
-                margins.phaseCrossoverRadPerSecond().getAsDouble());
+        return new UltimateCycle(lowest.gainFactor(), lowest.radPerSecond());
     }
 
     /** {@code Tu = 2 pi / wu}. */

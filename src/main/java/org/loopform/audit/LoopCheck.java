@@ -32,6 +32,7 @@ import org.loopform.form.WritingContext;
 import org.loopform.law.ControlLaw;
 import org.loopform.law.LawDeviation;
 import org.loopform.lti.SampledStateSpace;
+import org.loopform.lti.TransferFunction;
 import org.loopform.process.ProcessModel;
 import org.loopform.scan.PulseLaw;
 import org.loopform.scan.ScanController;
@@ -110,8 +111,8 @@ public final class LoopCheck {
         List<Finding> stepFindings = List.of();
         if (loop.hasProcess()) {
             ProcessModel p = loop.process();
-            double low = lawBand.lowRadPerSecond() / 10;
-            double high = continuousTop(designLaw, p);
+            double low = belowLowestCrossover(bandBottom(lawBand, p), continuousLoop(designLaw, p),
+                    p.integrators() + (designLaw.terms().hasIntegral() ? 1 : 0));
             Double sourceScan = loop.sourceScanSeconds();
             if (sourceScan != null) {
                 PidSetting src = conversion.sourceSetting();
@@ -121,7 +122,14 @@ public final class LoopCheck {
                 designMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / sourceScan),
                         sourceScan)).analyze(sampledLoop(sourcePulse, sampled));
             } else {
-                designMargins = MarginAnalysis.over(FrequencyBand.of(low, high)).analyze(continuousLoop(designLaw, p));
+                LoopResponse design = continuousLoop(designLaw, p);
+                FrequencyBand band = MarginAnalysis.reachingNegligibleGain(design,
+                        FrequencyBand.of(low, Math.max(continuousTop(designLaw, p), 10 * low)));
+                designMargins = MarginAnalysis.over(band).analyze(design);
+                TransferFunction rational = designLaw.feedback().times(p.rationalPart());
+                if (rational.denominator().degree() > rational.numerator().degree()) {
+                    designMargins = designMargins.withSensitivityAtLeastOne(band.highRadPerSecond());
+                }
             }
             SampledStateSpace sampledTarget = p.sampled(h);
             targetMargins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(low, 0.1 / h), h))
@@ -131,8 +139,8 @@ public final class LoopCheck {
             designStability = sourceScan != null
                     ? SampledStability.of(new SampledOpenLoop(sourcePulseOf(loop, conversion, sourceScan), p.sampled(sourceScan)))
                     : ContinuousStability.of(designLaw.feedback().times(p.rationalPart()), p.deadTimeSeconds(), low);
-            targetMargins = withStability(targetMargins, legacy(targetStability));
-            designMargins = withStability(designMargins, legacy(designStability));
+            targetMargins = targetMargins.withStability(legacy(targetStability));
+            designMargins = designMargins.withStability(legacy(designStability));
             ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
             findings.addAll(StabilityRule.evaluate(designStability, targetStability));
 
@@ -225,12 +233,6 @@ public final class LoopCheck {
                 : org.loopform.analysis.ClosedLoopStability.UNSTABLE;
     }
 
-    private static LoopMargins withStability(LoopMargins m, org.loopform.analysis.ClosedLoopStability s) {
-        return new LoopMargins(m.gainMargin(), m.phaseCrossoverRadPerSecond(), m.phaseMarginDegrees(),
-                m.crossoverRadPerSecond(), m.delayMarginSeconds(), m.maximumSensitivity(),
-                m.maximumSensitivityRadPerSecond(), s);
-    }
-
     private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
         try {
             return FormCodec.decode(target, FormCodec.asText(c.entered()), ctx, "target");
@@ -266,22 +268,86 @@ public final class LoopCheck {
     }
 
     /**
-     * Top of the continuous band: a decade above the law's corners and above the process's own
-     * time scale (its dead time, and the sum of its pole magnitudes, den[n-1]/den[n] in ascending
-     * powers), and no more than 20/L with dead time L (the phase then turns too fast for the grid).
+     * Bottom of the band, design and target alike: a decade below the band the tuning implies
+     * (two below its lowest corner) and two decades below the process's lowest nonzero corner,
+     * so an integrating or conditionally stable loop's phase has settled on its low-frequency
+     * branch there and no crossing lies below.
      */
-    private static double continuousTop(ControlLaw law, ProcessModel p) {
-        double high = TuningBand.implied(law.terms(), 0).highRadPerSecond() * 10;
-        var den = p.rationalPart().denominator();
-        int n = den.degree();
-        if (n >= 1 && den.coefficient(n) != 0) {
-            high = Math.max(high, 10 * Math.abs(den.coefficient(n - 1) / den.coefficient(n)));
+    static double bandBottom(FrequencyBand lawBand, ProcessModel p) {
+        double low = lawBand.lowRadPerSecond() / 10;
+        var rational = p.rationalPart();
+        low = Math.min(low, lowestCorner(rational.numerator()) / 100);
+        low = Math.min(low, lowestCorner(rational.denominator()) / 100);
+        return low;
+    }
+
+    /**
+     * A bottom low enough that no gain crossover lies below it: with q integrators in the loop |L| grows
+     * as 1/omega^q below every corner, so where |L| is still below {@link #LOW_END_LOOP_GAIN} at the
+     * bottom, the bottom is moved down until it would be (|L| omega^q is constant down there).
+     */
+    static double belowLowestCrossover(double low, LoopResponse loop, int integrators) {
+        if (integrators <= 0) {
+            return low;
         }
+        double[] l = new double[2];
+        loop.at(low, l);
+        double magnitude = Math.hypot(l[0], l[1]);
+        if (magnitude >= LOW_END_LOOP_GAIN || !(magnitude > 0)) {
+            return low;
+        }
+        return low * Math.pow(magnitude / LOW_END_LOOP_GAIN, 1.0 / integrators);
+    }
+
+    /** |L| at the bottom of the band, well above 1 so that every gain crossover lies above it. */
+    static final double LOW_END_LOOP_GAIN = 10;
+
+    /**
+     * Top of the continuous band before it is raised to where |L| is negligible: a decade above
+     * the band the tuning implies (so past the derivative filter corner 1/Tf) and a decade above
+     * the process's highest corner and 1/L with dead time L. The margin search's grid follows the
+     * dead-time phase however fast it turns, so the top is not cut for it.
+     */
+    static double continuousTop(ControlLaw law, ProcessModel p) {
+        double high = TuningBand.implied(law.terms(), 0).highRadPerSecond() * 10;
+        var rational = p.rationalPart();
+        high = Math.max(high, 10 * highestCorner(rational.numerator()));
+        high = Math.max(high, 10 * highestCorner(rational.denominator()));
         if (p.deadTimeSeconds() > 0) {
             high = Math.max(high, 10 / p.deadTimeSeconds());
-            high = Math.min(high, 20 / p.deadTimeSeconds());
         }
         return high;
+    }
+
+    /**
+     * An upper bound on the magnitudes of the roots of {@code a}, Fujiwara's bound
+     * {@code 2 max_i |a_(n-i) / a_n|^(1/i)} (M. Fujiwara, Tohoku Math. J. 10, 1916 - from memory;
+     * at most twice the largest root for a polynomial with real negative roots). 0 for a constant.
+     */
+    static double highestCorner(org.loopform.lti.Polynomial a) {
+        int n = a.degree();
+        double bound = 0;
+        for (int i = 1; i <= n; i++) {
+            bound = Math.max(bound, Math.pow(Math.abs(a.coefficient(n - i) / a.coefficient(n)), 1.0 / i));
+        }
+        return 2 * bound;
+    }
+
+    /**
+     * A lower bound on the magnitudes of the nonzero roots of {@code a}: Fujiwara's bound applied
+     * to the reversed polynomial, its roots' reciprocals. Infinity when {@code a} has no nonzero root.
+     */
+    static double lowestCorner(org.loopform.lti.Polynomial a) {
+        int n = a.degree();
+        int m = 0;
+        while (m < n && a.coefficient(m) == 0) {
+            m++; // roots at the origin (integrators) have no corner
+        }
+        double bound = 0;
+        for (int i = 1; i <= n - m; i++) {
+            bound = Math.max(bound, Math.pow(Math.abs(a.coefficient(m + i) / a.coefficient(m)), 1.0 / i));
+        }
+        return bound > 0 ? 1 / (2 * bound) : Double.POSITIVE_INFINITY;
     }
 
     private static LoopResponse continuousLoop(ControlLaw law, ProcessModel p) {

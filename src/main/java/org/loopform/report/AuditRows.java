@@ -32,7 +32,8 @@ public final class AuditRows {
             "target_crossover_rad_s", "design_ms", "target_ms", "design_delay_margin_s", "target_delay_margin_s",
             "design_sp_iae_pct_s", "target_sp_iae_pct_s", "design_sp_overshoot_pct", "target_sp_overshoot_pct",
             "design_load_iae_pct_s", "target_load_iae_pct_s", "design_load_peak_pct", "target_load_peak_pct",
-            "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "problems");
+            "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "design_lower_gm", "target_lower_gm",
+            "target_delay_margin_scans", "design_margin_notes", "target_margin_notes", "problems");
 
     /** entry-sheet.csv columns: one row per value to type in. */
     public static final List<String> ENTRY_COLUMNS = List.of("tag", "target_form", "parameter", "value", "unit",
@@ -117,8 +118,21 @@ public final class AuditRows {
         r.add(Long.toString(c.findings().stream().filter(f -> f.severity() == Severity.WARN).count()));
         r.add(c.findings().stream().filter(f -> f.severity() != Severity.INFO)
                 .map(f -> f.topic().id() + " (" + f.severity().id() + ")").collect(Collectors.joining("; ")));
+        r.add(p ? num(d.lowerGainMargin()) : "");
+        r.add(p ? num(t.lowerGainMargin()) : "");
+        r.add(p ? num(t.delayMarginScans(c.scanSeconds())) : "");
+        r.add(p ? notes(d) : "");
+        r.add(p ? notes(t) : "");
         r.add("");
         return spreadsheetRow(r);
+    }
+
+    /** Why margins are blank in a row: "gain margin: the phase never reaches -180 deg; ...", empty when none is. */
+    private static String notes(LoopMargins m) {
+        List<String> parts = new ArrayList<>();
+        m.gainMarginNote().ifPresent(n -> parts.add("gain margin: " + n.text()));
+        m.phaseMarginNote().ifPresent(n -> parts.add("phase and delay margins: " + n.text()));
+        return String.join("; ", parts);
     }
 
     public static List<List<String>> entryRows(LoopOutcome o) {

@@ -46,11 +46,17 @@ public final class CheckReport {
             TextTable t = new TextTable("figure", "design", "target", "unit");
             LoopMargins d = r.designMargins();
             LoopMargins g = r.targetMargins();
-            t.row("phase margin", fmt(d.phaseMarginDegrees(), 3), fmt(g.phaseMarginDegrees(), 3), "deg");
-            t.row("gain margin", fmt(d.gainMargin(), 3), fmt(g.gainMargin(), 3), "ratio");
-            t.row("crossover", fmt(d.crossoverRadPerSecond(), 3), fmt(g.crossoverRadPerSecond(), 3), "rad/s");
+            t.row("phase margin", MarginFigures.phaseMargin(d, 3), MarginFigures.phaseMargin(g, 3), "deg");
+            t.row("gain margin", MarginFigures.gainMargin(d, 3), MarginFigures.gainMargin(g, 3), "ratio");
+            if (MarginFigures.hasLowerGainMargin(d, g)) {
+                t.row("lower gain margin", MarginFigures.lowerGainMargin(d, 3), MarginFigures.lowerGainMargin(g, 3),
+                        "ratio");
+            }
+            t.row("crossover", MarginFigures.crossover(d, 3), MarginFigures.crossover(g, 3), "rad/s");
             t.row("max sensitivity Ms", fmt(d.maximumSensitivity(), 3), fmt(g.maximumSensitivity(), 3), "ratio");
-            t.row("delay margin", fmt(d.delayMarginSeconds(), 3), fmt(g.delayMarginSeconds(), 3), "s");
+            t.row("delay margin", MarginFigures.delayMargin(d, 3), MarginFigures.delayMargin(g, 3), "s");
+            t.row("delay margin in scans", MarginFigures.delayMarginScans(d, designScanSeconds(r), 3),
+                    MarginFigures.delayMarginScans(g, r.scanSeconds(), 3), "scans");
             StepMetrics ds = r.designSetpoint();
             StepMetrics ts = r.targetSetpoint();
             t.row("setpoint step IAE", fmt(ds.integralAbsoluteErrorPercentSeconds(), 4),
@@ -101,14 +107,21 @@ public final class CheckReport {
         Json.putNumber(n, key, v.isPresent() ? v.getAsDouble() : null);
     }
 
+    /** The scan of the design loop when it runs the source's own algorithm; NaN for the continuous design. */
+    static double designScanSeconds(CheckResult r) {
+        Double s = r.loop().sourceScanSeconds();
+        return s != null ? s : Double.NaN;
+    }
+
     static ObjectNode figures(LoopMargins m, org.loopform.analysis.LoopStability st, StepMetrics sp,
-                              StepMetrics load) {
+                              StepMetrics load, double scanSeconds) {
         ObjectNode n = Json.object();
         put(n, "phase_margin_deg", m.phaseMarginDegrees());
         put(n, "gain_margin", m.gainMargin());
         put(n, "crossover_rad_s", m.crossoverRadPerSecond());
         Json.putNumber(n, "ms", m.maximumSensitivity());
         put(n, "delay_margin_s", m.delayMarginSeconds());
+        MarginFigures.putJson(n, m, scanSeconds);
         n.put("stability", st.verdict().word());
         n.put("stability_test", st.test().describe());
         if (st.unstablePoles() == Integer.MAX_VALUE) {
@@ -163,8 +176,10 @@ public final class CheckReport {
         dev.put("gain_db", c.deviation().gainDb());
         dev.put("phase_deg", c.deviation().phaseDegrees());
         if (r.hasProcess()) {
-            n.set("design", figures(r.designMargins(), r.designStability(), r.designSetpoint(), r.designLoad()));
-            n.set("target", figures(r.targetMargins(), r.targetStability(), r.targetSetpoint(), r.targetLoad()));
+            n.set("design", figures(r.designMargins(), r.designStability(), r.designSetpoint(), r.designLoad(),
+                    designScanSeconds(r)));
+            n.set("target", figures(r.targetMargins(), r.targetStability(), r.targetSetpoint(), r.targetLoad(),
+                    r.scanSeconds()));
         } else {
             n.putNull("design");
             n.putNull("target");

@@ -161,12 +161,22 @@ final class HtmlLoopSection {
         sb.append("<div><table class=\"figures\"><caption>Design loop and target loop</caption>\n<thead><tr>"
                 + "<th>figure</th><th class=\"num\">design</th><th class=\"num\">target</th><th>unit</th></tr></thead>"
                 + "\n<tbody>\n");
-        row(sb, "phase margin", Html.fig(d.phaseMarginDegrees(), 3), Html.fig(g.phaseMarginDegrees(), 3), "deg");
-        row(sb, "gain margin", Html.fig(d.gainMargin(), 3), Html.fig(g.gainMargin(), 3), "ratio");
-        row(sb, "crossover", Html.fig(d.crossoverRadPerSecond(), 3), Html.fig(g.crossoverRadPerSecond(), 3), "rad/s");
+        row(sb, "phase margin", Html.esc(MarginFigures.phaseMargin(d, 3)), Html.esc(MarginFigures.phaseMargin(g, 3)),
+                "deg");
+        row(sb, "gain margin", Html.esc(MarginFigures.gainMargin(d, 3)), Html.esc(MarginFigures.gainMargin(g, 3)),
+                "ratio");
+        if (MarginFigures.hasLowerGainMargin(d, g)) {
+            row(sb, "lower gain margin", Html.esc(MarginFigures.lowerGainMargin(d, 3)),
+                    Html.esc(MarginFigures.lowerGainMargin(g, 3)), "ratio");
+        }
+        row(sb, "crossover", Html.esc(MarginFigures.crossover(d, 3)), Html.esc(MarginFigures.crossover(g, 3)),
+                "rad/s");
         row(sb, "max sensitivity Ms", Html.fig(d.maximumSensitivity(), 3), Html.fig(g.maximumSensitivity(), 3),
                 "ratio");
-        row(sb, "delay margin", Html.fig(d.delayMarginSeconds(), 3), Html.fig(g.delayMarginSeconds(), 3), "s");
+        row(sb, "delay margin", Html.esc(MarginFigures.delayMargin(d, 3)), Html.esc(MarginFigures.delayMargin(g, 3)),
+                "s");
+        row(sb, "delay margin in scans", Html.esc(MarginFigures.delayMarginScans(d, CheckReport.designScanSeconds(r), 3)),
+                Html.esc(MarginFigures.delayMarginScans(g, r.scanSeconds(), 3)), "scans");
         row(sb, "setpoint step IAE", Html.fig(ds.integralAbsoluteErrorPercentSeconds(), 4),
                 Html.fig(ts.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
         row(sb, "setpoint overshoot", Html.fig(ds.overshootPercent(), 3), Html.fig(ts.overshootPercent(), 3),

@@ -2,7 +2,6 @@ package org.loopform.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.util.OptionalDouble;
 import org.loopform.audit.CheckResult;
 import org.loopform.audit.ScanSweep;
 import org.loopform.scan.ScanFacts;
@@ -11,10 +10,6 @@ import org.loopform.units.Numbers;
 /** A scan-time sweep as a table and as JSON. */
 public final class SweepReport {
     private SweepReport() {
-    }
-
-    private static String f(OptionalDouble v) {
-        return v.isPresent() ? Numbers.significant(v.getAsDouble(), 3) : "none";
     }
 
     private static double nhTd(CheckResult r) {
@@ -36,8 +31,8 @@ public final class SweepReport {
                     : Double.NaN;
             double nh = nhTd(r);
             t.row(Numbers.significant(r.scanSeconds(), 3), Double.isFinite(wc) ? Numbers.significant(wc * r.scanSeconds(), 3)
-                    : "-", Double.isFinite(nh) ? Numbers.significant(nh, 3) : "-", m == null ? "-" : f(m.phaseMarginDegrees()),
-                    m == null ? "-" : f(m.gainMargin()), m == null ? "-" : Numbers.significant(m.maximumSensitivity(), 3),
+                    : "-", Double.isFinite(nh) ? Numbers.significant(nh, 3) : "-", m == null ? "-" : MarginFigures.phaseMargin(m, 3),
+                    m == null ? "-" : MarginFigures.gainMargin(m, 3), m == null ? "-" : Numbers.significant(m.maximumSensitivity(), 3),
                     r.targetSetpoint() == null ? "-"
                             : Numbers.significant(r.targetSetpoint().integralAbsoluteErrorPercentSeconds(), 4),
                     r.verdict().id(), ScanSweep.acceptable(r.findings()) ? "yes" : "no");

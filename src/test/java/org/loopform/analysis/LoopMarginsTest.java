@@ -1,6 +1,7 @@
 // plumbing: no published source needed (source: none); it checks the record's validation
 package org.loopform.analysis;
 
+import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.OptionalDouble;
@@ -29,11 +30,14 @@ class LoopMarginsTest {
                 .hasMessageContaining("must come together");
     }
 
+    // 1 + L vanishing on the band (a closed-loop pole on the boundary) makes Ms infinite: a figure, not an error
     @Test
-    void rejects_an_infinite_maximum_sensitivity() {
+    void takes_an_infinite_maximum_sensitivity_and_rejects_nan() {
+        assertThat(new LoopMargins(NONE, NONE, NONE, NONE, NONE, Double.POSITIVE_INFINITY, 1,
+                ClosedLoopStability.UNSTABLE).maximumSensitivity()).isInfinite();
         assertThatThrownBy(() -> new LoopMargins(NONE, NONE, NONE, NONE, NONE,
-                Double.POSITIVE_INFINITY, 1, ClosedLoopStability.UNSTABLE))
+                Double.NaN, 1, ClosedLoopStability.UNSTABLE))
                 .isInstanceOf(IllegalArgumentException.class)
-                .hasMessageContaining("got Infinity");
+                .hasMessageContaining("got NaN");
     }
 }

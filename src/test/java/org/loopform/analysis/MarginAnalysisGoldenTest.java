@@ -38,7 +38,8 @@ class MarginAnalysisGoldenTest {
 
     record Golden(String id, LoopResponse loop, FrequencyBand band, OptionalDouble gainMargin,
             OptionalDouble phaseCrossover, OptionalDouble phaseMarginDegrees, OptionalDouble crossover,
-            OptionalDouble delayMarginSeconds, double ms, double msRadPerSecond, int unstablePoles) {
+            OptionalDouble delayMarginSeconds, double ms, double msRadPerSecond, int unstablePoles,
+            OptionalDouble lowerGainMargin) {
         @Override
         public String toString() {
             return id;
@@ -55,6 +56,7 @@ class MarginAnalysisGoldenTest {
         LoopMargins margins = MarginAnalysis.over(golden.band()).analyze(golden.loop());
 
         assertCloseRelative(margins.gainMargin(), golden.gainMargin());
+        assertCloseRelative(margins.lowerGainMargin(), golden.lowerGainMargin());
         assertCloseRelative(margins.phaseCrossoverRadPerSecond(), golden.phaseCrossover());
         assertThat(margins.phaseMarginDegrees().isPresent()).isEqualTo(golden.phaseMarginDegrees().isPresent());
         if (golden.phaseMarginDegrees().isPresent()) {
@@ -120,7 +122,7 @@ class MarginAnalysisGoldenTest {
                 : LoopResponse.of(Loops.idealPid(k, ti, td, n).times(new TransferFunction(num, den)), deadTimeSeconds);
         return new Golden(f[0], loop, band, optional(f[12]), optional(f[13]), optional(f[14]), optional(f[15]),
                 optional(f[16]), Double.parseDouble(f[17]), Double.parseDouble(f[18]),
-                Integer.parseInt(f[19]));
+                Integer.parseInt(f[19]), optional(f[20]));
     }
 
     private static double[] coefficients(String field) {

@@ -46,14 +46,26 @@ class MarginAnalysisTest {
             assertThat(margins.stability()).isEqualTo(ClosedLoopStability.STABLE);
         }
 
-        // Derived exactly from Ku = 8 for 1/(s + 1)^3: a P gain k gives GM = 8/k at w = sqrt(3).
+        // Derived exactly from Ku = 8 for 1/(s + 1)^3: a P gain k gives the factor 8/k at w = sqrt(3),
+        // the only phase crossover; above 1 it is the gain margin, below 1 the lower gain margin
+        // (the gain must shrink by it), and then no gain increase reaches the limit.
         @ParameterizedTest
         @CsvSource({"7.9, STABLE", "8.1, UNSTABLE", "1.0, STABLE", "20.0, UNSTABLE"})
         void third_order_lag_under_p_control_is_stable_below_ku(double gain, ClosedLoopStability expected) {
             LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(gain))));
 
-            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
-            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isCloseTo(Math.sqrt(3), within(1e-6));
+            assertThat(margins.phaseCrossovers()).hasSize(1);
+            PhaseCrossover only = margins.phaseCrossovers().get(0);
+            assertThat(only.gainFactor()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+            assertThat(only.radPerSecond()).isCloseTo(Math.sqrt(3), within(1e-6));
+            if (gain < 8) {
+                assertThat(margins.gainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+                assertThat(margins.lowerGainMargin()).isEmpty();
+            } else {
+                assertThat(margins.gainMargin()).isEmpty();
+                assertThat(margins.gainMarginNote()).contains(MarginNote.NO_UPPER_GAIN_LIMIT);
+                assertThat(margins.lowerGainMargin().getAsDouble()).isCloseTo(8 / gain, within(1e-6 * 8 / gain));
+            }
             assertThat(margins.stability()).isEqualTo(expected);
             assertThat(margins.marginsPositive()).isEqualTo(expected == ClosedLoopStability.STABLE);
         }
@@ -73,6 +85,82 @@ class MarginAnalysisTest {
             assertThat(w + Math.atan(w)).isCloseTo(Math.PI, within(1e-8));
             assertThat(margins.gainMargin().getAsDouble()).isCloseTo(2 * Math.hypot(1, w), within(1e-8));
             assertThat(margins.stability()).isEqualTo(ClosedLoopStability.STABLE);
+        }
+    }
+
+    @Nested
+    @DisplayName("finds every crossing")
+    class EveryCrossing {
+
+        // Derived by hand: L(z) = k / (z - 1), z = e^(i theta), theta = omega h. e^(i theta) - 1 =
+        // 2 sin(theta/2) e^(i (theta + pi)/2), so arg L = -(pi + theta)/2, which reaches -pi only at
+        // theta = pi, the Nyquist frequency, where L = -k/2: GM = 2/k. |L| = 1 at
+        // theta_c = 2 asin(k/2), PM = pi/2 - theta_c/2, DM = PM / (theta_c / h).
+        @Test
+        void a_phase_crossover_at_the_nyquist_frequency_is_found() {
+            double k = 0.5;
+            double h = 2.0;
+            LoopResponse loop = Loops.sampled(Polynomial.constant(k), Polynomial.ofAscending(-1, 1), h);
+
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.belowNyquist(1e-4, h)).analyze(loop);
+
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(2 / k, within(1e-9));
+            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isEqualTo(Math.PI / h);
+            double thetaC = 2 * Math.asin(k / 2);
+            double pm = Math.PI / 2 - thetaC / 2;
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(Math.toDegrees(pm), within(1e-6));
+            assertThat(margins.delayMarginSeconds().getAsDouble()).isCloseTo(pm * h / thetaC, within(1e-6 * pm * h / thetaC));
+            assertThat(margins.delayMarginScans(h).getAsDouble()).isCloseTo(pm / thetaC, within(1e-6 * pm / thetaC));
+        }
+
+        // Derived by hand: a resonance under P control, x = omega / wn, L = k / (1 - x^2 + 2 i zeta x).
+        // |L| = 1 where u = x^2 solves u^2 - 2 u (1 - 2 zeta^2) + 1 - k^2 = 0; with zeta = 0.01 and
+        // k = 0.0202 (peak |L| about 1.01) the two roots lie 0.3 % apart, far inside one base step
+        // (9.6 %). arg L = -atan2(2 zeta x, 1 - x^2), PM = 180 deg + arg L at each.
+        @Test
+        void two_gain_crossovers_closer_than_the_base_step_are_both_found() {
+            double zeta = 0.01;
+            double k = 0.0202;
+            TransferFunction resonance = new TransferFunction(Polynomial.constant(k),
+                    Polynomial.ofAscending(1, 2 * zeta, 1));
+
+            LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(resonance));
+
+            double b = 1 - 2 * zeta * zeta;
+            double root = Math.sqrt(b * b - 1 + k * k);
+            double[] x = {Math.sqrt(b - root), Math.sqrt(b + root)};
+            assertThat(margins.gainCrossovers()).hasSize(2);
+            double smallestPm = Double.POSITIVE_INFINITY;
+            double smallestDm = Double.POSITIVE_INFINITY;
+            for (int j = 0; j < 2; j++) {
+                GainCrossover c = margins.gainCrossovers().get(j);
+                assertThat(c.radPerSecond()).isCloseTo(x[j], within(1e-6 * x[j]));
+                double pm = 180 - Math.toDegrees(Math.atan2(2 * zeta * x[j], 1 - x[j] * x[j]));
+                assertThat(c.phaseMarginDegrees()).isCloseTo(pm, within(1e-4));
+                smallestPm = Math.min(smallestPm, pm);
+                smallestDm = Math.min(smallestDm, Math.toRadians(pm) / x[j]);
+            }
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(smallestPm, within(1e-4));
+            assertThat(margins.delayMarginSeconds().getAsDouble()).isCloseTo(smallestDm, within(1e-6 * smallestDm));
+            // the phase of a second-order lag never reaches -180 deg
+            assertThat(margins.gainMarginNote()).contains(MarginNote.PHASE_NEVER_REACHES_MINUS_180);
+        }
+
+        // Derived by hand: L = k e^(-s L) / s has PM = 90 deg - k L rad at wc = k. With k L = 2 rad
+        // the unwrapped phase at the crossover is -90 - 114.6 = -204.6 deg, the phase margin -24.6
+        // deg (unstable), and the wrapped margin mod 360, 335.4 deg, is the extra delay that brings
+        // the crossover around to -1 again: DM = 335.4 deg in rad / k.
+        @Test
+        void the_delay_margin_is_the_phase_margin_modulo_a_turn_over_the_crossover() {
+            double k = 2.0;
+            TransferFunction integrator = new TransferFunction(Polynomial.constant(k), Polynomial.ofAscending(0, 1));
+
+            LoopMargins margins = MarginAnalysis.over(BAND).analyze(LoopResponse.of(integrator, 1.0));
+
+            double pmDegrees = 90 - Math.toDegrees(2.0);
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(pmDegrees, within(1e-4));
+            double dm = Math.toRadians(pmDegrees + 360) / k;
+            assertThat(margins.delayMarginSeconds().getAsDouble()).isCloseTo(dm, within(1e-6 * dm));
         }
     }
 

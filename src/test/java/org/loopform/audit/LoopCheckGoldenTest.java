@@ -46,7 +46,7 @@ class LoopCheckGoldenTest {
 
     record Golden(String file, String which, OptionalDouble gainMargin, OptionalDouble phaseCrossover,
                   OptionalDouble phaseMarginDegrees, OptionalDouble crossover, OptionalDouble delayMargin,
-                  double ms, double msRadPerSecond) {
+                  double ms, double msRadPerSecond, OptionalDouble lowerGainMargin) {
         @Override
         public String toString() {
             return file + " " + which;
@@ -64,6 +64,7 @@ class LoopCheckGoldenTest {
         LoopMargins m = golden.which().equals("design") ? result.designMargins() : result.targetMargins();
 
         assertCloseRelative("gain margin", m.gainMargin(), golden.gainMargin());
+        assertCloseRelative("lower gain margin", m.lowerGainMargin(), golden.lowerGainMargin());
         assertCloseRelative("phase crossover", m.phaseCrossoverRadPerSecond(), golden.phaseCrossover());
         assertThat(m.phaseMarginDegrees().isPresent()).isEqualTo(golden.phaseMarginDegrees().isPresent());
         if (golden.phaseMarginDegrees().isPresent()) {
@@ -119,7 +120,7 @@ class LoopCheckGoldenTest {
             for (String line = in.readLine(); line != null; line = in.readLine()) {
                 String[] f = line.split(",", -1);
                 rows.add(new Golden(f[0], f[1], optional(f[2]), optional(f[3]), optional(f[4]), optional(f[5]),
-                        optional(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8])));
+                        optional(f[6]), Double.parseDouble(f[7]), Double.parseDouble(f[8]), optional(f[9])));
             }
         } catch (IOException e) {
             throw new UncheckedIOException(e);
