@@ -126,10 +126,12 @@ public final class LoopCheck {
                     target.algorithm(), h), sampledTarget, test)) {
                 targetMargins = withStability(targetMargins, org.loopform.analysis.ClosedLoopStability.UNSTABLE);
             }
-            targetRun = LoopSimulator.run(ScanController.of(target, entered, h), sampledTarget, test);
+            // sampled loops are judged on the continuous PV between scans, not only at the scan instants
+            targetRun = LoopSimulator.runBetweenScans(ScanController.of(target, entered, h), p.rationalPart(),
+                    p.deadTimeSeconds(), h, test);
             if (sourceScan != null) {
-                designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
-                        sourceScan), p.sampled(sourceScan), test);
+                designRun = LoopSimulator.runBetweenScans(ScanController.of(loop.sourceForm(),
+                        conversion.sourceSetting(), sourceScan), p.rationalPart(), p.deadTimeSeconds(), sourceScan, test);
                 refStep = sourceScan;
             } else {
                 refStep = referenceStep(horizon, conversion.sourceSetting(), p);
