@@ -16,15 +16,18 @@ public final class SampledResponse {
 
     /** Null for a response on a uniform step. */
     private final double[] timesSeconds;
-    /** The uniform step, or NaN when the times are given one by one. */
+    /** The uniform step (the scan between scans), or NaN when the times are given one by one. */
     private final double stepSeconds;
+    /** Sample instants within each step, {0} on a uniform step; null when the times are given one by one. */
+    private final double[] offsetsSeconds;
     private final double[] processValuesPercent;
     private final double[] controllerOutputsPercent;
 
-    private SampledResponse(double[] timesSeconds, double stepSeconds, double[] processValuesPercent,
-            double[] controllerOutputsPercent) {
+    private SampledResponse(double[] timesSeconds, double stepSeconds, double[] offsetsSeconds,
+            double[] processValuesPercent, double[] controllerOutputsPercent) {
         this.timesSeconds = timesSeconds;
         this.stepSeconds = stepSeconds;
+        this.offsetsSeconds = offsetsSeconds;
         this.processValuesPercent = processValuesPercent;
         this.controllerOutputsPercent = controllerOutputsPercent;
     }
@@ -56,7 +59,7 @@ public final class SampledResponse {
                         + timesSeconds[k] + " s follows " + timesSeconds[k - 1] + " s");
             }
         }
-        return new SampledResponse(timesSeconds.clone(), Double.NaN, processValuesPercent.clone(),
+        return new SampledResponse(timesSeconds.clone(), Double.NaN, null, processValuesPercent.clone(),
                 controllerOutputsPercent.clone());
     }
 
@@ -100,7 +103,11 @@ public final class SampledResponse {
     }
 
     public double timeSeconds(int k) {
-        return timesSeconds == null ? k * stepSeconds : timesSeconds[k];
+        if (timesSeconds != null) {
+            return timesSeconds[k];
+        }
+        int m = offsetsSeconds.length;
+        return m == 1 ? k * stepSeconds : (k / m) * stepSeconds + offsetsSeconds[k % m];
     }
 
     public double processValuePercent(int k) {
@@ -117,7 +124,7 @@ public final class SampledResponse {
         }
         double[] t = new double[size()];
         for (int k = 0; k < t.length; k++) {
-            t[k] = k * stepSeconds;
+            t[k] = timeSeconds(k);
         }
         return t;
     }
@@ -210,17 +217,8 @@ public final class SampledResponse {
                 requireFinite("process value", k, processValuesPercent[k]);
                 requireFinite("controller output", k, controllerOutputsPercent[k]);
             }
-            SampledResponse r;
-            int m = offsetsSeconds.length;
-            if (m == 1) {
-                r = new SampledResponse(null, stepSeconds, processValuesPercent, controllerOutputsPercent);
-            } else {
-                double[] times = new double[count];
-                for (int i = 0; i < count; i++) {
-                    times[i] = (i / m) * stepSeconds + offsetsSeconds[i % m];
-                }
-                r = new SampledResponse(times, Double.NaN, processValuesPercent, controllerOutputsPercent);
-            }
+            SampledResponse r = new SampledResponse(null, stepSeconds, offsetsSeconds, processValuesPercent,
+                    controllerOutputsPercent);
             processValuesPercent = null;
             controllerOutputsPercent = null;
             return r;

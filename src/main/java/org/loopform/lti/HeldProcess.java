@@ -161,6 +161,11 @@ public final class HeldProcess {
         double arriving = inputRing[slot(delayScans)];
         // u(k-d-1) sits in the slot just after the newest one: the ring holds d + 2 inputs
         double leaving = inputRing[newest + 1 == size ? 0 : newest + 1];
+        if (earlySteps == 0 && lateSteps == 1 && order == 1) {
+            // one sample a scan, first order: the whole scan in one exact step
+            state[0] = lateA[0] * state[0] + lateB[0] * arriving;
+            return d * arriving + c[0] * state[0];
+        }
         int m = samplesPerScan();
         int written = 0;
         for (int j = 0; j < earlySteps; j++) {

@@ -20,7 +20,7 @@ import org.loopform.io.LoopFileReader;
  * percent of the step, IAE the integral of |setpoint - PV|, settling the last entry into a band of
  * 2 % of the step, the load peak the largest |PV - setpoint|.
  *
- * <p>Tolerances: loopform samples the continuous PV exactly on sub-steps of horizon/2000 with
+ * <p>Tolerances: loopform samples the continuous PV exactly on sub-steps of horizon/1000 with
  * every input switch on the grid, so a peak between two samples is low by at most
  * {@code max|y''| delta^2 / 8}, about 0.003 points of overshoot here; the trapezoid IAE is off by
  * less than 1e-3 of itself. The reference's own integration error is far below both.
