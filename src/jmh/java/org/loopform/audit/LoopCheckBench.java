@@ -42,7 +42,9 @@ public class LoopCheckBench {
     public void readLoop() {
         loop = LoopFileReader.parseAll(LOOP, "bench.yaml").get(0);
         CheckResult r = LoopCheck.run(loop, CheckPolicy.DEFAULT, HORIZON_SECONDS);
-        int steps = r.targetRun().setpoint().size() - 1;
+        // the PV is recorded between scans too: count scans by the run's length, not by its samples
+        var sp = r.targetRun().setpoint();
+        int steps = (int) Math.round(sp.timeSeconds(sp.size() - 1) / SCAN_SECONDS);
         if (steps != TARGET_STEPS) {
             throw new IllegalStateException("target loop runs " + steps + " scans, expected " + TARGET_STEPS);
         }

@@ -6,23 +6,28 @@ import java.util.Objects;
 /**
  * A closed-loop response sampled at increasing times: the process value and the controller
  * output at each time, both in percent of span, times in seconds. The step under study happens
- * at the first time. Immutable; the arrays are copied in and out. A response recorded on a
- * uniform step ({@link #recorder}) keeps only the step and gives sample k the time
- * {@code k * stepSeconds}.
+ * at the first time. The controller output at a sample is the one held from that sample to the
+ * next (it changes only at scan instants). Immutable; the arrays are copied in and out. A
+ * response recorded on a uniform step ({@link #recorder(int, double)}) keeps only the step and
+ * gives sample k the time {@code k * stepSeconds}; one recorded between scans
+ * ({@link #recorder(int, double, double[])}) has the same sub-instants in every scan.
  */
 public final class SampledResponse {
 
     /** Null for a response on a uniform step. */
     private final double[] timesSeconds;
-    /** The uniform step, or NaN when the times are given one by one. */
+    /** The uniform step (the scan between scans), or NaN when the times are given one by one. */
     private final double stepSeconds;
+    /** Sample instants within each step, {0} on a uniform step; null when the times are given one by one. */
+    private final double[] offsetsSeconds;
     private final double[] processValuesPercent;
     private final double[] controllerOutputsPercent;
 
-    private SampledResponse(double[] timesSeconds, double stepSeconds, double[] processValuesPercent,
-            double[] controllerOutputsPercent) {
+    private SampledResponse(double[] timesSeconds, double stepSeconds, double[] offsetsSeconds,
+            double[] processValuesPercent, double[] controllerOutputsPercent) {
         this.timesSeconds = timesSeconds;
         this.stepSeconds = stepSeconds;
+        this.offsetsSeconds = offsetsSeconds;
         this.processValuesPercent = processValuesPercent;
         this.controllerOutputsPercent = controllerOutputsPercent;
     }
@@ -54,7 +59,7 @@ public final class SampledResponse {
                         + timesSeconds[k] + " s follows " + timesSeconds[k - 1] + " s");
             }
         }
-        return new SampledResponse(timesSeconds.clone(), Double.NaN, processValuesPercent.clone(),
+        return new SampledResponse(timesSeconds.clone(), Double.NaN, null, processValuesPercent.clone(),
                 controllerOutputsPercent.clone());
     }
 
@@ -64,7 +69,33 @@ public final class SampledResponse {
      * arrays over without copying them.
      */
     public static Recorder recorder(int samples, double stepSeconds) {
-        return new Recorder(samples, stepSeconds);
+        return new Recorder(samples, stepSeconds, new double[] {0.0});
+    }
+
+    /**
+     * A recorder of a run over {@code scans} scans of {@code scanSeconds}, sampled in every scan
+     * at the instants {@code offsetsSeconds} after its start (the first 0, increasing, all below
+     * the scan time) and once more at the end: {@code scans * offsetsSeconds.length + 1}
+     * samples, sample {@code i = k m + j} at {@code k * scanSeconds + offsetsSeconds[j]}.
+     */
+    public static Recorder recorder(int scans, double scanSeconds, double[] offsetsSeconds) {
+        Objects.requireNonNull(offsetsSeconds, "offsetsSeconds");
+        int m = offsetsSeconds.length;
+        if (m < 1 || offsetsSeconds[0] != 0.0) {
+            throw new IllegalArgumentException("a scan's sample instants must start at 0 s (got "
+                    + Arrays.toString(offsetsSeconds) + ")");
+        }
+        for (int j = 1; j < m; j++) {
+            if (!(offsetsSeconds[j] > offsetsSeconds[j - 1]) || !(offsetsSeconds[j] < scanSeconds)) {
+                throw new IllegalArgumentException("a scan's sample instants must increase and stay below the scan"
+                        + " time " + scanSeconds + " s (got " + Arrays.toString(offsetsSeconds) + ")");
+            }
+        }
+        if (scans < 1 || (long) scans * m + 1 > Integer.MAX_VALUE - 8) {
+            throw new IllegalArgumentException("a run between scans needs 1 to " + (Integer.MAX_VALUE / m - 1)
+                    + " scans of " + m + " samples (got " + scans + ")");
+        }
+        return new Recorder(scans * m + 1, scanSeconds, offsetsSeconds.clone());
     }
 
     public int size() {
@@ -72,7 +103,11 @@ public final class SampledResponse {
     }
 
     public double timeSeconds(int k) {
-        return timesSeconds == null ? k * stepSeconds : timesSeconds[k];
+        if (timesSeconds != null) {
+            return timesSeconds[k];
+        }
+        int m = offsetsSeconds.length;
+        return m == 1 ? k * stepSeconds : (k / m) * stepSeconds + offsetsSeconds[k % m];
     }
 
     public double processValuePercent(int k) {
@@ -89,7 +124,7 @@ public final class SampledResponse {
         }
         double[] t = new double[size()];
         for (int k = 0; k < t.length; k++) {
-            t[k] = k * stepSeconds;
+            t[k] = timeSeconds(k);
         }
         return t;
     }
@@ -129,17 +164,19 @@ public final class SampledResponse {
     }
 
     /**
-     * Collects the samples of one response on a uniform step, one {@link #add} per sample in
-     * time order; used once. Not thread-safe.
+     * Collects the samples of one response, one {@link #add} per sample in time order, on a
+     * uniform step or on the same sub-instants of every scan; used once. Not thread-safe.
      */
     public static final class Recorder {
 
         private final double stepSeconds;
+        /** Sample instants within one step, seconds after its start; {0} for a uniform step. */
+        private final double[] offsetsSeconds;
         private double[] processValuesPercent;
         private double[] controllerOutputsPercent;
         private int count;
 
-        private Recorder(int samples, double stepSeconds) {
+        private Recorder(int samples, double stepSeconds, double[] offsetsSeconds) {
             if (samples < 2) {
                 throw new IllegalArgumentException("a sampled response needs at least 2 samples (got " + samples + ")");
             }
@@ -147,6 +184,7 @@ public final class SampledResponse {
                 throw new IllegalArgumentException("sample step must be finite and > 0 s (got " + stepSeconds + " s)");
             }
             this.stepSeconds = stepSeconds;
+            this.offsetsSeconds = offsetsSeconds;
             this.processValuesPercent = new double[samples];
             this.controllerOutputsPercent = new double[samples];
         }
@@ -159,7 +197,7 @@ public final class SampledResponse {
             count = processValuesPercent.length;
         }
 
-        /** Records the next sample, at time {@code count * stepSeconds}. */
+        /** Records the next sample, at the next instant of the recorder's grid. */
         public void add(double processValuePercent, double controllerOutputPercent) {
             processValuesPercent[count] = processValuePercent;
             controllerOutputsPercent[count] = controllerOutputPercent;
@@ -179,7 +217,8 @@ public final class SampledResponse {
                 requireFinite("process value", k, processValuesPercent[k]);
                 requireFinite("controller output", k, controllerOutputsPercent[k]);
             }
-            SampledResponse r = new SampledResponse(null, stepSeconds, processValuesPercent, controllerOutputsPercent);
+            SampledResponse r = new SampledResponse(null, stepSeconds, offsetsSeconds, processValuesPercent,
+                    controllerOutputsPercent);
             processValuesPercent = null;
             controllerOutputsPercent = null;
             return r;

@@ -20,7 +20,15 @@ import java.util.OptionalDouble;
  * </ul>
  *
  * The figures are the usual ones of Ogata, Modern Control Engineering, 4th ed., 2002,
- * section 5-3 (transient-response specifications; from memory for the section number).
+ * section 5-3 (transient-response specifications; from memory for the section number); the IAE,
+ * the 2 % band and the output travel as defined here are common practice.
+ *
+ * <p>They are read from the samples given. For a sampled loop these are the continuous PV
+ * between the scans as well as at them ({@code simulate.LoopSimulator#runBetweenScans}), so
+ * overshoot, peak and settling are what the process does, not what the scan instants show; the
+ * controller output is held between scans, so its travel is the same either way. A response
+ * read only at the scan instants understates a slow scan's overshoot (Astrom &amp; Wittenmark,
+ * Computer-Controlled Systems, 3rd ed., 1997, ch. 2, intersample behaviour - from memory).
  */
 public record StepMetrics(
         double integralAbsoluteErrorPercentSeconds,

@@ -148,14 +148,16 @@ public final class LoopCheck {
                     ? horizon(designMargins, targetMargins, designLaw, p) : horizonSeconds;
             horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
             StepTest test = StepTest.standard(horizon);
-            StepChoice choice = StepChoice.run(test, target, entered, h, sampledTarget, targetStability.isStable());
+            // sampled loops are judged on the continuous PV between scans, not only at the scan instants
+            StepChoice choice = StepChoice.run(test, target, entered, h, sampledTarget, p.rationalPart(),
+                    p.deadTimeSeconds(), targetStability.isStable());
             targetRun = choice.targetRun();
             steps = choice.steps();
             stepFindings = choice.findings();
             test = steps;
             if (sourceScan != null) {
-                designRun = LoopSimulator.run(ScanController.of(loop.sourceForm(), conversion.sourceSetting(),
-                        sourceScan), p.sampled(sourceScan), test);
+                designRun = LoopSimulator.runBetweenScans(ScanController.of(loop.sourceForm(),
+                        conversion.sourceSetting(), sourceScan), p.rationalPart(), p.deadTimeSeconds(), sourceScan, test);
                 refStep = sourceScan;
             } else {
                 refStep = referenceStep(horizon, conversion.sourceSetting(), p);

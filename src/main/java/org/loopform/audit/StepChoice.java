@@ -25,9 +25,16 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
         findings = List.copyOf(findings);
     }
 
+    /**
+     * The target's runs, judged on the continuous PV between scans ({@code g} and {@code deadTimeSeconds}
+     * the process); the linear trial that sizes the steps reads only the held outputs, so it runs at the
+     * scan instants ({@code process}, the same process sampled at the scan).
+     */
     static StepChoice run(StepTest standard, FormDefinition target, PidSetting entered, double scanSeconds,
-                          SampledStateSpace process, boolean stable) {
-        ClosedLoopRun run = LoopSimulator.run(ScanController.of(target, entered, scanSeconds), process, standard);
+                          SampledStateSpace process, org.loopform.lti.TransferFunction g, double deadTimeSeconds,
+                          boolean stable) {
+        ClosedLoopRun run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g,
+                deadTimeSeconds, scanSeconds, standard);
         if (!stable) {
             return new StepChoice(standard, run, List.of());
         }
@@ -43,7 +50,8 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
             linearLoad = OutputExtremes.of(linear.load());
             steps = standard.scaledToStayWithin(linearSetpoint, linearLoad, low, high);
             if (!steps.equals(standard)) {
-                run = LoopSimulator.run(ScanController.of(target, entered, scanSeconds), process, steps);
+                run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g, deadTimeSeconds,
+                        scanSeconds, steps);
             }
         }
         List<Finding> findings = SaturationRules.evaluate(new SaturationRules.Inputs(standard, steps, run.setpoint(),

@@ -2,6 +2,10 @@ package org.loopform.simulate;
 
 import org.loopform.analysis.SampledResponse;
 
-/** The responses of one loop to the setpoint step and to the load step, sampled at the loop's step. */
+/**
+ * The responses of one loop to the setpoint step and to the load step. {@code stepSeconds} is
+ * the controller's step (the scan); the responses hold the PV at each step, and for a run between
+ * scans ({@link LoopSimulator#runBetweenScans}) also at the sub-instants within each scan.
+ */
 public record ClosedLoopRun(SampledResponse setpoint, SampledResponse load, double stepSeconds) {
 }

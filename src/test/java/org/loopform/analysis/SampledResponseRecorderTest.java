@@ -7,7 +7,7 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
-@DisplayName("A response recorded on a uniform step")
+@DisplayName("A recorded response")
 class SampledResponseRecorderTest {
 
     private static SampledResponse threeSamples() {
@@ -66,5 +66,25 @@ class SampledResponseRecorderTest {
     void needs_two_samples_and_a_positive_step() {
         assertThatThrownBy(() -> SampledResponse.recorder(1, 1.0)).hasMessageContaining("(got 1)");
         assertThatThrownBy(() -> SampledResponse.recorder(2, 0.0)).hasMessageContaining("(got 0.0 s)");
+    }
+
+    @Test
+    void between_scans_gives_each_scan_the_same_sub_instants_and_ends_at_a_scan_instant() {
+        SampledResponse.Recorder r = SampledResponse.recorder(2, 5.0, new double[] {0.0, 1.0, 3.0});
+        for (int i = 0; i < 7; i++) {
+            r.add(50 + i, 40 + i / 3);
+        }
+        SampledResponse response = r.toResponse();
+
+        assertThat(response.timesSeconds()).containsExactly(0.0, 1.0, 3.0, 5.0, 6.0, 8.0, 10.0);
+        assertThat(response.controllerOutputsPercent()).containsExactly(40, 40, 40, 41, 41, 41, 42);
+    }
+
+    @Test
+    void between_scans_refuses_sub_instants_that_do_not_start_at_0_or_leave_the_scan() {
+        assertThatThrownBy(() -> SampledResponse.recorder(2, 5.0, new double[] {0.5, 1.0}))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("start at 0 s");
+        assertThatThrownBy(() -> SampledResponse.recorder(2, 5.0, new double[] {0.0, 5.0}))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("below the scan time");
     }
 }
