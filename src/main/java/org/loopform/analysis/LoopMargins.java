@@ -24,9 +24,10 @@ import java.util.OptionalDouble;
  *       the gain crossovers j, the least extra dead time that puts a crossover on -1.
  *   <li>{@code maximumSensitivity}: {@code Ms = max |1 / (1 + L)|} over the band, and
  *       {@code maximumSensitivityRadPerSecond} where it peaks.
- *   <li>{@code stability}: the Nyquist verdict for an open loop with no right-half-plane poles.
  *   <li>{@code phaseCrossovers}, {@code gainCrossovers}: every crossing found, in rising frequency.
  * </ul>
+ * Margins describe robustness only: whether the loop is stable at all is decided from its
+ * closed-loop poles ({@link SampledStability}, {@link ContinuousStability}), never from margins.
  *
  * Definitions after Astrom and Murray, Feedback Systems, 2008, section 9.3 (stability margins;
  * from memory for the section number); the gain interval of a conditionally stable loop and the
@@ -41,7 +42,6 @@ public record LoopMargins(
         OptionalDouble delayMarginSeconds,
         double maximumSensitivity,
         double maximumSensitivityRadPerSecond,
-        ClosedLoopStability stability,
         Optional<MarginNote> gainMarginNote,
         Optional<MarginNote> phaseMarginNote,
         List<PhaseCrossover> phaseCrossovers,
@@ -76,7 +76,6 @@ public record LoopMargins(
             throw new IllegalArgumentException("maximum sensitivity frequency must be finite and > 0 rad/s (got "
                     + maximumSensitivityRadPerSecond + " rad/s)");
         }
-        Objects.requireNonNull(stability, "stability");
         Objects.requireNonNull(gainMarginNote, "gainMarginNote");
         Objects.requireNonNull(phaseMarginNote, "phaseMarginNote");
         if (gainMargin.isPresent() == gainMarginNote.isPresent()) {
@@ -97,19 +96,12 @@ public record LoopMargins(
      */
     public LoopMargins(OptionalDouble gainMargin, OptionalDouble phaseCrossoverRadPerSecond,
             OptionalDouble phaseMarginDegrees, OptionalDouble crossoverRadPerSecond, OptionalDouble delayMarginSeconds,
-            double maximumSensitivity, double maximumSensitivityRadPerSecond, ClosedLoopStability stability) {
+            double maximumSensitivity, double maximumSensitivityRadPerSecond) {
         this(gainMargin, phaseCrossoverRadPerSecond, OptionalDouble.empty(), phaseMarginDegrees, crossoverRadPerSecond,
-                delayMarginSeconds, maximumSensitivity, maximumSensitivityRadPerSecond, stability,
+                delayMarginSeconds, maximumSensitivity, maximumSensitivityRadPerSecond,
                 gainMargin.isPresent() ? Optional.empty() : Optional.of(MarginNote.NOT_IN_BAND),
                 phaseMarginDegrees.isPresent() ? Optional.empty() : Optional.of(MarginNote.NOT_IN_BAND),
                 List.of(), List.of());
-    }
-
-    /** These figures with another stability verdict. */
-    public LoopMargins withStability(ClosedLoopStability verdict) {
-        return new LoopMargins(gainMargin, phaseCrossoverRadPerSecond, lowerGainMargin, phaseMarginDegrees,
-                crossoverRadPerSecond, delayMarginSeconds, maximumSensitivity, maximumSensitivityRadPerSecond, verdict,
-                gainMarginNote, phaseMarginNote, phaseCrossovers, gainCrossovers);
     }
 
     /**
@@ -123,7 +115,7 @@ public record LoopMargins(
             return this;
         }
         return new LoopMargins(gainMargin, phaseCrossoverRadPerSecond, lowerGainMargin, phaseMarginDegrees,
-                crossoverRadPerSecond, delayMarginSeconds, 1.0, bandTopRadPerSecond, stability,
+                crossoverRadPerSecond, delayMarginSeconds, 1.0, bandTopRadPerSecond,
                 gainMarginNote, phaseMarginNote, phaseCrossovers, gainCrossovers);
     }
 

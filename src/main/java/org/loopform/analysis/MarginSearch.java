@@ -76,7 +76,6 @@ final class MarginSearch {
 
     private final List<PhaseCrossover> phaseCrossovers = new ArrayList<>();
     private final List<GainCrossover> gainCrossovers = new ArrayList<>();
-    private int clockwiseEncirclements;
     /** Smallest |1 + L|^2 met at a phase crossover, and the grid interval that brackets it. */
     private double crossingReturnDifferenceSquared = Double.POSITIVE_INFINITY;
     private double crossingRadPerSecond;
@@ -118,7 +117,7 @@ final class MarginSearch {
             phaseCrossovers.add(new PhaseCrossover(w[last], 1 / magnitude));
         }
         boolean startsBeyondMinus180 = re[0] < 0 && im[0] >= 0;
-        return margins(startsBeyondMinus180 && magnitudeSquared(0) > 1 || magnitudeSquared(last) >= 1);
+        return margins();
     }
 
     // ---- the grid ----
@@ -247,11 +246,6 @@ final class MarginSearch {
         double real = 1 + reIm[0];
         noteReturnDifference(omega, real * real + reIm[1] * reIm[1], k);
         phaseCrossovers.add(new PhaseCrossover(omega, 1 / magnitude));
-        if (magnitude > 1) {
-            // the plot crosses the negative real axis left of -1: half of an encirclement of -1,
-            // the mirror image for negative frequencies gives the other half; falling phase is clockwise
-            clockwiseEncirclements += falling ? 1 : -1;
-        }
     }
 
     /**
@@ -268,7 +262,7 @@ final class MarginSearch {
 
     // ---- the figures ----
 
-    private LoopMargins margins(boolean bandMissesPartOfPlot) {
+    private LoopMargins margins() {
         double upper = Double.POSITIVE_INFINITY;
         double upperRadPerSecond = Double.NaN;
         double lower = 0;
@@ -297,9 +291,6 @@ final class MarginSearch {
         Optional<MarginNote> phaseNote = hasPhaseMargin ? Optional.empty() : Optional.of(magnitudeSquared(0) < 1
                 ? MarginNote.GAIN_STAYS_BELOW_ONE : MarginNote.GAIN_STAYS_ABOVE_ONE);
         double[] peak = sensitivityPeak();
-        ClosedLoopStability stability = bandMissesPartOfPlot
-                ? ClosedLoopStability.UNDETERMINED
-                : clockwiseEncirclements == 0 ? ClosedLoopStability.STABLE : ClosedLoopStability.UNSTABLE;
         return new LoopMargins(
                 hasGainMargin ? OptionalDouble.of(upper) : OptionalDouble.empty(),
                 hasGainMargin ? OptionalDouble.of(upperRadPerSecond) : OptionalDouble.empty(),
@@ -307,7 +298,7 @@ final class MarginSearch {
                 hasPhaseMargin ? OptionalDouble.of(smallestPhaseMargin) : OptionalDouble.empty(),
                 hasPhaseMargin ? OptionalDouble.of(crossover) : OptionalDouble.empty(),
                 hasPhaseMargin ? OptionalDouble.of(smallestDelayMargin) : OptionalDouble.empty(),
-                peak[1], peak[0], stability, gainNote, phaseNote, phaseCrossovers, gainCrossovers);
+                peak[1], peak[0], gainNote, phaseNote, phaseCrossovers, gainCrossovers);
     }
 
     /** {omega, Ms}: the grid minimum of |1 + L| (or a deeper one met at a crossing), refined by Brent's minimizer. */

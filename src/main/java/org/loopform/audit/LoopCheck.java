@@ -139,8 +139,6 @@ public final class LoopCheck {
             designStability = sourceScan != null
                     ? SampledStability.of(new SampledOpenLoop(sourcePulseOf(loop, conversion, sourceScan), p.sampled(sourceScan)))
                     : ContinuousStability.of(designLaw.feedback().times(p.rationalPart()), p.deadTimeSeconds(), low);
-            targetMargins = targetMargins.withStability(legacy(targetStability));
-            designMargins = designMargins.withStability(legacy(designStability));
             ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
             findings.addAll(StabilityRule.evaluate(designStability, targetStability));
 
@@ -189,10 +187,11 @@ public final class LoopCheck {
         LawDeviation discretization = ControllerMismatch.over(conversion.enteredLaw(), targetPulse, mismatchBand);
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h, facts, designMargins, targetMargins,
-                discretization, mismatchBand.highRadPerSecond()), policy));
+                discretization, mismatchBand.highRadPerSecond(), targetStability == null || targetStability.isStable()),
+                policy));
         findings.addAll(stepFindings);
         if (targetRun != null) {
-            findings.addAll(ResponseRules.evaluate(new ResponseRules.Inputs(designMargins, targetMargins, ds, ts, dl, tl,
+            findings.addAll(ResponseRules.evaluate(new ResponseRules.Inputs(designStability.isStable() && targetStability.isStable(), ds, ts, dl, tl,
                     h, targetRun.setpoint().timeSeconds(targetRun.setpoint().size() - 1), steps.loadStepPercent()),
                     policy));
         }
@@ -227,12 +226,6 @@ public final class LoopCheck {
     private static PulseLaw sourcePulseOf(LoopSpec loop, Conversion conversion, double sourceScan) {
         return PulseLaw.of(conversion.sourceSetting(), loop.sourceForm().filter().placement(),
                 loop.sourceForm().algorithm(), sourceScan);
-    }
-
-    /** The margins' own stability word, kept in step with the decision from the poles (marginal counts as unstable). */
-    private static org.loopform.analysis.ClosedLoopStability legacy(LoopStability s) {
-        return s.isStable() ? org.loopform.analysis.ClosedLoopStability.STABLE
-                : org.loopform.analysis.ClosedLoopStability.UNSTABLE;
     }
 
     private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {

@@ -2,7 +2,6 @@ package org.loopform.findings;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.loopform.analysis.ClosedLoopStability;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.form.AlgorithmKind;
 import org.loopform.form.AntiWindup;
@@ -31,7 +30,8 @@ public final class CheckRules {
 
     /** What the rules look at. {@code design} and {@code target} are null without a process model. */
     public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
-                         LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond) {
+                         LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
+                         boolean targetStable) {
     }
 
     public static List<Finding> evaluate(Inputs in, CheckPolicy policy) {
@@ -162,7 +162,7 @@ public final class CheckRules {
         if (t == null) {
             return;
         }
-        if (t.stability() == ClosedLoopStability.UNSTABLE) {
+        if (!in.targetStable()) {
             // StabilityRule fails it from the closed-loop poles, whatever the policy; its margins describe
             // nothing to hold against thresholds
             return;

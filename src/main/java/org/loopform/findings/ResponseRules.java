@@ -2,8 +2,6 @@ package org.loopform.findings;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.loopform.analysis.ClosedLoopStability;
-import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.units.Numbers;
 
@@ -33,16 +31,15 @@ public final class ResponseRules {
      * The two loops' figures for the same steps: {@code scanSeconds} is the target's scan,
      * {@code runSeconds} the simulated time, {@code loadStepPercent} the load step used.
      */
-    public record Inputs(LoopMargins designLoop, LoopMargins targetLoop, StepMetrics designSetpoint,
+    public record Inputs(boolean bothStable, StepMetrics designSetpoint,
                          StepMetrics targetSetpoint, StepMetrics designLoad, StepMetrics targetLoad, double scanSeconds,
                          double runSeconds, double loadStepPercent) {
     }
 
     public static List<Finding> evaluate(Inputs in, CheckPolicy p) {
         List<Finding> out = new ArrayList<>();
-        if (in.designLoop() == null || in.targetLoop() == null
-                || in.designLoop().stability() == ClosedLoopStability.UNSTABLE
-                || in.targetLoop().stability() == ClosedLoopStability.UNSTABLE) {
+        if (!in.bothStable()) {
+            // a loop that is not stable has no response to compare (the stability rule fails it)
             return out;
         }
         overshoot(in, p, out);

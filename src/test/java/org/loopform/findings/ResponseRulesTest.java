@@ -7,7 +7,6 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
-import org.loopform.analysis.ClosedLoopStability;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 
@@ -41,7 +40,7 @@ class ResponseRulesTest {
 
     private static List<Finding> compare(StepMetrics designSp, StepMetrics targetSp, StepMetrics designLoad,
                                          StepMetrics targetLoad, CheckPolicy policy) {
-        return ResponseRules.evaluate(new ResponseRules.Inputs(STABLE, STABLE, designSp, targetSp, designLoad,
+        return ResponseRules.evaluate(new ResponseRules.Inputs(true, designSp, targetSp, designLoad,
                 targetLoad, SCAN_SECONDS, 1000, LOAD_STEP_PERCENT), policy);
     }
 
@@ -141,9 +140,7 @@ class ResponseRulesTest {
 
     @Test
     void an_unstable_loop_s_responses_are_not_compared() {
-        LoopMargins unstable = new LoopMargins(OptionalDouble.of(0.8), OptionalDouble.of(0.3), OptionalDouble.of(-10),
-                OptionalDouble.of(0.1), OptionalDouble.of(-1.7), 5, 0.2, ClosedLoopStability.UNSTABLE);
-        assertThat(ResponseRules.evaluate(new ResponseRules.Inputs(STABLE, unstable, setpoint(1, 238.0),
+        assertThat(ResponseRules.evaluate(new ResponseRules.Inputs(false, setpoint(1, 238.0),
                 setpoint(50, null), load(700, 2.6), load(7000, 26), SCAN_SECONDS, 1000, LOAD_STEP_PERCENT),
                 CheckPolicy.DEFAULT)).isEmpty();
     }

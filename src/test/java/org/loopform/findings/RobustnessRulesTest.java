@@ -9,7 +9,6 @@ import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
-import org.loopform.analysis.ClosedLoopStability;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.form.Discretization;
 import org.loopform.io.CatalogLoader;
@@ -30,12 +29,16 @@ class RobustnessRulesTest {
     /** A safe loop: GM 5, PM 60 deg, DM 20 s (40 scans), Ms 1.3, crossover 0.1 rad/s (h wc = 0.05). */
     static LoopMargins margins(double gm, double pmDegrees, double dmSeconds, double ms) {
         return new LoopMargins(OptionalDouble.of(gm), OptionalDouble.of(0.3), OptionalDouble.of(pmDegrees),
-                OptionalDouble.of(0.1), OptionalDouble.of(dmSeconds), ms, 0.2, ClosedLoopStability.STABLE);
+                OptionalDouble.of(0.1), OptionalDouble.of(dmSeconds), ms, 0.2);
     }
 
     static List<Finding> robustness(LoopMargins target, CheckPolicy policy) {
+        return robustness(target, policy, true);
+    }
+
+    static List<Finding> robustness(LoopMargins target, CheckPolicy policy, boolean targetStable) {
         var in = new CheckRules.Inputs(CatalogLoader.resolve("ideal", "test"), SCAN_SECONDS,
-                new ScanFacts(SCAN_SECONDS, 0, 0, Discretization.BACKWARD), null, target, null, 1.0);
+                new ScanFacts(SCAN_SECONDS, 0, 0, Discretization.BACKWARD), null, target, null, 1.0, targetStable);
         return CheckRules.evaluate(in, policy).stream().filter(f -> f.topic() == Topic.ROBUSTNESS).toList();
     }
 
@@ -105,10 +108,9 @@ class RobustnessRulesTest {
                 "phase_margin_fail_deg", 0.0, "phase_margin_warn_deg", 0.0, "gain_margin_fail", 0.0,
                 "gain_margin_warn", 0.0, "delay_margin_fail_scans", 0.0, "delay_margin_warn_scans", 0.0));
         LoopMargins unstable = new LoopMargins(OptionalDouble.of(0.8), OptionalDouble.of(0.3),
-                OptionalDouble.of(-10), OptionalDouble.of(0.1), OptionalDouble.of(-1.7), 5, 0.2,
-                ClosedLoopStability.UNSTABLE);
+                OptionalDouble.of(-10), OptionalDouble.of(0.1), OptionalDouble.of(-1.7), 5, 0.2);
         // the margins of an unstable loop describe nothing to hold against thresholds
-        assertThat(robustness(unstable, lax)).isEmpty();
+        assertThat(robustness(unstable, lax, false)).isEmpty();
         // the stability rule takes no policy: an unstable or marginal target loop always fails
         org.loopform.analysis.LoopStability stable = new org.loopform.analysis.LoopStability(
                 org.loopform.analysis.Stability.STABLE, org.loopform.analysis.StabilityTest.SAMPLED_POLES, 0,
