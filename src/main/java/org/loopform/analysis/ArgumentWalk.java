@@ -92,12 +92,12 @@ final class ArgumentWalk {
     }
 
     private double refine(double a, double[] fa, double b, double[] fb, int depth) {
-        double turn = turn(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
-        if (acceptable(a, fa, b, fb, turn)) {
-            return turn;
+        if (acceptable(a, fa, b, fb)) {
+            return turn(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
         }
         double scale = Math.max(Math.abs(a), Math.abs(b));
         if (b - a <= SMALLEST_STEP_RELATIVE * scale || evaluations >= MAX_EVALUATIONS || depth > 200) {
+            double turn = turn(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
             if (Math.abs(turn) > Math.PI / 2) {
                 unresolved = true;
             }
@@ -113,26 +113,44 @@ final class ArgumentWalk {
         return refine(a, fa, mid, fm, depth + 1) + refine(mid, fm, b, fb, depth + 1);
     }
 
-    private boolean acceptable(double a, double[] fa, double b, double[] fb, double turn) {
-        double rTurn = turn(fa[2], fa[3], fb[2], fb[3]);
-        double rMagnitudeStep = Math.abs(logMagnitude(fb[2], fb[3]) - logMagnitude(fa[2], fa[3]));
-        boolean rationalSmooth = Math.abs(rTurn) <= 2 * MAX_TURN && rMagnitudeStep <= MAX_LOG_MAGNITUDE_STEP;
-        double la = Math.hypot(fa[0], fa[1]);
-        double lb = Math.hypot(fb[0], fb[1]);
-        if (la < SMALL_LOOP && lb < SMALL_LOOP && rationalSmooth) {
-            return true;
+    /** tan of the largest accepted turn, and the squared bounds of the accepted magnitude ratio. */
+    private static final double TAN_MAX_TURN = Math.tan(MAX_TURN);
+    private static final double TAN_TWICE_MAX_TURN = Math.tan(2 * MAX_TURN);
+    private static final double MAX_MAGNITUDE_RATIO_SQUARED = Math.exp(2 * MAX_LOG_MAGNITUDE_STEP);
+    private static final double SMALL_LOOP_SQUARED = SMALL_LOOP * SMALL_LOOP;
+
+    /**
+     * Whether the step may be added as a principal difference; the tests compare tangents and squared
+     * magnitudes rather than angles and logarithms (the same thresholds, and far cheaper).
+     */
+    private boolean acceptable(double a, double[] fa, double b, double[] fb) {
+        double ra2 = fa[2] * fa[2] + fa[3] * fa[3];
+        double rb2 = fb[2] * fb[2] + fb[3] * fb[3];
+        double ratio = rb2 / ra2;
+        boolean magnitudeSmooth = ratio <= MAX_MAGNITUDE_RATIO_SQUARED && ratio * MAX_MAGNITUDE_RATIO_SQUARED >= 1;
+        if (!magnitudeSmooth) {
+            return false;
         }
-        return Math.abs(turn) <= MAX_TURN && Math.abs(rTurn) <= MAX_TURN && rMagnitudeStep <= MAX_LOG_MAGNITUDE_STEP
-                && (b - a) * delayTurnPerUnit <= MAX_TURN;
+        double rDot = fa[2] * fb[2] + fa[3] * fb[3];
+        double rCross = fa[2] * fb[3] - fa[3] * fb[2];
+        double la2 = fa[0] * fa[0] + fa[1] * fa[1];
+        double lb2 = fb[0] * fb[0] + fb[1] * fb[1];
+        if (la2 < SMALL_LOOP_SQUARED && lb2 < SMALL_LOOP_SQUARED) {
+            return rDot > 0 && Math.abs(rCross) <= TAN_TWICE_MAX_TURN * rDot;
+        }
+        if (!(rDot > 0 && Math.abs(rCross) <= TAN_MAX_TURN * rDot) || (b - a) * delayTurnPerUnit > MAX_TURN) {
+            return false;
+        }
+        double ar = 1 + fa[0];
+        double br = 1 + fb[0];
+        double dot = ar * br + fa[1] * fb[1];
+        double cross = ar * fb[1] - fa[1] * br;
+        return dot > 0 && Math.abs(cross) <= TAN_MAX_TURN * dot;
     }
 
     /** The principal angle from (ar + i ai) to (br + i bi), in (-pi, pi]. */
     static double turn(double ar, double ai, double br, double bi) {
         // arg(b / a) = atan2(Im(b conj a), Re(b conj a))
         return Math.atan2(bi * ar - br * ai, br * ar + bi * ai);
-    }
-
-    private static double logMagnitude(double re, double im) {
-        return Math.log(Math.max(Math.hypot(re, im), Double.MIN_NORMAL));
     }
 }

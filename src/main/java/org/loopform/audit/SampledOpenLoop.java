@@ -18,21 +18,38 @@ final class SampledOpenLoop implements SampledLoop {
     private final SampledStateSpace.Workspace work;
     private final double[] c = new double[2];
     private final double[] h = new double[4];
+    private final int delayScans;
+    private double cachedOffset = Double.NaN;
+    private double delayScale;
 
     SampledOpenLoop(PulseLaw controller, SampledStateSpace process) {
         this.controller = controller;
         this.process = process;
         this.work = process.newWorkspace();
+        this.delayScans = process.delayScans();
     }
 
     @Override
     public void at(double radiusOffset, double theta, double[] out) {
-        controller.feedbackAtRadius(radiusOffset, theta, c);
-        process.responseAtRadius(radiusOffset, theta, work, h);
-        out[0] = c[0] * h[0] - c[1] * h[1];
-        out[1] = c[0] * h[1] + c[1] * h[0];
-        out[2] = c[0] * h[2] - c[1] * h[3];
-        out[3] = c[0] * h[3] + c[1] * h[2];
+        // one cosine and sine for both factors, and the delay's two
+        double cos = Math.cos(theta);
+        double sin = Math.sin(theta);
+        double oneMinusCos = PulseLaw.oneMinusCos(cos, sin);
+        controller.feedbackAtPoint(radiusOffset, cos, sin, oneMinusCos, c);
+        process.rationalAtPoint(radiusOffset, cos, sin, oneMinusCos, work, h);
+        double rRe = c[0] * h[2] - c[1] * h[3];
+        double rIm = c[0] * h[3] + c[1] * h[2];
+        if (radiusOffset != cachedOffset) {
+            cachedOffset = radiusOffset;
+            delayScale = Math.exp(-delayScans * Math.log1p(radiusOffset));
+        }
+        double delayPhase = -delayScans * theta;
+        double dc = Math.cos(delayPhase) * delayScale;
+        double ds = Math.sin(delayPhase) * delayScale;
+        out[0] = rRe * dc - rIm * ds;
+        out[1] = rRe * ds + rIm * dc;
+        out[2] = rRe;
+        out[3] = rIm;
     }
 
     @Override

@@ -178,12 +178,35 @@ public final class SampledStateSpace {
             throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
                     + n + "; take it from this model's newWorkspace()");
         }
-        double radius = 1 + radiusOffset;
         double cos = Math.cos(theta);
         double sin = Math.sin(theta);
-        double halfSin = Math.sin(theta / 2);
-        // z - 1 = radiusOffset cos - 2 sin^2(theta/2) + i radius sin
-        double zMinusOneRe = radiusOffset * cos - 2 * halfSin * halfSin;
+        rationalAtPoint(radiusOffset, cos, sin, cos > 0 ? sin * sin / (1 + cos) : 1 - cos, workspace, out);
+        double hRe = out[2];
+        double hIm = out[3];
+        // z^-d = radius^-d e^(-i d theta)
+        double scale = Math.exp(-delayScans * Math.log1p(radiusOffset));
+        double delayPhase = -delayScans * theta;
+        double dc = Math.cos(delayPhase) * scale;
+        double ds = Math.sin(delayPhase) * scale;
+        out[0] = hRe * dc - hIm * ds;
+        out[1] = hRe * ds + hIm * dc;
+    }
+
+    /**
+     * {@code H z^d} (the pulse transfer function without its whole-scan delay) at
+     * {@code z = (1 + radiusOffset) e^(i theta)}, the angle given by its cosine, sine and
+     * {@code 1 - cos} (computed without cancellation by the caller), into {@code out[2], out[3]}.
+     */
+    public void rationalAtPoint(double radiusOffset, double cos, double sin, double oneMinusCos, Workspace workspace,
+                                double[] out) {
+        int n = order;
+        if (workspace.order != n) {
+            throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
+                    + n + "; take it from this model's newWorkspace()");
+        }
+        double radius = 1 + radiusOffset;
+        // z - 1 = radiusOffset cos - (1 - cos) + i radius sin
+        double zMinusOneRe = radiusOffset * cos - oneMinusCos;
         double zIm = radius * sin;
         // z^-1 = e^(-i theta) / radius
         double invRe = cos / radius;
@@ -209,13 +232,6 @@ public final class SampledStateSpace {
             hRe += output[i] * rRe[i];
             hIm += output[i] * rIm[i];
         }
-        // z^-d = radius^-d e^(-i d theta)
-        double scale = Math.exp(-delayScans * Math.log1p(radiusOffset));
-        double delayPhase = -delayScans * theta;
-        double dc = Math.cos(delayPhase) * scale;
-        double ds = Math.sin(delayPhase) * scale;
-        out[0] = hRe * dc - hIm * ds;
-        out[1] = hRe * ds + hIm * dc;
         out[2] = hRe;
         out[3] = hIm;
     }

@@ -73,11 +73,23 @@ public final class PulseLaw {
      * near z = 1. Allocates nothing.
      */
     public void feedbackAtRadius(double radiusOffset, double theta, double[] out) {
-        double radius = 1 + radiusOffset;
         double cos = Math.cos(theta);
         double sin = Math.sin(theta);
-        double halfSin = Math.sin(theta / 2);
-        double zMinusOneRe = radiusOffset * cos - 2 * halfSin * halfSin;
+        feedbackAtPoint(radiusOffset, cos, sin, oneMinusCos(cos, sin), out);
+    }
+
+    /** 1 - cos theta without cancellation near theta = 0: sin^2 / (1 + cos) there. */
+    public static double oneMinusCos(double cos, double sin) {
+        return cos > 0 ? sin * sin / (1 + cos) : 1 - cos;
+    }
+
+    /**
+     * As {@link #feedbackAtRadius}, with the angle given by its cosine, sine and {@code 1 - cos}
+     * ({@link #oneMinusCos}), so that a caller evaluating several factors at one point computes them once.
+     */
+    public void feedbackAtPoint(double radiusOffset, double cos, double sin, double oneMinusCos, double[] out) {
+        double radius = 1 + radiusOffset;
+        double zMinusOneRe = radiusOffset * cos - oneMinusCos;
         double zIm = radius * sin;
         double zRe = radius * cos;
         // J = h (current z + previous) / (z - 1)
