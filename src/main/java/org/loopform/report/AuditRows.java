@@ -141,6 +141,7 @@ public final class AuditRows {
         if (o.ok()) {
             ObjectNode n = CheckReport.node(o.result());
             n.put("where", o.result().loop().where());
+            Json.tidied(n);
             return n;
         }
         ObjectNode n = Json.object();

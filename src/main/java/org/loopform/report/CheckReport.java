@@ -39,9 +39,9 @@ public final class CheckReport {
         }
         sb.append(values.render(2));
         sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
-                + fmt(c.deviation().gainDb(), 3) + " dB and " + fmt(c.deviation().phaseDegrees(), 3) + " deg").append(nl);
-        sb.append("  controller as run vs design law: up to ").append(fmt(r.mismatch().gainDb(), 3)).append(" dB, ")
-                .append(fmt(r.mismatch().phaseDegrees(), 3)).append(" deg").append(nl).append(nl);
+                + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees()) + " deg").append(nl);
+        sb.append("  controller as run vs design law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
+                .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
             TextTable t = new TextTable("figure", "design", "target", "unit");
             LoopMargins d = r.designMargins();

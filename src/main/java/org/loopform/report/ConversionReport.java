@@ -6,6 +6,7 @@ import org.loopform.form.Conversion;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.FormUnits;
 import org.loopform.form.WrittenTuning;
+import org.loopform.law.ControlLaw;
 import org.loopform.units.Numbers;
 
 /** A conversion as text for people and as JSON for tools. */
@@ -39,11 +40,17 @@ public final class ConversionReport {
             sb.append("Exact: the target writes the same control law (both paths compared as rational functions).")
                     .append(nl);
         } else {
-            sb.append("Not exact: nearest setting; its feedback path deviates by up to ")
-                    .append(Numbers.significant(c.deviation().gainDb(), 3)).append(" dB and ")
-                    .append(Numbers.significant(c.deviation().phaseDegrees(), 3)).append(" deg over ")
-                    .append(Numbers.significant(c.band().lowRadPerSecond(), 3)).append(" to ")
-                    .append(Numbers.significant(c.band().highRadPerSecond(), 3)).append(" rad/s.").append(nl);
+            boolean feedbackExact = c.targetLaw().sameFeedbackAs(c.sourceLaw(), ControlLaw.SAME_LAW_TOLERANCE);
+            if (feedbackExact) {
+                sb.append("Not exact: the feedback path is exact; the setpoint path differs (see the findings).")
+                        .append(nl);
+            } else {
+                sb.append("Not exact: nearest setting; its feedback path deviates by up to ")
+                        .append(Numbers.deviation(c.deviation().gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(c.deviation().phaseDegrees())).append(" deg over ")
+                        .append(Numbers.significant(c.band().lowRadPerSecond(), 3)).append(" to ")
+                        .append(Numbers.significant(c.band().highRadPerSecond(), 3)).append(" rad/s.").append(nl);
+            }
         }
         sb.append(nl).append(FindingText.render(c.findings()));
         sb.append(nl).append(Cautions.SHORT).append(nl);
