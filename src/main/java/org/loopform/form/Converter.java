@@ -37,10 +37,12 @@ public final class Converter {
     public static final double FIT_FAIL_PHASE_DEG = 20.0;
     /**
      * A feedback-path deviation below this where the loop lives changes nothing an engineer could
-     * see in the loop's response (the tool's policy, the same as its rounding limit).
+     * see in the loop's response: 0.25 dB is 3 % of gain, 3 deg a few degrees of phase margin,
+     * both within what a loop's model is known to (the tool's policy, common practice). With a
+     * process the check compares the loops themselves.
      */
-    static final double NEGLIGIBLE_GAIN_DB = 0.1;
-    static final double NEGLIGIBLE_PHASE_DEG = 1.0;
+    static final double NEGLIGIBLE_GAIN_DB = 0.25;
+    static final double NEGLIGIBLE_PHASE_DEG = 3.0;
     /** A change in high-frequency derivative gain below this is not worth a finding. */
     static final double FILTER_CHANGE_DB = 0.1;
 

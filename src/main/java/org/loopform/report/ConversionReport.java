@@ -56,8 +56,10 @@ public final class ConversionReport {
                 .append(nl));
         if (tb != null) {
             sb.append("  textbook: the relations for laws without a derivative filter (").append(TEXTBOOK_SOURCE)
-                    .append("). They differ from the exact values because the source's derivative filter enters the")
-                    .append(" conversion; see the filter finding.").append(nl);
+                    .append(c.exact() ? "). They differ from the exact values because the source's derivative filter"
+                            + " enters the conversion; see the filter finding."
+                            : "), that is the values kept. The nearest setting differs from them because the target"
+                            + " cannot write the source law exactly; it is closer where the loop lives.").append(nl);
         }
         sb.append(nl);
         if (c.exact()) {
