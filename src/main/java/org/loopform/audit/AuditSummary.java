@@ -54,6 +54,8 @@ public final class AuditSummary {
     private final Map<Topic, int[]> byTopic = new TreeMap<>();
     private final List<Worst> worst = new ArrayList<>();
     private final List<String> badRows = new ArrayList<>();
+    /** Each distinct assumption with the number of loops it was made for, in first-seen order. */
+    private final Map<String, Integer> assumptions = new java.util.LinkedHashMap<>();
     private int loops;
     private int exact;
     private int badRowCount;
@@ -78,6 +80,7 @@ public final class AuditSummary {
         }
         CheckResult r = o.result();
         byVerdict.merge(r.verdict(), 1, Integer::sum);
+        r.conversion().assumptions().forEach(a -> assumptions.merge(a, 1, Integer::sum));
         if (r.conversion().exact()) {
             exact++;
         }
@@ -133,6 +136,14 @@ public final class AuditSummary {
 
     public List<Worst> worst() {
         return List.copyOf(worst);
+    }
+
+    /**
+     * What was assumed where the loop list did not say it, each stated once with the number of
+     * loops it applies to (the same source form gives the same words), in first-seen order.
+     */
+    public Map<String, Integer> assumptions() {
+        return java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(assumptions));
     }
 
     /** The first {@link #BAD_ROW_PROBLEMS_KEPT} bad-row problems, in input order. */

@@ -1,6 +1,7 @@
 package org.loopform.form;
 
 import java.util.List;
+import java.util.Map;
 import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
 import org.loopform.law.ControlLaw;
@@ -10,15 +11,35 @@ import org.loopform.law.LawDeviation;
 /**
  * The result of carrying one tuning from a source form to a target form: whether the target
  * writes the source law exactly, the target values (as computed, and as entered at the target's
- * resolution), how far the target law strays from the source law over the band, and the findings.
+ * resolution), how far the target law strays from the source law over the band and over the band
+ * where the loop lives, and the findings.
+ *
+ * @param textbook     the target values by the textbook relations for laws without a derivative
+ *                     filter (Astrom and Hagglund 1995, sec. 3.4), when they differ from the exact
+ *                     ones; null otherwise. Gain, integral and derivative only.
+ * @param assumptions  what was assumed because the user did not say it (the action, the source's
+ *                     filter), in plain words; the same text for every loop with the same source form,
+ *                     so an audit states each once
+ * @param loopBand     where the loop lives: the band the nearest fit weights (the law's own corners,
+ *                     or around the crossover when a process gave one)
+ * @param loopDeviation the feedback path's deviation over {@code loopBand}
+ * @param refused      values the target does not accept, by parameter name, with the reason: the
+ *                     entry sheet marks them "do not enter"
  */
 public record Conversion(FormDefinition from, FormDefinition to, PidSetting sourceSetting, ControlLaw sourceLaw,
                          PidSetting targetSetting, ControlLaw targetLaw, ControlLaw enteredLaw, boolean exact,
                          WrittenTuning parameters, WrittenTuning entered, LawDeviation deviation,
-                         FrequencyBand band, List<Finding> findings) {
+                         FrequencyBand band, List<Finding> findings, WrittenTuning textbook,
+                         List<String> assumptions, FrequencyBand loopBand, LawDeviation loopDeviation,
+                         Map<String, String> refused) {
 
     public Conversion {
         findings = List.copyOf(findings);
+        assumptions = List.copyOf(assumptions);
+        refused = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(refused));
+        if (loopBand == null || loopDeviation == null) {
+            throw new IllegalArgumentException("a conversion needs the band where the loop lives and its deviation there");
+        }
     }
 
     /** This conversion with {@code more} findings after its own. */
@@ -26,11 +47,16 @@ public record Conversion(FormDefinition from, FormDefinition to, PidSetting sour
         List<Finding> all = new java.util.ArrayList<>(findings);
         all.addAll(more);
         return new Conversion(from, to, sourceSetting, sourceLaw, targetSetting, targetLaw, enteredLaw, exact, parameters,
-                entered, deviation, band, all);
+                entered, deviation, band, all, textbook, assumptions, loopBand, loopDeviation, refused);
     }
 
     /** The worst finding's severity (INFO when there are none). */
     public Severity worst() {
         return Finding.worst(findings);
+    }
+
+    /** The reason the target refuses {@code name}'s value, or null when it accepts it. */
+    public String refusal(String name) {
+        return refused.get(name);
     }
 }

@@ -136,16 +136,19 @@ public final class FormCodec {
             case NONE -> 0.0;
             case FIXED_RATIO -> td / form.filter().ratio();
             case RATIO -> {
+                if (values.containsKey("n") && isOff(values.get("n"))) {
+                    yield 0.0;
+                }
                 double n = values.containsKey("n") ? number(form, values, "n", Kind.PLAIN) : form.filter().ratio();
                 if (!(n > 0)) {
                     throw new FormException("n: the derivative filter ratio must be > 0 (got " + n + "); typical values"
-                            + " are 8 to 20");
+                            + " are 8 to 20, or write n=off for a derivative without a filter");
                 }
                 yield td / n;
             }
             case TIME_CONSTANT -> {
-                double t = values.containsKey("tf") ? number(form, values, "tf", Kind.FILTER_TIME)
-                        : form.filter().defaultTime();
+                double t = values.containsKey("tf") ? (isOff(values.get("tf")) ? 0.0
+                        : number(form, values, "tf", Kind.FILTER_TIME)) : form.filter().defaultTime();
                 if (t < 0) {
                     throw new FormException("tf: the filter time constant must be >= 0 (got " + t + ")");
                 }
@@ -200,7 +203,9 @@ public final class FormCodec {
         });
         double td = s.derivativeTimeSeconds();
         switch (form.filter().kind()) {
-            case RATIO -> v.put("n", s.filterSeconds() > 0 && td > 0 ? td / s.filterSeconds() : form.filter().ratio());
+            // n = 0 stands for "off" (no filter) in a written tuning; it is printed and read back as "off"
+            case RATIO -> v.put("n", s.filterSeconds() > 0 && td > 0 ? td / s.filterSeconds()
+                    : td > 0 ? FILTER_OFF : form.filter().ratio());
             case TIME_CONSTANT -> v.put("tf", form.filter().unit().fromSeconds(s.filterSeconds()));
             default -> { }
         }
@@ -217,11 +222,37 @@ public final class FormCodec {
     /** The values of {@code t} as text that {@link #decode} reads back. */
     public static Map<String, String> asText(WrittenTuning t) {
         Map<String, String> m = new LinkedHashMap<>();
-        t.values().forEach((k, x) -> m.put(k, Double.toString(x)));
+        t.values().forEach((k, x) -> m.put(k, isFilterOff(k, x) ? OFF : Double.toString(x)));
         if (t.action() != null) {
             m.put("action", t.action().id());
         }
         return m;
+    }
+
+    /** The written value of {@code n} that means "no derivative filter". */
+    public static final double FILTER_OFF = 0.0;
+    /** How a person writes "no derivative filter": {@code n=off} (or {@code tf=off}). */
+    public static final String OFF = "off";
+
+    /** True when {@code name = value} in a written tuning means "no derivative filter". */
+    public static boolean isFilterOff(String name, double value) {
+        return name.equals("n") && value == FILTER_OFF;
+    }
+
+    private static boolean isOff(String text) {
+        return text != null && text.trim().equalsIgnoreCase(OFF);
+    }
+
+    /**
+     * A written value as a person reads and types it: "off" for a filter switched off, the
+     * resolution's digits where the form names a resolution, else {@code digits} significant digits.
+     */
+    public static String show(FormDefinition form, String name, double value, int digits) {
+        if (isFilterOff(name, value)) {
+            return OFF;
+        }
+        return form.limit(name).resolution() != null ? org.loopform.units.Numbers.plain(value)
+                : org.loopform.units.Numbers.significant(value, digits);
     }
 
     /** "kc (%/%), ti (s/repeat), td (s), optional n (ratio, default 10)". */

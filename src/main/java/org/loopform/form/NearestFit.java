@@ -15,8 +15,9 @@ import org.loopform.law.PidTerms;
 
 /**
  * The member of a target form's family nearest to a law it cannot write exactly: minimizes the
- * squared complex log-ratio |ln(C_target(i w) / C_source(i w))|^2 (gain in nepers and phase in
- * radians weighted alike) over log-spaced frequencies of the band. The setpoint weights b and c
+ * weighted squared complex log-ratio |ln(C_target(i w) / C_source(i w))|^2 (gain in nepers and
+ * phase in radians alike) over log-spaced frequencies of the band, weighted 1 where the loop lives
+ * and less a decade away ({@link #weight}). The setpoint weights b and c
  * do not enter the feedback path, so the fit runs in two stages: first gain, integral, derivative
  * and filter against the feedback path (which sets stability and disturbance response), then
  * the adjustable weights against the setpoint path with the rest held. Positive coordinates are
@@ -43,15 +44,21 @@ final class NearestFit {
     private final FormDefinition target;
     private final ControlLaw source;
     private final double[] omegas;
+    /** The weight of each frequency of {@link #omegas}: 1 where the loop lives, falling off outside. */
+    private final double[] weights;
     private final double sign;
     private final boolean useIntegral;
     private final boolean useDerivative;
     private final boolean freeFilter;
 
-    NearestFit(FormDefinition target, ControlLaw source, FrequencyBand band) {
+    NearestFit(FormDefinition target, ControlLaw source, FrequencyBand band, FrequencyBand lives) {
         this.target = target;
         this.source = source;
         this.omegas = band.grid(FIT_POINTS);
+        this.weights = new double[omegas.length];
+        for (int k = 0; k < omegas.length; k++) {
+            weights[k] = weight(omegas[k], lives);
+        }
         PidTerms t = source.terms();
         this.sign = Math.signum(t.p() != 0 ? t.p() : t.d() != 0 ? t.d() : t.i());
         this.useIntegral = t.i() != 0;
@@ -109,7 +116,8 @@ final class NearestFit {
         double[] a = new double[2];
         double[] b = new double[2];
         double sum = 0;
-        for (double w : omegas) {
+        for (int k = 0; k < omegas.length; k++) {
+            double w = omegas[k];
             if (feedback) {
                 source.feedbackAt(w, a);
                 law.feedbackAt(w, b);
@@ -117,9 +125,26 @@ final class NearestFit {
                 source.setpointAt(w, a);
                 law.setpointAt(w, b);
             }
-            sum += logRatioSquared(a, b);
+            sum += weights[k] * logRatioSquared(a, b);
         }
         return sum;
+    }
+
+    /**
+     * 1 inside the band where the loop lives, and (edge / omega)^2 or (omega / edge)^2 outside: a
+     * decade away counts a hundredth, so the filter corner and the high-frequency derivative gain,
+     * reported apart, no longer pull the fit away from the crossover.
+     */
+    static double weight(double omega, FrequencyBand lives) {
+        if (omega < lives.lowRadPerSecond()) {
+            double r = omega / lives.lowRadPerSecond();
+            return r * r;
+        }
+        if (omega > lives.highRadPerSecond()) {
+            double r = lives.highRadPerSecond() / omega;
+            return r * r;
+        }
+        return 1.0;
     }
 
     private double[] encodeWeights(PidSetting s) {

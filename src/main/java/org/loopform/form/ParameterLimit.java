@@ -20,6 +20,13 @@ public record ParameterLimit(Double min, Double max, Double resolution) {
         }
     }
 
+    /**
+     * Significant digits of a value entered where the form names no resolution: the binary noise of
+     * the conversion (117.99999999999999) is taken off, nothing the law would feel; outputs print
+     * fewer digits. The check runs these values, so the target loop is the converted law itself.
+     */
+    public static final int UNRESOLVED_DIGITS = 12;
+
     public boolean accepts(double value) {
         return (min == null || value >= min - tolerance(min)) && (max == null || value <= max + tolerance(max));
     }
@@ -31,13 +38,12 @@ public record ParameterLimit(Double min, Double max, Double resolution) {
 
     /**
      * The value as the target stores it: the nearest multiple of the resolution (half away from
-     * zero), or twelve significant digits where the form names no resolution.
+     * zero), or {@link #UNRESOLVED_DIGITS} significant digits where the form names no resolution.
      */
     public double round(double value) {
         if (resolution == null) {
-            // no stored step: twelve significant digits, more than any controller keeps, without binary noise
             return value == 0 || !Double.isFinite(value) ? value
-                    : new java.math.BigDecimal(value).round(new java.math.MathContext(12)).doubleValue();
+                    : new java.math.BigDecimal(value).round(new java.math.MathContext(UNRESOLVED_DIGITS)).doubleValue();
         }
         java.math.BigDecimal step = java.math.BigDecimal.valueOf(resolution);
         java.math.BigDecimal steps = java.math.BigDecimal.valueOf(value)

@@ -16,6 +16,7 @@ import org.loopform.audit.Verdict;
 import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 import org.loopform.form.Conversion;
+import org.loopform.form.FormCodec;
 import org.loopform.form.FormUnits;
 import org.loopform.form.WrittenTuning;
 import org.loopform.units.Numbers;
@@ -37,7 +38,7 @@ public final class AuditRows {
 
     /** entry-sheet.csv columns: one row per value to type in. */
     public static final List<String> ENTRY_COLUMNS = List.of("tag", "target_form", "parameter", "value", "unit",
-            "verdict");
+            "verdict", "note");
 
     private static String num(double v) {
         return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
@@ -53,8 +54,9 @@ public final class AuditRows {
 
     static String written(WrittenTuning t, Conversion c, boolean entered) {
         List<String> parts = new ArrayList<>();
-        t.values().forEach((k, v) -> parts.add(k + "=" + (entered && c.to().limit(k).resolution() != null
-                ? Numbers.plain(v) : Numbers.significant(v, 6)) + " " + FormUnits.of(c.to(), k)));
+        t.values().forEach((k, v) -> parts.add(k + "=" + (FormCodec.isFilterOff(k, v) ? FormCodec.OFF
+                : entered && c.to().limit(k).resolution() != null ? Numbers.plain(v) : Numbers.significant(v, 6))
+                + " " + FormUnits.of(c.to(), k) + (entered && c.refusal(k) != null ? " (do not enter)" : "")));
         if (t.action() != null) {
             parts.add("action=" + t.action().id());
         }
@@ -142,11 +144,13 @@ public final class AuditRows {
         }
         CheckResult c = o.result();
         Conversion v = c.conversion();
+        // a value the target refuses is never listed as if it could be typed in
         v.entered().values().forEach((k, x) -> rows.add(List.of(c.loop().tag(), v.to().id(), k,
-                v.to().limit(k).resolution() != null ? Numbers.plain(x) : Numbers.significant(x, 6),
-                FormUnits.of(v.to(), k), c.verdict().id())));
+                FormCodec.show(v.to(), k, x, 6), FormUnits.of(v.to(), k), c.verdict().id(),
+                v.refusal(k) == null ? "" : "do not enter: " + v.refusal(k))));
         if (v.entered().action() != null) {
-            rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id()));
+            rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
+                    ""));
         }
         return rows.stream().map(AuditRows::spreadsheetRow).toList();
     }
@@ -181,6 +185,7 @@ public final class AuditRows {
         if (o.ok()) {
             ObjectNode n = CheckReport.node(o.result());
             n.put("where", o.result().loop().where());
+            Json.tidied(n);
             return n;
         }
         ObjectNode n = Json.object();
@@ -218,6 +223,12 @@ public final class AuditRows {
             wn.put("warns", x.warns());
             wn.put("headline", x.headline());
         }
+        ArrayNode as = n.putArray("assumptions");
+        s.assumptions().forEach((a, count) -> {
+            ObjectNode an = as.addObject();
+            an.put("assumption", a);
+            an.put("loops", count);
+        });
         ArrayNode b = n.putArray("bad_row_problems");
         s.badRows().forEach(b::add);
         n.put("bad_row_problems_not_listed", s.badRowProblemCount() - s.badRows().size());
@@ -252,6 +263,11 @@ public final class AuditRows {
                 t.row(w.tag(), w.verdict().id(), Integer.toString(w.fails()), Integer.toString(w.warns()), h);
             }
             sb.append(t.render(2));
+        }
+        if (!s.assumptions().isEmpty()) {
+            sb.append(nl).append("Assumed where the loop list did not say:").append(nl);
+            s.assumptions().forEach((a, n) -> sb.append("  ").append(n).append(n == 1 ? " loop: " : " loops: ")
+                    .append(a).append(nl));
         }
         if (!s.badRows().isEmpty()) {
             sb.append(nl).append("Bad rows (not checked):").append(nl);

@@ -6,6 +6,7 @@ import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.audit.CheckResult;
 import org.loopform.form.Conversion;
+import org.loopform.form.FormCodec;
 import org.loopform.form.FormUnits;
 import org.loopform.units.Numbers;
 
@@ -31,17 +32,19 @@ public final class CheckReport {
                 .append(Numbers.plain(r.scanSeconds())).append(" s scan").append("    verdict: ")
                 .append(r.verdict().id().toUpperCase(java.util.Locale.ROOT)).append(nl).append(nl);
         TextTable values = new TextTable("enter", "value", "unit", "converted");
-        c.entered().values().forEach((k, v) -> values.row(k, c.to().limit(k).resolution() == null
-                ? Numbers.significant(v, 6) : Numbers.plain(v), FormUnits.of(c.to(), k),
-                Numbers.significant(c.parameters().values().get(k), 6)));
+        c.entered().values().forEach((k, v) -> values.row(k, c.refusal(k) != null ? "do not enter"
+                : FormCodec.show(c.to(), k, v, 6), FormUnits.of(c.to(), k),
+                FormCodec.show(c.to(), k, c.parameters().values().get(k), 6)));
         if (c.entered().action() != null) {
             values.row("action", c.entered().action().id(), "", c.entered().action().id());
         }
         sb.append(values.render(2));
+        c.refused().forEach((k, why) -> sb.append("  ").append(k).append(": do not enter; ").append(why).append('.')
+                .append(nl));
         sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
-                + fmt(c.deviation().gainDb(), 3) + " dB and " + fmt(c.deviation().phaseDegrees(), 3) + " deg").append(nl);
-        sb.append("  controller as run vs design law: up to ").append(fmt(r.mismatch().gainDb(), 3)).append(" dB, ")
-                .append(fmt(r.mismatch().phaseDegrees(), 3)).append(" deg").append(nl).append(nl);
+                + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees()) + " deg").append(nl);
+        sb.append("  controller as run vs design law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
+                .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
             TextTable t = new TextTable("figure", "design", "target", "unit");
             LoopMargins d = r.designMargins();
@@ -98,7 +101,8 @@ public final class CheckReport {
         } else {
             sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
         }
-        sb.append(nl).append(FindingText.render(r.findings()));
+        sb.append(nl).append(ConversionReport.assumptionsText(c.assumptions()));
+        sb.append(FindingText.render(r.findings()));
         sb.append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
     }
@@ -163,10 +167,12 @@ public final class CheckReport {
         p.put("from", c.from().id());
         p.put("to", c.to().id());
         p.put("exact", c.exact());
-        ObjectNode conv = p.putObject("converted");
-        c.parameters().values().forEach(conv::put);
-        ObjectNode ent = p.putObject("entered");
-        c.entered().values().forEach(ent::put);
+        ConversionReport.putValues(p.putObject("converted"), c.parameters());
+        ConversionReport.putValues(p.putObject("entered"), c.entered());
+        if (!c.refused().isEmpty()) {
+            ObjectNode dne = p.putObject("do_not_enter");
+            c.refused().forEach(dne::put);
+        }
         ObjectNode units = p.putObject("units");
         c.parameters().values().keySet().forEach(k -> units.put(k, FormUnits.of(c.to(), k)));
         if (c.entered().action() != null) {
@@ -195,6 +201,8 @@ public final class CheckReport {
             ref.put("step_s", r.referenceStepSeconds());
             ref.put("pv_error_pct", r.referenceErrorPercent());
         }
+        com.fasterxml.jackson.databind.node.ArrayNode as = n.putArray("assumptions");
+        c.assumptions().forEach(as::add);
         n.set("findings", Json.findings(r.findings()));
         return n;
     }

@@ -3,9 +3,11 @@ package org.loopform.report;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
 import org.loopform.form.Conversion;
+import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.FormUnits;
 import org.loopform.form.WrittenTuning;
+import org.loopform.law.ControlLaw;
 import org.loopform.units.Numbers;
 
 /** A conversion as text for people and as JSON for tools. */
@@ -25,29 +27,90 @@ public final class ConversionReport {
         sourceValues.forEach((k, v) -> src.row(k, v, k.equals("action") ? "" : FormUnits.of(c.from(), k)));
         sb.append(src.render(2));
         sb.append(nl).append("To   ").append(c.to().id()).append("  (").append(c.to().title()).append(')').append(nl);
-        TextTable out = new TextTable("parameter", "value", "unit", "enter");
         WrittenTuning w = c.parameters();
-        w.values().forEach((k, v) -> out.row(k, Numbers.significant(v, DIGITS), FormUnits.of(c.to(), k),
-                c.to().limit(k).resolution() == null ? Numbers.significant(c.entered().values().get(k), DIGITS)
-                        : Numbers.plain(c.entered().values().get(k))));
+        WrittenTuning tb = c.textbook();
+        TextTable out = tb == null ? new TextTable("parameter", "value", "unit", "enter")
+                : new TextTable("parameter", "value", "unit", "enter", "textbook");
+        w.values().forEach((k, v) -> {
+            String value = FormCodec.show(c.to(), k, v, DIGITS);
+            String enter = c.refusal(k) != null ? "do not enter"
+                    : FormCodec.show(c.to(), k, c.entered().values().get(k), DIGITS);
+            if (tb == null) {
+                out.row(k, value, FormUnits.of(c.to(), k), enter);
+            } else {
+                boolean main = k.equals(c.to().gainName()) || k.equals(c.to().integralName())
+                        || k.equals(c.to().derivativeName());
+                out.row(k, value, FormUnits.of(c.to(), k), enter,
+                        main ? Numbers.significant(tb.values().get(k), 4) : "-");
+            }
+        });
         if (w.action() != null) {
-            out.row("action", w.action().id(), "", w.action().id());
+            if (tb == null) {
+                out.row("action", w.action().id(), "", w.action().id());
+            } else {
+                out.row("action", w.action().id(), "", w.action().id(), w.action().id());
+            }
         }
         sb.append(out.render(2));
+        c.refused().forEach((k, why) -> sb.append("  ").append(k).append(": do not enter; ").append(why).append('.')
+                .append(nl));
+        if (tb != null) {
+            sb.append("  textbook: the relations for laws without a derivative filter (").append(TEXTBOOK_SOURCE)
+                    .append(c.exact() ? "). They differ from the exact values because the source's derivative filter"
+                            + " enters the conversion; see the filter finding."
+                            : "), that is the values kept. The nearest setting differs from them because the target"
+                            + " cannot write the source law exactly; it is closer where the loop lives.").append(nl);
+        }
         sb.append(nl);
         if (c.exact()) {
             sb.append("Exact: the target writes the same control law (both paths compared as rational functions).")
                     .append(nl);
         } else {
-            sb.append("Not exact: nearest setting; its feedback path deviates by up to ")
-                    .append(Numbers.significant(c.deviation().gainDb(), 3)).append(" dB and ")
-                    .append(Numbers.significant(c.deviation().phaseDegrees(), 3)).append(" deg over ")
-                    .append(Numbers.significant(c.band().lowRadPerSecond(), 3)).append(" to ")
-                    .append(Numbers.significant(c.band().highRadPerSecond(), 3)).append(" rad/s.").append(nl);
+            boolean feedbackExact = c.targetLaw().sameFeedbackAs(c.sourceLaw(), ControlLaw.SAME_LAW_TOLERANCE);
+            if (feedbackExact) {
+                sb.append("Not exact: the feedback path is exact; the setpoint path differs (see the findings).")
+                        .append(nl);
+            } else {
+                sb.append("Not exact: nearest setting; its feedback path deviates by up to ")
+                        .append(Numbers.deviation(c.loopDeviation().gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(c.loopDeviation().phaseDegrees())).append(" deg where the loop lives (")
+                        .append(Numbers.significant(c.loopBand().lowRadPerSecond(), 3)).append(" to ")
+                        .append(Numbers.significant(c.loopBand().highRadPerSecond(), 3)).append(" rad/s), and by up to ")
+                        .append(Numbers.deviation(c.deviation().gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(c.deviation().phaseDegrees())).append(" deg over the whole band (")
+                        .append(Numbers.significant(c.band().lowRadPerSecond(), 3)).append(" to ")
+                        .append(Numbers.significant(c.band().highRadPerSecond(), 3)).append(" rad/s).").append(nl);
+            }
         }
-        sb.append(nl).append(FindingText.render(c.findings()));
+        sb.append(nl).append(assumptionsText(c.assumptions()));
+        sb.append(FindingText.render(c.findings()));
         sb.append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
+    }
+
+    /** "Assumed:" and one line per assumption, or nothing. */
+    static String assumptionsText(java.util.List<String> assumptions) {
+        if (assumptions.isEmpty()) {
+            return "";
+        }
+        String nl = System.lineSeparator();
+        StringBuilder sb = new StringBuilder("Assumed:").append(nl);
+        assumptions.forEach(a -> sb.append("  ").append(a).append(nl));
+        return sb.append(nl).toString();
+    }
+
+    /** Where the textbook relations come from. */
+    static final String TEXTBOOK_SOURCE = "Astrom & Hagglund, PID Controllers, 2nd ed., ISA 1995, sec. 3.4";
+
+    /** Puts a written tuning's values, "off" where a filter is switched off. */
+    static void putValues(ObjectNode n, WrittenTuning t) {
+        t.values().forEach((k, v) -> {
+            if (FormCodec.isFilterOff(k, v)) {
+                n.put(k, FormCodec.OFF);
+            } else {
+                n.put(k, v);
+            }
+        });
     }
 
     public static String json(Conversion c) {
@@ -55,18 +118,33 @@ public final class ConversionReport {
         n.put("from", c.from().id());
         n.put("to", c.to().id());
         n.put("exact", c.exact());
-        ObjectNode params = n.putObject("parameters");
-        c.parameters().values().forEach(params::put);
+        putValues(n.putObject("parameters"), c.parameters());
         ObjectNode units = n.putObject("units");
         c.parameters().values().keySet().forEach(k -> units.put(k, FormUnits.of(c.to(), k)));
-        ObjectNode entered = n.putObject("entered");
-        c.entered().values().forEach(entered::put);
+        putValues(n.putObject("entered"), c.entered());
+        if (c.textbook() != null) {
+            ObjectNode tb = n.putObject("textbook");
+            for (String k : java.util.List.of(c.to().gainName(), c.to().integralName(), c.to().derivativeName())) {
+                tb.put(k, c.textbook().values().get(k));
+            }
+        }
+        if (!c.refused().isEmpty()) {
+            ObjectNode r = n.putObject("do_not_enter");
+            c.refused().forEach(r::put);
+        }
         if (c.parameters().action() != null) {
             n.put("action", c.parameters().action().id());
         }
         ObjectNode dev = n.putObject("deviation");
         dev.put("gain_db", c.deviation().gainDb());
         dev.put("phase_deg", c.deviation().phaseDegrees());
+        ObjectNode loop = n.putObject("loop_deviation");
+        loop.put("gain_db", c.loopDeviation().gainDb());
+        loop.put("phase_deg", c.loopDeviation().phaseDegrees());
+        loop.put("low_rad_s", c.loopBand().lowRadPerSecond());
+        loop.put("high_rad_s", c.loopBand().highRadPerSecond());
+        com.fasterxml.jackson.databind.node.ArrayNode a = n.putArray("assumptions");
+        c.assumptions().forEach(a::add);
         n.set("findings", Json.findings(c.findings()));
         return Json.write(n);
     }

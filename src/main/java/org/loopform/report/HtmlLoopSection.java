@@ -125,9 +125,10 @@ final class HtmlLoopSection {
                 double e = entered.getOrDefault(k, x);
                 boolean rounded = e != x;
                 anyRounded |= rounded;
-                String shown = to.limit(k).resolution() == null ? Numbers.significant(e, VALUE_DIGITS) : Numbers.plain(e);
+                String shown = c.refusal(k) != null ? "do not enter (" + Html.esc(c.refusal(k)) + ")"
+                        : org.loopform.form.FormCodec.show(to, k, e, VALUE_DIGITS);
                 sb.append("<td class=\"sep\">").append(Html.esc(k)).append("</td><td class=\"num\">")
-                        .append(Numbers.significant(x, VALUE_DIGITS)).append("</td><td class=\"num")
+                        .append(org.loopform.form.FormCodec.show(to, k, x, VALUE_DIGITS)).append("</td><td class=\"num")
                         .append(rounded ? " rounded\" title=\"rounded to the target's resolution" : "").append("\">")
                         .append(shown).append("</td><td class=\"unit\">").append(Html.esc(FormUnits.of(to, k)))
                         .append("</td>");

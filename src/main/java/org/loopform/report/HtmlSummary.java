@@ -92,6 +92,12 @@ final class HtmlSummary {
             sb.append("</tr>\n</tbody></table>\n<p class=\"note\">Counts of findings; a loop may have several.</p>\n");
         }
         sb.append("</div>\n</div>\n");
+        if (!s.assumptions().isEmpty()) {
+            sb.append("<h3>Assumed where the loop list did not say</h3>\n<ul id=\"assumptions\">\n");
+            s.assumptions().forEach((a, n) -> sb.append("<li>").append(n).append(n == 1 ? " loop: " : " loops: ")
+                    .append(Html.esc(a)).append("</li>\n"));
+            sb.append("</ul>\n");
+        }
         writeWorst(sb, s.worst(), s.count(Verdict.FAIL) + s.count(Verdict.WARN));
         writeBadRows(sb, s.badRows(), s.badRowProblemCount());
         sb.append("</section>\n");

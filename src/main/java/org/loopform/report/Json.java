@@ -6,7 +6,13 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.DoubleNode;
+import com.fasterxml.jackson.databind.node.ContainerNode;
+import java.util.ArrayList;
+import java.util.Map;
 import org.loopform.findings.Finding;
+import org.loopform.units.Numbers;
 
 /** JSON building blocks shared by every report: one mapper, findings in the contract's shape. */
 public final class Json {
@@ -47,11 +53,40 @@ public final class Json {
         }
     }
 
+    /**
+     * The tree as indented JSON, every floating-point number first rounded to
+     * {@link Numbers#MACHINE_DIGITS} significant digits so that no binary noise
+     * (117.99999999999999) reaches a reader.
+     */
     public static String write(ObjectNode n) {
         try {
-            return MAPPER.writeValueAsString(n) + System.lineSeparator();
+            return MAPPER.writeValueAsString(tidied(n)) + System.lineSeparator();
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("cannot write JSON", e);
         }
+    }
+
+    /** {@code node} with its floating-point numbers tidied, in place (the trees are built for one write). */
+    static JsonNode tidied(JsonNode node) {
+        if (node instanceof ObjectNode o) {
+            List<Map.Entry<String, JsonNode>> fields = new ArrayList<>();
+            o.fields().forEachRemaining(fields::add);
+            for (Map.Entry<String, JsonNode> e : fields) {
+                if (e.getValue().isFloatingPointNumber()) {
+                    o.set(e.getKey(), DoubleNode.valueOf(Numbers.tidy(e.getValue().doubleValue())));
+                } else if (e.getValue() instanceof ContainerNode<?>) {
+                    tidied(e.getValue());
+                }
+            }
+        } else if (node instanceof ArrayNode a) {
+            for (int k = 0; k < a.size(); k++) {
+                if (a.get(k).isFloatingPointNumber()) {
+                    a.set(k, DoubleNode.valueOf(Numbers.tidy(a.get(k).doubleValue())));
+                } else {
+                    tidied(a.get(k));
+                }
+            }
+        }
+        return node;
     }
 }

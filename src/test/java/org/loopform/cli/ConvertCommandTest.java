@@ -27,7 +27,7 @@ class ConvertCommandTest {
 
     private static final ObjectMapper JSON = new ObjectMapper();
     private static final Set<String> KEYS = Set.of("from", "to", "exact", "parameters", "units", "entered",
-            "deviation", "findings");
+            "deviation", "findings", "loop_deviation", "assumptions");
     private static final double TOL = 1e-9;
 
     @TempDir

@@ -57,9 +57,9 @@ class FormsCommandTest {
             assertThat(r.exitCode()).isZero();
             assertThat(r.err()).isEmpty();
             List<String> ids = CatalogLoader.bundled().ids();
-            assertThat(ids).hasSize(16);
+            assertThat(ids).hasSize(17);
             ids.forEach(id -> assertThat(r.out()).contains(id));
-            assertThat(r.out()).contains("16 forms");
+            assertThat(r.out()).contains("17 forms");
         }
 
         @Test
