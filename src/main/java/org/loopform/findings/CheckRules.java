@@ -211,7 +211,33 @@ public final class CheckRules {
                         + " retune or scan faster." : ".")));
             }
         }
+        lowerGainMargin(t, p, out);
         delayMargin(in, t, p, out);
+    }
+
+    /**
+     * A conditionally stable target loop: the gain may shrink only by its lower gain margin before the
+     * loop goes unstable. Held against the same thresholds as the gain margin, read as the factor
+     * 1 / lower gain margin (a gain that may halve passes a warn threshold of 2).
+     */
+    private static void lowerGainMargin(LoopMargins t, CheckPolicy p, List<Finding> out) {
+        if (t.lowerGainMargin().isEmpty()) {
+            return;
+        }
+        double lower = t.lowerGainMargin().getAsDouble();
+        double factor = 1 / lower;
+        boolean fail = factor < p.gainMarginFail();
+        if (!fail && factor >= p.gainMarginWarn()) {
+            return;
+        }
+        double limit = fail ? p.gainMarginFail() : p.gainMarginWarn();
+        out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, lower, 1 / limit, "ratio",
+                (fail ? PolicyKey.GAIN_MARGIN_FAIL : PolicyKey.GAIN_MARGIN_WARN).source(),
+                "The target loop is conditionally stable: a loop gain " + Numbers.significant(100 * (1 - lower), 2)
+                        + " % lower than modelled (lower gain margin " + Numbers.significant(lower, 3)
+                        + ") makes it unstable, where the policy asks for room to shrink by a factor of "
+                        + Numbers.plain(limit) + (fail ? " (the fail threshold); do not deploy this tuning: retune"
+                        + " so that lowering the gain cannot destabilize the loop." : ".")));
     }
 
     /** The delay margin in target scans: how many scans of added latency the loop stands. */

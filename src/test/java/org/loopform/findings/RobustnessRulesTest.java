@@ -133,4 +133,22 @@ class RobustnessRulesTest {
         assertThat(Finding.worst(robustness(margins(5, 44, 20, 1.3), strict))).isEqualTo(Severity.FAIL);
         assertThat(Finding.worst(robustness(margins(5, 46, 20, 1.3), strict))).isEqualTo(Severity.WARN);
     }
+
+    /**
+     * A conditionally stable loop may lose only its lower gain margin: held against the gain-margin
+     * thresholds as the factor 1 / lower (common practice: GM 2 to 5 either way). 0.7 leaves a factor
+     * 1.43 (< 1.5: fail), 0.6 leaves 1.67 (< 2: warn), 0.4 leaves 2.5 (fine).
+     */
+    @org.junit.jupiter.params.ParameterizedTest
+    @org.junit.jupiter.params.provider.CsvSource({"0.7, FAIL", "0.6, WARN", "0.4, INFO"})
+    void a_conditionally_stable_loop_is_held_to_its_lower_gain_margin(double lower, Severity expected) {
+        LoopMargins m = new LoopMargins(OptionalDouble.of(5), OptionalDouble.of(0.3), OptionalDouble.of(lower),
+                OptionalDouble.of(60), OptionalDouble.of(0.1), OptionalDouble.of(20), 1.3, 0.2,
+                java.util.Optional.empty(), java.util.Optional.empty(), List.of(), List.of());
+        List<Finding> found = robustness(m, CheckPolicy.DEFAULT);
+        assertThat(Finding.worst(found)).isEqualTo(expected);
+        if (expected != Severity.INFO) {
+            assertThat(found).anySatisfy(f -> assertThat(f.message()).contains("conditionally stable"));
+        }
+    }
 }
