@@ -42,6 +42,9 @@ final class ArgumentWalk {
     private final double delayTurnPerUnit;
     private boolean unresolved;
     private int evaluations;
+    /** Where along the path |1 + L| was smallest among the points evaluated, and that |1 + L|^2. */
+    private double closestT = Double.NaN;
+    private double closestReturnDifferenceSquared = Double.POSITIVE_INFINITY;
 
     /**
      * @param path the loop along the path
@@ -62,15 +65,13 @@ final class ArgumentWalk {
         Arrays.sort(sorted);
         double total = 0;
         double[] left = new double[4];
-        path.at(sorted[0], left);
-        evaluations++;
+        evaluate(sorted[0], left);
         for (int k = 1; k < sorted.length; k++) {
             if (!(sorted[k] > sorted[k - 1])) {
                 continue;
             }
             double[] right = new double[4];
-            path.at(sorted[k], right);
-            evaluations++;
+            evaluate(sorted[k], right);
             total += refine(sorted[k - 1], left, sorted[k], right, 0);
             left = right;
         }
@@ -84,6 +85,22 @@ final class ArgumentWalk {
 
     int evaluations() {
         return evaluations;
+    }
+
+    /** The parameter of the evaluated point where |1 + L| was smallest: near the closest zero of 1 + L. */
+    double closestT() {
+        return closestT;
+    }
+
+    private void evaluate(double t, double[] out) {
+        path.at(t, out);
+        evaluations++;
+        double re = 1 + out[0];
+        double d2 = re * re + out[1] * out[1];
+        if (d2 < closestReturnDifferenceSquared) {
+            closestReturnDifferenceSquared = d2;
+            closestT = t;
+        }
     }
 
     /** The value of 1 + L at the last point, as its principal argument. */
@@ -108,8 +125,7 @@ final class ArgumentWalk {
             mid = 0.5 * (a + b);
         }
         double[] fm = new double[4];
-        path.at(mid, fm);
-        evaluations++;
+        evaluate(mid, fm);
         return refine(a, fa, mid, fm, depth + 1) + refine(mid, fm, b, fb, depth + 1);
     }
 

@@ -17,7 +17,8 @@ import org.apache.commons.math3.complex.Complex;
  * stable when no pole lies outside {@code |z| = 1 + tolerance} nor inside the ring down to
  * {@code 1 - tolerance} (tolerance {@value #MARGINAL_TOLERANCE}: a pole there takes more than 10^8
  * scans to grow or decay by e), marginal when one lies in the ring, unstable otherwise. The largest
- * pole magnitude is found by bisection on the radius, to {@value #RELATIVE_LOG_TOLERANCE} of
+ * pole magnitude is found by Newton's method confirmed by the counts (bisection where Newton fails), to
+ * {@value #RELATIVE_LOG_TOLERANCE} of
  * {@code |ln r|}.
  */
 public final class SampledStability {
@@ -39,7 +40,7 @@ public final class SampledStability {
         Counter counter = new Counter(loop);
         int outside = counter.outside(MARGINAL_TOLERANCE);
         if (outside > 0) {
-            double largest = Math.exp(bisect(counter, true));
+            double largest = Math.exp(largestLogRadius(counter, true));
             return new LoopStability(Stability.UNSTABLE, StabilityTest.SAMPLED_POLES, outside, OptionalDouble.of(largest),
                     (outside == 1 ? "One closed-loop pole lies" : outside + " closed-loop poles lie")
                             + " outside the unit circle (largest |z| = " + magnitude(largest) + "): the loop runs away.");
@@ -50,7 +51,7 @@ public final class SampledStability {
                     "A closed-loop pole lies on the unit circle (within " + MARGINAL_TOLERANCE
                             + "): the loop neither settles nor runs away.");
         }
-        double largest = Math.exp(-bisect(counter, false));
+        double largest = Math.exp(largestLogRadius(counter, false));
         return new LoopStability(Stability.STABLE, StabilityTest.SAMPLED_POLES, 0, OptionalDouble.of(largest),
                 "Every closed-loop pole lies inside the unit circle (largest |z| = " + magnitude(largest) + ").");
     }
@@ -68,37 +69,109 @@ public final class SampledStability {
     }
 
     /**
-     * The log radius |ln r*| of the largest pole: for an unstable loop (outward) the smallest u > 0
-     * with no pole outside e^u; for a stable one the smallest u > 0 with a pole outside e^-u.
+     * ln r* of the largest closed-loop pole, r* = inf{r : no pole outside |z| = r}. The decades of
+     * |ln r| are searched for a bracket [in, out] (a pole outside e^in, none outside e^out); then
+     * Newton's method on {@code 1 + L(e^w) = 0} from the point of the circle e^in nearest a zero
+     * proposes the pole, which is accepted only when the counts confirm it (no pole outside it, one
+     * just inside it); otherwise, or when Newton fails, the bracket is bisected. The result is good to
+     * {@value #RELATIVE_LOG_TOLERANCE} of |ln r*| (or 1e-12 absolute).
      */
-    private static double bisect(Counter c, boolean outward) {
-        double lo = MARGINAL_TOLERANCE;
-        double hi = 1e-3;
-        while (hi < LARGEST_LOG_RADIUS && found(c, outward, hi)) {
-            lo = hi;
-            hi *= 10;
-        }
-        if (hi >= LARGEST_LOG_RADIUS && found(c, outward, LARGEST_LOG_RADIUS)) {
-            return LARGEST_LOG_RADIUS;
-        }
-        hi = Math.min(hi, LARGEST_LOG_RADIUS);
-        while (hi / lo > 1 + RELATIVE_LOG_TOLERANCE) {
-            double mid = Math.sqrt(lo * hi);
-            if (found(c, outward, mid)) {
-                lo = mid;
-            } else {
-                hi = mid;
+    private static double largestLogRadius(Counter c, boolean outward) {
+        double in;
+        double out;
+        if (outward) {
+            in = MARGINAL_TOLERANCE;
+            out = 1e-3;
+            while (out < LARGEST_LOG_RADIUS && c.outsideLog(out) > 0) {
+                in = out;
+                out *= 10;
+            }
+            if (out >= LARGEST_LOG_RADIUS) {
+                if (c.outsideLog(LARGEST_LOG_RADIUS) > 0) {
+                    return LARGEST_LOG_RADIUS;
+                }
+                out = LARGEST_LOG_RADIUS;
+            }
+        } else {
+            out = -MARGINAL_TOLERANCE;
+            in = -1e-3;
+            while (in > -LARGEST_LOG_RADIUS && c.outsideLog(in) == 0) {
+                out = in;
+                in *= 10;
+            }
+            if (in <= -LARGEST_LOG_RADIUS) {
+                if (c.outsideLog(-LARGEST_LOG_RADIUS) == 0) {
+                    return -LARGEST_LOG_RADIUS;
+                }
+                in = -LARGEST_LOG_RADIUS;
             }
         }
-        return Math.sqrt(lo * hi);
+        for (int step = 0; step < 200; step++) {
+            double tolerance = Math.max(1e-12, RELATIVE_LOG_TOLERANCE * Math.min(Math.abs(in), Math.abs(out)));
+            if (out - in <= tolerance) {
+                break;
+            }
+            // the count at 'in' leaves the walk's point nearest a zero of 1 + L on that circle
+            c.outsideLog(in);
+            double proposal = newton(c.loop, in, c.closestTheta);
+            if (proposal > in && proposal <= out) {
+                double eps = Math.max(1e-12, 0.5 * tolerance);
+                if (c.outsideLog(proposal + eps) == 0) {
+                    if (c.outsideLog(proposal - eps) > 0) {
+                        return proposal;
+                    }
+                    // no pole just inside it either: Newton found no zero, only narrow the bracket
+                    out = proposal - eps > in ? proposal - eps : proposal + eps;
+                    continue;
+                }
+                in = proposal + eps;
+                continue;
+            }
+            double mid = 0.5 * (in + out);
+            if (c.outsideLog(mid) > 0) {
+                in = mid;
+            } else {
+                out = mid;
+            }
+        }
+        return 0.5 * (in + out);
     }
 
     /**
-     * Outward: true while some pole lies outside e^u (u below the largest log radius). Inward: true
-     * while no pole lies outside e^-u (u below the distance of the largest pole from the circle).
+     * Newton's method on {@code f(w) = 1 + L(e^w)}, w = ln r + i theta, from (x, theta); the derivative
+     * by a central difference along x (f is analytic, so that is f'). Returns the real part of the zero
+     * it converges to, or NaN when it does not converge.
      */
-    private static boolean found(Counter c, boolean outward, double u) {
-        return outward ? c.outside(Math.expm1(u)) > 0 : c.outside(Math.expm1(-u)) == 0;
+    static double newton(SampledLoop loop, double x, double theta) {
+        double[] f = new double[4];
+        double[] fp = new double[4];
+        double[] fm = new double[4];
+        double startX = x;
+        for (int k = 0; k < 40; k++) {
+            loop.at(Math.expm1(x), theta, f);
+            double h = 1e-7 * Math.max(Math.abs(x), 1e-4);
+            loop.at(Math.expm1(x + h), theta, fp);
+            loop.at(Math.expm1(x - h), theta, fm);
+            double dRe = (fp[0] - fm[0]) / (2 * h);
+            double dIm = (fp[1] - fm[1]) / (2 * h);
+            double fRe = 1 + f[0];
+            double fIm = f[1];
+            double d2 = dRe * dRe + dIm * dIm;
+            if (!(d2 > 0) || !Double.isFinite(d2)) {
+                return Double.NaN;
+            }
+            double stepRe = (fRe * dRe + fIm * dIm) / d2;
+            double stepIm = (fIm * dRe - fRe * dIm) / d2;
+            x -= stepRe;
+            theta -= stepIm;
+            if (!Double.isFinite(x) || Math.abs(x - startX) > 10 * Math.max(Math.abs(startX), 1e-3)) {
+                return Double.NaN;
+            }
+            if (Math.hypot(stepRe, stepIm) <= 1e-14 * Math.max(1, Math.abs(x)) + 1e-15) {
+                return x;
+            }
+        }
+        return Double.NaN;
     }
 
     /** Counts closed-loop poles outside circles about 0. */
@@ -106,6 +179,13 @@ public final class SampledStability {
         private final SampledLoop loop;
         private final List<Complex> poles;
         private boolean unresolved;
+        /** After a count: the angle on that circle where |1 + L| was smallest. */
+        private double closestTheta;
+
+        /** Closed-loop poles outside {@code |z| = e^logRadius}. */
+        int outsideLog(double logRadius) {
+            return outside(Math.expm1(logRadius));
+        }
 
         Counter(SampledLoop loop) {
             this.loop = loop;
@@ -154,6 +234,7 @@ public final class SampledStability {
             final double circle = offset;
             ArgumentWalk walk = new ArgumentWalk((theta, out) -> loop.at(circle, theta, out), loop.delayScans());
             double turns = walk.change(ts) / Math.PI;
+            closestTheta = walk.closestT();
             long whole = Math.round(turns);
             if (walk.unresolved() || Math.abs(turns - whole) > 0.25) {
                 unresolved = true;
