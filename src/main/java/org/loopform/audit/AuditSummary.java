@@ -36,7 +36,7 @@ public final class AuditSummary {
     static int weight(Topic t) {
         return switch (t) {
             case STABILITY -> 11;
-            case ACTION -> 10;
+            case ACTION, REPLAY -> 10;
             case ROBUSTNESS -> 9;
             case LIMITS -> 8;
             case SAMPLING -> 7;

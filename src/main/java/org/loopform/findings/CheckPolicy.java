@@ -39,7 +39,10 @@ public record CheckPolicy(Map<PolicyKey, Double> values) {
             new Pair(PolicyKey.MS_FAIL, PolicyKey.MS_WARN, true),
             new Pair(PolicyKey.PHASE_MARGIN_FAIL_DEG, PolicyKey.PHASE_MARGIN_WARN_DEG, false),
             new Pair(PolicyKey.GAIN_MARGIN_FAIL, PolicyKey.GAIN_MARGIN_WARN, false),
-            new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false));
+            new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false),
+            new Pair(PolicyKey.REPLAY_RMS_FAIL_PCT, PolicyKey.REPLAY_RMS_WARN_PCT, true),
+            new Pair(PolicyKey.REPLAY_CORRELATION_FAIL, PolicyKey.REPLAY_CORRELATION_WARN, false),
+            new Pair(PolicyKey.REPLAY_AS_LEFT_RMS_FAIL_PCT, PolicyKey.REPLAY_AS_LEFT_RMS_WARN_PCT, true));
 
     public CheckPolicy {
         EnumMap<PolicyKey, Double> copy = new EnumMap<>(PolicyKey.class);

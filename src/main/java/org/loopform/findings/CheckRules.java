@@ -22,6 +22,9 @@ public final class CheckRules {
             + "(from memory)";
     static final String MS_SOURCE = "Astrom & Hagglund 1995, as cited in Octave control package docs: Ms 1.3 to 2";
     static final String COMMON = "common practice";
+    /** Where the replay thresholds come from. */
+    public static final String REPLAY_POLICY = "loopform policy (common practice): a controller re-run on its own"
+            + " inputs reproduces its logged output to the log's resolution";
     static final String MS_BOUNDS = "Skogestad & Postlethwaite, Multivariable Feedback Control, ch. 2 (from memory):"
             + " GM >= Ms/(Ms-1), PM >= 2 arcsin(1/(2 Ms))";
 

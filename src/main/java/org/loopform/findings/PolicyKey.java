@@ -57,7 +57,26 @@ public enum PolicyKey {
     LOAD_PEAK_RISE_WARN("load_peak_rise_warn", 0.25, "fraction", "load-step peak deviation above the design's by more"
             + " than this share AND by more than load_peak_rise_warn_pct warns", CheckRules.COMMON),
     LOAD_PEAK_RISE_WARN_PCT("load_peak_rise_warn_pct", 1, "% of step", "the absolute part of the load peak rule, in"
-            + " percent of the load step", CheckRules.COMMON);
+            + " percent of the load step", CheckRules.COMMON),
+    REPLAY_RMS_WARN_PCT("replay_rms_warn_pct", 0.5, "% of span", "replay: RMS difference between a controller run on"
+            + " the logged SP and PV and the logged output above which it does not reproduce the log", CheckRules.REPLAY_POLICY),
+    REPLAY_RMS_FAIL_PCT("replay_rms_fail_pct", 2, "% of span", "replay: RMS difference above which the record"
+            + " refutes the controller", CheckRules.REPLAY_POLICY),
+    REPLAY_MAX_WARN_PCT("replay_max_warn_pct", 5, "% of span", "replay: largest single difference from the logged"
+            + " output above which the replay warns", CheckRules.REPLAY_POLICY),
+    REPLAY_CORRELATION_WARN("replay_correlation_warn", 0.98, "ratio", "replay: correlation of the replayed with the"
+            + " logged output below which it does not reproduce the log", CheckRules.REPLAY_POLICY),
+    REPLAY_CORRELATION_FAIL("replay_correlation_fail", 0.9, "ratio", "replay: correlation below which the record"
+            + " refutes the controller", CheckRules.REPLAY_POLICY),
+    REPLAY_MOVEMENT_WARN_PCT("replay_movement_warn_pct", 0.5, "% of span", "replay: standard deviation of the logged"
+            + " output in automatic below which the record moves too little to confirm a controller", CheckRules.REPLAY_POLICY),
+    REPLAY_LOG_INTERVAL_WARN_SCANS("replay_log_interval_warn_scans", 2, "scans", "replay: median interval between"
+            + " logged points, in controller scans, above which the record is too coarse for the scan", CheckRules.REPLAY_POLICY),
+    REPLAY_AS_LEFT_RMS_WARN_PCT("replay_as_left_rms_warn_pct", 1, "% of span", "replay: RMS difference of the target's"
+            + " output from the source's on the record above which the as-left preview warns", CheckRules.REPLAY_POLICY),
+    REPLAY_AS_LEFT_RMS_FAIL_PCT("replay_as_left_rms_fail_pct", 5, "% of span", "replay: RMS difference of the"
+            + " target's output from the source's above which the as-left preview fails", CheckRules.REPLAY_POLICY);
+
 
     private final String id;
     private final double defaultValue;

@@ -11,7 +11,9 @@ public enum Topic {
     /** The controller's direction (direct or reverse acting) against the process's. */
     ACTION,
     /** Closed-loop stability, decided from the closed-loop poles. */
-    STABILITY;
+    STABILITY,
+    /** A controller run open loop on a logged record: as-found agreement, its explanation, the as-left preview. */
+    REPLAY;
 
     public String id() {
         return name().toLowerCase(Locale.ROOT);

@@ -187,6 +187,27 @@ public final class ScanController {
         return output;
     }
 
+    /**
+     * Tracking, for bumpless transfer: after {@link #update} has run this scan on the real setpoint
+     * and PV, the output written is forced to {@code outputPercent} (within the limits when they are
+     * on) and the state follows it: in positional form the integral becomes {@code u - P - D}, in
+     * velocity form the accumulated output becomes {@code u}. Proportional and derivative states keep
+     * running on the real signals, so when the controller is released the next scan continues from
+     * the tracked output without a bump (Astrom and Hagglund, Advanced PID Control, ISA 2006, ch. 3,
+     * bumpless transfer and tracking - section from memory).
+     */
+    public void track(double outputPercent) {
+        if (!Double.isFinite(outputPercent)) {
+            throw new IllegalArgumentException("track needs a finite output (got " + outputPercent + " %)");
+        }
+        double u = limited ? limit(outputPercent) : outputPercent;
+        if (!velocity) {
+            integral = u - previousProportional - previousDerivativeTerm;
+        }
+        this.outputPercent = u;
+        this.unlimitedPercent = u;
+    }
+
     // The two forms' output steps live in their own methods to keep update() small enough for
     // the JIT to inline it into a simulation loop.
 

@@ -1,0 +1,162 @@
+package org.loopform.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.loopform.audit.LoopDefaults;
+import org.loopform.audit.LoopRow;
+import org.loopform.audit.LoopSpec;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.Severity;
+import org.loopform.form.FormDefinition;
+import org.loopform.io.AtomicFiles;
+import org.loopform.io.CatalogLoader;
+import org.loopform.io.InputException;
+import org.loopform.io.LoopCsvReader;
+import org.loopform.io.LoopFileReader;
+import org.loopform.io.LoopYamlReader;
+import org.loopform.io.PolicyFileReader;
+import org.loopform.io.TrendColumns;
+import org.loopform.io.TrendCsvReader;
+import org.loopform.replay.LoopReplay;
+import org.loopform.replay.ReplayResult;
+import org.loopform.report.Cautions;
+import org.loopform.report.ReplayPlot;
+import org.loopform.report.ReplayReport;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code loopform replay}: the old and the new controller run open loop on a logged record. */
+@Command(name = "replay", mixinStandardHelpOptions = true,
+        description = {"Runs the old controller as listed (form, tuning, scan) on a record's logged setpoint and PV"
+                + " and compares its output with the logged one (as found); when they disagree, tries other readings"
+                + " of the list (units, action, filter, scan, other catalog forms) and reports those that reproduce"
+                + " the log best. Then runs the target as it will be entered on the same signals (as left) and"
+                + " reports how its output would differ. Open loop: the PV is the logged one."},
+        footer = {"", "RECORD is a CSV with a header: time (seconds or ISO-8601 timestamps), setpoint, pv, output in"
+                + " the loop's ranges, optional mode (auto/manual/cascade) and tracking (on/off). Empty cells are"
+                + " points not logged. With --list, RECORD is a folder holding one TAG.csv per loop.",
+                "", "Exit codes: 0 nothing failed; 1 a finding of severity fail; 2 bad input.", "", Cautions.SHORT})
+final class ReplayCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(paramLabel = "RECORD", description = "The record (CSV), or with --list the folder of TAG.csv records.")
+    Path record;
+
+    @Option(names = "--loop", paramLabel = "LOOP.yaml", description = "The loop file (one loop).")
+    Path loopFile;
+
+    @Option(names = "--list", paramLabel = "LIST", description = "A loop list (CSV or YAML) replayed against RECORD/TAG.csv.")
+    Path listFile;
+
+    @Option(names = "--time", paramLabel = "COLUMN", defaultValue = "time", description = "Time column (default: ${DEFAULT-VALUE}).")
+    String time;
+
+    @Option(names = "--setpoint", paramLabel = "COLUMN", defaultValue = "setpoint", description = "Setpoint column (default: ${DEFAULT-VALUE}).")
+    String setpoint;
+
+    @Option(names = "--pv", paramLabel = "COLUMN", defaultValue = "pv", description = "PV column (default: ${DEFAULT-VALUE}).")
+    String pv;
+
+    @Option(names = "--output", paramLabel = "COLUMN", defaultValue = "output", description = "Controller output column (default: ${DEFAULT-VALUE}).")
+    String output;
+
+    @Option(names = "--mode", paramLabel = "COLUMN", defaultValue = "mode", description = "Mode column, used when present (default: ${DEFAULT-VALUE}).")
+    String mode;
+
+    @Option(names = "--tracking", paramLabel = "COLUMN", defaultValue = "tracking", description = "Output-tracking column, used when present (default: ${DEFAULT-VALUE}).")
+    String tracking;
+
+    @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the logged output and both replays (one loop).")
+    Path plot;
+
+    @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")
+    Path policyFile;
+
+    @Mixin
+    FormatOption format;
+
+    @Override
+    public Integer call() {
+        if ((loopFile == null) == (listFile == null)) {
+            throw new InputException("replay: give exactly one of --loop LOOP.yaml (RECORD is a file) or --list LIST"
+                    + " (RECORD is a folder of TAG.csv records)");
+        }
+        CheckPolicy policy = policyFile == null ? CheckPolicy.DEFAULT
+                : PolicyFileReader.read(policyFile, policyFile.toString());
+        TrendColumns columns = new TrendColumns(time, setpoint, pv, output, mode, tracking);
+        List<FormDefinition> catalog = CatalogLoader.bundled().all();
+        var out = spec.commandLine().getOut();
+        boolean json = format.format == OutputFormat.json;
+        if (loopFile != null) {
+            LoopSpec loop = LoopFileReader.readOne(loopFile, loopFile.toString());
+            ReplayResult r = LoopReplay.run(loop, TrendCsvReader.read(record, record.toString(), columns), catalog,
+                    policy);
+            if (plot != null) {
+                AtomicFiles.write(plot, AtomicFiles.markedSvg(ReplayPlot.svg(r)), List.of(record, loopFile));
+            }
+            out.print(json ? ReplayReport.json(r) : ReplayReport.text(r));
+            if (plot != null && !json) {
+                out.println("Plot written to " + plot);
+            }
+            out.flush();
+            return r.verdict() == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+        }
+        if (plot != null) {
+            throw new InputException("--plot: draws one loop; use it with --loop");
+        }
+        if (!Files.isDirectory(record)) {
+            throw new InputException(record + ": with --list, RECORD is a folder holding one TAG.csv per loop");
+        }
+        List<ReplayResult> results = new ArrayList<>();
+        List<String> missing = new ArrayList<>();
+        List<String> bad = new ArrayList<>();
+        for (Iterator<LoopRow> it = rows(); it.hasNext(); ) {
+            LoopRow row = it.next();
+            if (!row.ok()) {
+                bad.addAll(row.problems());
+                continue;
+            }
+            Path file = record.resolve(row.tag() + ".csv");
+            if (!Files.isRegularFile(file)) {
+                missing.add(row.tag());
+                continue;
+            }
+            try {
+                results.add(LoopReplay.run(row.loop(), TrendCsvReader.read(file, file.toString(), columns), catalog,
+                        policy));
+            } catch (org.loopform.units.BadInput e) {
+                bad.addAll(e.problems());
+            }
+        }
+        out.print(json ? ReplayReport.json(results, missing) : ReplayReport.text(results, missing));
+        out.flush();
+        if (!bad.isEmpty()) {
+            bad.forEach(b -> spec.commandLine().getErr().println("loopform: " + b));
+            return ExitCodes.BAD_INPUT;
+        }
+        return results.stream().anyMatch(r -> r.verdict() == Severity.FAIL) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+    }
+
+    private Iterator<LoopRow> rows() {
+        String lower = listFile.getFileName().toString().toLowerCase(Locale.ROOT);
+        if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
+            return LoopFileReader.rows(listFile, listFile.toString(), LoopDefaults.NONE).iterator();
+        }
+        List<LoopRow> rows = new ArrayList<>();
+        try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), LoopDefaults.NONE)) {
+            reader.forEachRemaining(rows::add);
+        }
+        return rows.iterator();
+    }
+}

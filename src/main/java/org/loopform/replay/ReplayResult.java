@@ -1,0 +1,52 @@
+package org.loopform.replay;
+
+import java.time.LocalDateTime;
+import java.util.List;
+import java.util.Map;
+import org.loopform.findings.Finding;
+import org.loopform.findings.Severity;
+
+/**
+ * One loop's replay: the source controller as listed and the target as it will be entered, each
+ * run open loop on the record's logged setpoint and PV.
+ *
+ * @param tag               the loop's tag
+ * @param sourceFormId      the old controller's form as listed
+ * @param sourceTuning      its values as listed
+ * @param sourceScanSeconds the scan it was replayed at, s
+ * @param targetFormId      the target form
+ * @param enteredTuning     the converted values rounded as the target stores them
+ * @param targetScanSeconds the target's scan, s
+ * @param resampling        how the record was read at the scan instants, in words
+ * @param assumptions       what was assumed for want of a value, in words
+ * @param origin            the record's first timestamp, or null when it gave seconds
+ * @param recordSeconds     the span where setpoint, PV and output are all logged, s
+ * @param asFound           the source replay against the logged output (null: nothing in automatic to compare)
+ * @param asFoundSeverity   the as-found verdict: info (reproduced), warn, fail (refuted)
+ * @param explanations      the best alternative readings, best first
+ * @param alternativesTried how many alternative readings were run
+ * @param asLeft            the target replay against the source replay (null: nothing to compare)
+ * @param asLeftVsLog       the target replay against the logged output
+ * @param findings          the replay's findings (topic replay), with the conversion's
+ * @param trace             the outputs over time, for plots
+ */
+public record ReplayResult(String tag, String sourceFormId, Map<String, String> sourceTuning, double sourceScanSeconds,
+                           String targetFormId, Map<String, String> enteredTuning, double targetScanSeconds,
+                           String resampling, List<String> assumptions, LocalDateTime origin, double recordSeconds,
+                           Agreement asFound, Severity asFoundSeverity, List<Explanation> explanations,
+                           int alternativesTried, Agreement asLeft, Agreement asLeftVsLog, List<Finding> findings,
+                           ReplayTrace trace) {
+
+    public ReplayResult {
+        sourceTuning = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(sourceTuning));
+        enteredTuning = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(enteredTuning));
+        assumptions = List.copyOf(assumptions);
+        explanations = List.copyOf(explanations);
+        findings = List.copyOf(findings);
+    }
+
+    /** The worst finding's severity. */
+    public Severity verdict() {
+        return Finding.worst(findings);
+    }
+}
