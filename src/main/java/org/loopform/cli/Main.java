@@ -17,7 +17,9 @@ import picocli.CommandLine.Spec;
         description = {"Carries PID tuning between controller algorithm forms exactly, or says how close it can get"
                 + " and why; checks the loop as the target will run it (scan time, discretization, filter,"
                 + " rounding, limits); audits whole migrations."},
-        subcommands = {FormsCommand.class, ConvertCommand.class, CheckCommand.class, ReplayCommand.class, AuditCommand.class, DemoCommand.class, AutoComplete.GenerateCompletion.class},
+        subcommands = {FormsCommand.class, ConvertCommand.class, CheckCommand.class, FitCommand.class,
+                TuneCommand.class, ReplayCommand.class, AuditCommand.class, DemoCommand.class,
+                AutoComplete.GenerateCompletion.class},
         footer = {"", "Exit codes: 0 done, nothing failed; 1 done, a finding of severity fail; 2 bad input or usage;"
                 + " 3 an internal error of loopform (please report it).",
                 "", Cautions.SHORT})

@@ -1,0 +1,38 @@
+package org.loopform.identify;
+
+/**
+ * One model fitted to a record, with 95 % intervals. Gains %/% (integrating: %/s per %), times s.
+ * The gain's and time constants' intervals come from the Jacobian at the optimum (the covariance
+ * {@code s^2 (J^T J)^-1}, positive parameters fitted by their logarithm, the variance inflated by
+ * {@code (1 + r1)/(1 - r1)} for residuals correlated at lag one); the dead time's from its own profile
+ * (the dead times whose best cost stays within the 95 % likelihood-ratio bound).
+ *
+ * @param kind the model
+ * @param gain K or Kv
+ * @param gainLow lower 95 % bound
+ * @param gainHigh upper 95 % bound
+ * @param lagSeconds T (T1 for SOPDT), NaN for IPDT
+ * @param lagLow lower bound
+ * @param lagHigh upper bound
+ * @param secondLagSeconds T2 for SOPDT, NaN otherwise
+ * @param secondLagLow lower bound
+ * @param secondLagHigh upper bound
+ * @param deadTimeSeconds L
+ * @param deadTimeLow lower bound from the profile
+ * @param deadTimeHigh upper bound from the profile
+ * @param rmsErrorPercent root-mean-square residual, % of PV span
+ * @param rSquared 1 - SSR/SST
+ * @param aic Akaike's criterion {@code n ln(SSR/n) + 2 p}
+ */
+public record ModelFit(ModelKind kind, double gain, double gainLow, double gainHigh,
+                       double lagSeconds, double lagLow, double lagHigh,
+                       double secondLagSeconds, double secondLagLow, double secondLagHigh,
+                       double deadTimeSeconds, double deadTimeLow, double deadTimeHigh,
+                       double rmsErrorPercent, double rSquared, double aic) {
+
+    public ModelFit {
+        if (!Double.isFinite(gain) || !Double.isFinite(deadTimeSeconds) || !Double.isFinite(rmsErrorPercent)) {
+            throw new IllegalArgumentException("a fit must be finite");
+        }
+    }
+}

@@ -1,0 +1,134 @@
+package org.loopform.io;
+
+import java.io.IOException;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.time.LocalDateTime;
+import java.time.OffsetDateTime;
+import java.time.ZoneOffset;
+import java.time.format.DateTimeParseException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.apache.commons.csv.CSVFormat;
+import org.apache.commons.csv.CSVParser;
+import org.apache.commons.csv.CSVRecord;
+import org.loopform.identify.PlantRecord;
+import org.loopform.units.Span;
+
+/**
+ * Reads a logged record from CSV: a header row naming the columns, one sample a row. The time column
+ * holds seconds (any origin) or ISO-8601 timestamps ({@code 2024-05-01T10:00:00}, with or without an
+ * offset; without one they are read as UTC, which only their differences use). With ranges the output
+ * and PV are in engineering units and are scaled to percent of span; without them they are percent.
+ */
+public final class RecordCsvReader {
+
+    private RecordCsvReader() {
+    }
+
+    public static PlantRecord read(Path file, String name, String timeColumn, String outputColumn, String pvColumn,
+                                   Span outRange, Span pvRange) {
+        List<Double> t = new ArrayList<>();
+        List<Double> u = new ArrayList<>();
+        List<Double> y = new ArrayList<>();
+        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
+             CSVParser p = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
+                     .setIgnoreEmptyLines(true).build().parse(in)) {
+            Map<String, Integer> header = p.getHeaderMap();
+            String tc = column(header, timeColumn, "--time", name);
+            String uc = column(header, outputColumn, "--output", name);
+            String yc = column(header, pvColumn, "--pv", name);
+            Instant origin = null;
+            for (CSVRecord rec : p) {
+                long line = rec.getRecordNumber() + 1;
+                if (!rec.isConsistent()) {
+                    throw new InputException(name + ":" + line + ": the row has " + rec.size() + " cells and the"
+                            + " header " + header.size() + "; give every row the header's columns");
+                }
+                String ts = rec.get(tc);
+                double seconds;
+                try {
+                    seconds = Double.parseDouble(ts);
+                } catch (NumberFormatException e) {
+                    Instant at = instant(ts);
+                    if (at == null) {
+                        throw new InputException(name + ":" + line + ": " + tc + ": must be seconds or an ISO-8601"
+                                + " timestamp such as 2024-05-01T10:00:00 (got '" + ts + "')");
+                    }
+                    origin = origin == null ? at : origin;
+                    seconds = java.time.Duration.between(origin, at).toNanos() / 1e9;
+                }
+                double out = number(rec.get(uc), name, line, uc);
+                double pv = number(rec.get(yc), name, line, yc);
+                if (!t.isEmpty() && !(seconds > t.get(t.size() - 1))) {
+                    throw new InputException(name + ":" + line + ": " + tc + ": times must increase (got " + ts
+                            + " after the previous row); sort the record by time and remove repeated rows");
+                }
+                t.add(seconds);
+                u.add(outRange == null ? out : 100 * (out - outRange.low()) / outRange.width());
+                y.add(pvRange == null ? pv : 100 * (pv - pvRange.low()) / pvRange.width());
+            }
+        } catch (IOException e) {
+            throw new InputException(name + ": cannot be read (" + e.getMessage() + "); check the path");
+        } catch (IllegalArgumentException | IllegalStateException e) {
+            throw new InputException(name + ": is not a CSV file with a header row (" + e.getMessage() + ")");
+        }
+        if (t.size() < 3) {
+            throw new InputException(name + ": needs at least 3 samples (got " + t.size() + ")");
+        }
+        double t0 = t.get(0);
+        double[] ta = new double[t.size()];
+        double[] ua = new double[t.size()];
+        double[] ya = new double[t.size()];
+        for (int k = 0; k < ta.length; k++) {
+            ta[k] = t.get(k) - t0;
+            ua[k] = u.get(k);
+            ya[k] = y.get(k);
+        }
+        return new PlantRecord(ta, ua, ya);
+    }
+
+    private static String column(Map<String, Integer> header, String wanted, String option, String name) {
+        for (String h : header.keySet()) {
+            if (h.trim().equalsIgnoreCase(wanted.trim())) {
+                return h;
+            }
+        }
+        throw new InputException(name + ":1: " + option + ": no column '" + wanted + "' (the header has "
+                + String.join(", ", header.keySet()) + "); name the column with " + option);
+    }
+
+    private static double number(String cell, String name, long line, String column) {
+        try {
+            double v = Double.parseDouble(cell);
+            if (Double.isFinite(v)) {
+                return v;
+            }
+        } catch (NumberFormatException e) {
+            // reported below
+        }
+        throw new InputException(name + ":" + line + ": " + column + ": must be a number with a decimal point (got '"
+                + cell + "'); fill the gap or remove the row");
+    }
+
+    private static Instant instant(String text) {
+        try {
+            return OffsetDateTime.parse(text).toInstant();
+        } catch (DateTimeParseException e) {
+            try {
+                return LocalDateTime.parse(text.replace(' ', 'T')).toInstant(ZoneOffset.UTC);
+            } catch (DateTimeParseException e2) {
+                return null;
+            }
+        }
+    }
+
+    static String lower(String s) {
+        return s.toLowerCase(Locale.ROOT);
+    }
+}
