@@ -16,6 +16,7 @@ import org.loopform.analysis.MarginAnalysis;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.CheckRules;
+import org.loopform.findings.ConversionRules;
 import org.loopform.findings.Finding;
 import org.loopform.findings.ResponseRules;
 import org.loopform.form.AlgorithmKind;
@@ -94,7 +95,7 @@ public final class LoopCheck {
 
         FrequencyBand lawBand = TuningBand.implied(designLaw.terms(), h);
 
-        List<Finding> findings = new ArrayList<>(conversion.findings());
+        List<Finding> findings = new ArrayList<>(ConversionRules.findings(conversion, policy));
         LoopMargins designMargins = null;
         LoopMargins targetMargins = null;
         StepMetrics ds = null;

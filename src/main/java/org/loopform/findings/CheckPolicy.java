@@ -39,7 +39,11 @@ public record CheckPolicy(Map<PolicyKey, Double> values) {
             new Pair(PolicyKey.MS_FAIL, PolicyKey.MS_WARN, true),
             new Pair(PolicyKey.PHASE_MARGIN_FAIL_DEG, PolicyKey.PHASE_MARGIN_WARN_DEG, false),
             new Pair(PolicyKey.GAIN_MARGIN_FAIL, PolicyKey.GAIN_MARGIN_WARN, false),
-            new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false));
+            new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false),
+            new Pair(PolicyKey.FIT_FAIL_DB, PolicyKey.FIT_WARN_DB, true),
+            new Pair(PolicyKey.FIT_FAIL_DEG, PolicyKey.FIT_WARN_DEG, true),
+            new Pair(PolicyKey.ROUNDING_WARN_DB, PolicyKey.ROUNDING_INFO_DB, true),
+            new Pair(PolicyKey.ROUNDING_WARN_DEG, PolicyKey.ROUNDING_INFO_DEG, true));
 
     public CheckPolicy {
         EnumMap<PolicyKey, Double> copy = new EnumMap<>(PolicyKey.class);

@@ -197,6 +197,15 @@ public final class AuditRows {
         return n;
     }
 
+    /** The audit's summary as printed by {@code audit --format json}: the summary, and {@code out} when a folder was written. */
+    public static String summaryJsonText(AuditSummary s, String folder) {
+        ObjectNode n = summaryJson(s);
+        if (folder != null) {
+            n.put("out", folder);
+        }
+        return Json.write(n);
+    }
+
     public static ObjectNode summaryJson(AuditSummary s) {
         ObjectNode n = Json.object();
         n.put("loops", s.loops());

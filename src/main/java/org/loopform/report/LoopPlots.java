@@ -3,7 +3,7 @@ package org.loopform.report;
 import java.util.ArrayList;
 import java.util.List;
 import org.loopform.analysis.ControllerMismatch;
-import org.loopform.analysis.SampledResponse;
+import org.loopform.simulate.SampledResponse;
 import org.loopform.audit.CheckResult;
 
 /**

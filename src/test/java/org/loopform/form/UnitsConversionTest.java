@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.LinkedHashMap;
 import java.util.Map;
+import org.loopform.findings.ConversionRules;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -136,7 +137,7 @@ class UnitsConversionTest {
         // ti = 7000 s = 116.7 min: at or above 100 min, so the target would run without integral action
         Conversion c = Converter.convert(form("ideal"), values("kc", "2", "ti", "7000", "td", "0"), offAt100,
                 WritingContext.NONE);
-        assertThat(c.findings()).anySatisfy(f -> {
+        assertThat(ConversionRules.findings(c)).anySatisfy(f -> {
             assertThat(f.topic()).isEqualTo(org.loopform.findings.Topic.LIMITS);
             assertThat(f.severity()).isEqualTo(org.loopform.findings.Severity.FAIL);
             assertThat(f.message()).contains("integral action off");
