@@ -13,7 +13,7 @@ import me.tongfei.progressbar.ProgressBarStyle;
 import org.loopform.audit.Audit;
 import org.loopform.audit.AuditSummary;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
 import org.loopform.io.AuditOutput;

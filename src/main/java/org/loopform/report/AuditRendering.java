@@ -7,7 +7,7 @@ import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.util.List;
 import org.loopform.audit.LoopOutcome;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 
 /**
  * Renders one audited loop's share of the output folder, off the writing thread: its loops.csv

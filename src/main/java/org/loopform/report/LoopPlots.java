@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.loopform.analysis.ControllerMismatch;
 import org.loopform.simulate.SampledResponse;
-import org.loopform.audit.CheckResult;
+import org.loopform.check.CheckResult;
 
 /**
  * The pictures of a checked loop: setpoint and load responses, design against target, and the

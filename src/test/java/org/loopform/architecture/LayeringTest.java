@@ -55,6 +55,11 @@ class LayeringTest {
             .because("audit orchestrates many checks; files and output belong to io, report and cli");
 
     @ArchTest
+    static final ArchRule a_check_knows_nothing_of_audits = noClasses().that().resideInAPackage("org.loopform.check..")
+            .should().dependOnClassesThat().resideInAPackage("org.loopform.audit..")
+            .because("check evaluates one loop; audit orchestrates many checks on top of it");
+
+    @ArchTest
     static final ArchRule no_package_cycles = slices().matching("org.loopform.(*)..").should().beFreeOfCycles();
 
     @ArchTest
