@@ -95,11 +95,7 @@ final class AuditRunner {
             }
         }
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
-        if (s.format() == OutputFormat.json) {
-            out.print(AuditRows.summaryJsonText(summary, folder));
-        } else {
-            out.print(AuditRows.summaryText(summary, folder));
-        }
+        out.print(s.format().renderer().auditSummary(summary, folder));
         out.flush();
         if (summary.badRowCount() > 0) {
             return ExitCodes.BAD_INPUT;

@@ -19,7 +19,6 @@ import org.loopform.io.CatalogLoader;
 import org.loopform.io.ProcessReader;
 import org.loopform.process.ProcessModel;
 import org.loopform.report.Cautions;
-import org.loopform.report.ConversionReport;
 import org.loopform.units.Span;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -91,8 +90,7 @@ final class ConvertCommand implements Callable<Integer> {
             ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
         }
         var out = spec.commandLine().getOut();
-        out.print(format.format == OutputFormat.json ? ConversionReport.json(c, findings)
-                : ConversionReport.text(c, findings, raw));
+        out.print(format.format.renderer().conversion(c, findings, raw));
         out.flush();
         return Finding.worst(findings) == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }
