@@ -16,8 +16,8 @@ import org.loopform.units.Span;
 /**
  * The units layer: proportional band, repeats per minute, minutes versus seconds, engineering
  * units, per-scan gains and the action flag. Sources: PB% = 100/Kc (ISA InTech, Oct 2022, citing
- * Goettsche (ed.), Maintenance of Instruments and Systems, 2nd ed., ISA 2005; REFERENCES.md 2);
- * reset rate = 1/Ti in repeats per minute (common practice; REFERENCES.md 2); Kc% = Kc_eu * PV
+ * Goettsche (ed.), Maintenance of Instruments and Systems, 2nd ed., ISA 2005; docs/references.md 2);
+ * reset rate = 1/Ti in repeats per minute (common practice; docs/references.md 2); Kc% = Kc_eu * PV
  * span / output span and per-scan gains ki h, kd/h (common practice, derived from the definitions).
  */
 class UnitsConversionTest {
