@@ -1,5 +1,6 @@
 package org.loopform.analysis;
 
+import org.loopform.simulate.SampledResponse;
 import java.util.Objects;
 import java.util.OptionalDouble;
 

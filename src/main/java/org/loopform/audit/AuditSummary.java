@@ -1,5 +1,7 @@
 package org.loopform.audit;
 
+import org.loopform.check.Verdict;
+import org.loopform.check.CheckResult;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.EnumMap;

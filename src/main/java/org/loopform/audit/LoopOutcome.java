@@ -1,5 +1,6 @@
 package org.loopform.audit;
 
+import org.loopform.check.CheckResult;
 import java.util.List;
 
 /** What the audit made of one row: a check result, or the problems that stopped it. */

@@ -1,5 +1,6 @@
 package org.loopform.audit;
 
+import org.loopform.check.LoopSpec;
 import java.util.List;
 
 /**

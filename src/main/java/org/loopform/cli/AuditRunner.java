@@ -13,13 +13,14 @@ import me.tongfei.progressbar.ProgressBarStyle;
 import org.loopform.audit.Audit;
 import org.loopform.audit.AuditSummary;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
 import org.loopform.io.AuditOutput;
 import org.loopform.report.AuditInfo;
+import org.loopform.report.AuditRendering;
+import org.loopform.report.HtmlReport;
 import org.loopform.report.AuditRows;
-import org.loopform.report.Json;
 
 /** Runs an audit for the audit and demo commands: progress on a terminal, outputs, summary, exit code. */
 final class AuditRunner {
@@ -50,7 +51,8 @@ final class AuditRunner {
     }
 
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
-        AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs());
+        AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
+                AuditRows.LOOP_COLUMNS, AuditRows.ENTRY_COLUMNS);
         Progress progress = s.progress();
         ProgressBar bar = System.console() != null && System.getenv("CI") == null ? new ProgressBarBuilder()
                 .setTaskName("checking").setInitialMax(progress.total()).setStyle(ProgressBarStyle.ASCII)
@@ -60,9 +62,9 @@ final class AuditRunner {
         try {
             boolean html = output != null && output.html();
             summary = Audit.run(rows, s.policy(), s.threads(),
-                    o -> output == null ? null : AuditOutput.render(o, html), (o, rendered) -> {
+                    o -> output == null ? null : AuditRendering.render(o, html), (o, r) -> {
                         if (output != null) {
-                            output.accept(o, rendered);
+                            output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots());
                         }
                         badRows.accept(o);
                         if (bar != null) {
@@ -79,8 +81,10 @@ final class AuditRunner {
                 err.println("loopform: no loop could be checked, so nothing was written to " + s.out());
                 err.flush();
             } else if (output != null) {
-                output.finish(summary, new AuditInfo("loopform migration audit", s.inputName(),
-                        ZonedDateTime.now().withNano(0).format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText()));
+                AuditInfo info = new AuditInfo("loopform migration audit", s.inputName(),
+                        ZonedDateTime.now().withNano(0).format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText());
+                output.finish(AuditRows.summaryJson(summary), (doc, sections) -> HtmlReport.writeDocument(doc, summary,
+                        info, sections));
             }
         } finally {
             if (bar != null) {
@@ -91,15 +95,7 @@ final class AuditRunner {
             }
         }
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
-        if (s.format() == OutputFormat.json) {
-            var n = AuditRows.summaryJson(summary);
-            if (folder != null) {
-                n.put("out", folder);
-            }
-            out.print(Json.write(n));
-        } else {
-            out.print(AuditRows.summaryText(summary, folder));
-        }
+        out.print(s.format().renderer().auditSummary(summary, folder));
         out.flush();
         if (summary.badRowCount() > 0) {
             return ExitCodes.BAD_INPUT;

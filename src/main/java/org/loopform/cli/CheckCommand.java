@@ -4,20 +4,18 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.loopform.audit.CheckResult;
-import org.loopform.audit.LoopCheck;
-import org.loopform.audit.LoopSpec;
-import org.loopform.audit.ScanSweep;
-import org.loopform.audit.Verdict;
+import org.loopform.check.CheckResult;
+import org.loopform.check.LoopCheck;
+import org.loopform.check.LoopSpec;
+import org.loopform.check.ScanSweep;
+import org.loopform.check.Verdict;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.PolicyKey;
 import org.loopform.io.AtomicFiles;
 import org.loopform.io.LoopFileReader;
 import org.loopform.io.PolicyFileReader;
 import org.loopform.report.Cautions;
-import org.loopform.report.CheckReport;
 import org.loopform.report.LoopPlots;
-import org.loopform.report.SweepReport;
 import org.loopform.units.Measure;
 import org.loopform.units.Numbers;
 import org.loopform.units.TimeUnit;
@@ -82,7 +80,7 @@ final class CheckCommand implements Callable<Integer> {
         if (sweep != null) {
             double[] range = range(sweep);
             ScanSweep.Result result = ScanSweep.run(loop, range[0], range[1], policy);
-            out.print(format.format == OutputFormat.json ? SweepReport.json(result) : SweepReport.text(result));
+            out.print(format.format.renderer().sweep(result));
             out.flush();
             return result.longestAcceptableSeconds() == null ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
         }
@@ -91,7 +89,7 @@ final class CheckCommand implements Callable<Integer> {
             AtomicFiles.write(plot, AtomicFiles.markedSvg(LoopPlots.svg(r)),
                     List.of(loopFile, policyFile == null ? loopFile : policyFile));
         }
-        out.print(format.format == OutputFormat.json ? CheckReport.json(r) : CheckReport.text(r));
+        out.print(format.format.renderer().check(r));
         if (plot != null && format.format == OutputFormat.text) {
             out.println("Plot written to " + plot);
         }

@@ -5,6 +5,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.loopform.findings.ActionRule;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.ConversionRules;
+import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
 import org.loopform.form.Conversion;
 import org.loopform.form.Converter;
@@ -16,7 +19,6 @@ import org.loopform.io.CatalogLoader;
 import org.loopform.io.ProcessReader;
 import org.loopform.process.ProcessModel;
 import org.loopform.report.Cautions;
-import org.loopform.report.ConversionReport;
 import org.loopform.units.Span;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -82,15 +84,15 @@ final class ConvertCommand implements Callable<Integer> {
         FormDefinition target = CatalogLoader.resolve(to, "--to");
         Map<String, String> raw = parse(values);
         Conversion c = Converter.convert(source, raw, target, new WritingContext(pvRange, outRange, scanSeconds));
+        List<Finding> findings = new java.util.ArrayList<>(ConversionRules.findings(c, CheckPolicy.DEFAULT));
         if (process != null) {
             ProcessModel p = ProcessReader.fromOption(process, "--process", pvRange, outRange);
-            c = c.withFindings(ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0)
-                    .stream().toList());
+            ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
         }
         var out = spec.commandLine().getOut();
-        out.print(format.format == OutputFormat.json ? ConversionReport.json(c) : ConversionReport.text(c, raw));
+        out.print(format.format.renderer().conversion(c, findings, raw));
         out.flush();
-        return c.worst() == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+        return Finding.worst(findings) == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }
 
     static Map<String, String> parse(List<String> pairs) {

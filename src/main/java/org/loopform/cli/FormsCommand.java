@@ -1,5 +1,7 @@
 package org.loopform.cli;
 
+import org.loopform.report.Renderer;
+
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -7,8 +9,6 @@ import org.loopform.form.FormDefinition;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.FormFileReader;
 import org.loopform.io.InputException;
-import org.loopform.report.FormReport;
-import org.loopform.report.TextTable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -31,18 +31,7 @@ final class FormsCommand implements Callable<Integer> {
     public Integer call() {
         List<FormDefinition> forms = CatalogLoader.bundled().all();
         var out = spec.commandLine().getOut();
-        if (format.format == OutputFormat.json) {
-            out.print(FormReport.listJson(forms));
-        } else {
-            TextTable t = new TextTable("id", "structure", "parameters", "title");
-            for (FormDefinition f : forms) {
-                t.row(f.id(), f.structure().id(), String.join(" ", f.parameterNames()), f.title());
-            }
-            out.print(t.render(0));
-            out.println();
-            out.println(forms.size() + " forms. 'loopform forms show ID' gives one in full; a form file of your own"
-                    + " works wherever an id does.");
-        }
+        out.print(format.format.renderer().formList(forms));
         out.flush();
         return ExitCodes.OK;
     }
@@ -63,7 +52,7 @@ final class FormsCommand implements Callable<Integer> {
         public Integer call() {
             FormDefinition f = CatalogLoader.resolve(form, "forms show");
             var out = spec.commandLine().getOut();
-            out.print(format.format == OutputFormat.json ? FormReport.json(f) : FormReport.text(f));
+            out.print(format.format.renderer().form(f));
             out.flush();
             return ExitCodes.OK;
         }
@@ -86,25 +75,14 @@ final class FormsCommand implements Callable<Integer> {
             var out = spec.commandLine().getOut();
             try {
                 FormDefinition f = FormFileReader.read(file, file.toString());
-                if (format.format == OutputFormat.json) {
-                    out.print(FormReport.checkJson(file.toString(), f.id(), List.of()));
-                } else {
-                    out.println(file + ": form " + f.id() + " is valid (" + f.structure().id() + "; parameters "
-                            + String.join(", ", f.parameters().stream().map(p -> p.name()).toList()) + ").");
-                }
+                out.print(format.format.renderer().formValid(file.toString(), f));
                 out.flush();
                 return ExitCodes.OK;
             } catch (InputException e) {
-                if (format.format == OutputFormat.json) {
-                    out.print(FormReport.checkJson(file.toString(), null, e.problems()));
-                    out.flush();
-                } else {
-                    var err = spec.commandLine().getErr();
-                    e.problems().forEach(err::println);
-                    err.println(e.problems().size() + (e.problems().size() == 1 ? " problem" : " problems")
-                            + " in " + file + "; see forms-catalog/README.md for the form-file layout.");
-                    err.flush();
-                }
+                Renderer renderer = format.format.renderer();
+                var to = renderer.problemsOnStandardOutput() ? out : spec.commandLine().getErr();
+                to.print(renderer.formProblems(file.toString(), e.problems()));
+                to.flush();
                 return ExitCodes.BAD_INPUT;
             }
         }

@@ -9,7 +9,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;

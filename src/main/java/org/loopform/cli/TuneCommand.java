@@ -4,10 +4,10 @@ import java.util.LinkedHashMap;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.loopform.audit.CheckResult;
-import org.loopform.audit.LoopCheck;
-import org.loopform.audit.LoopSpec;
-import org.loopform.audit.Verdict;
+import org.loopform.check.CheckResult;
+import org.loopform.check.LoopCheck;
+import org.loopform.check.LoopSpec;
+import org.loopform.check.Verdict;
 import org.loopform.findings.ActionRule;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
@@ -144,11 +144,12 @@ final class TuneCommand implements Callable<Integer> {
         Conversion conv = Converter.convert(source, values, target, new WritingContext(pvRange, outRange, scanSeconds));
         CheckResult design = null;
         CheckResult check = null;
-        boolean failed = conv.worst() == Severity.FAIL;
+        java.util.List<org.loopform.findings.Finding> convFindings = new java.util.ArrayList<>(
+                org.loopform.findings.ConversionRules.findings(conv));
+        boolean failed = org.loopform.findings.Finding.worst(convFindings) == Severity.FAIL;
         if (p != null) {
-            conv = conv.withFindings(ActionRule.check(conv.sourceLaw().terms(), p.lowFrequencyGain(),
-                    p.integrators() > 0).stream().toList());
-            failed |= conv.worst() == Severity.FAIL;
+            ActionRule.check(conv.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0)
+                    .ifPresent(convFindings::add);
             if (scanSeconds != null) {
                 check = LoopCheck.run(new LoopSpec("tune", p, source, values, null, target, scanSeconds, pvRange,
                         outRange, "--process"), CheckPolicy.DEFAULT);
@@ -162,8 +163,8 @@ final class TuneCommand implements Callable<Integer> {
             }
         }
         var out = spec.commandLine().getOut();
-        out.print(format.format == OutputFormat.json ? TuneReport.json(t, conv, design, check)
-                : TuneReport.text(t, conv, values, design, check));
+        out.print(format.format == OutputFormat.json ? TuneReport.json(t, conv, convFindings, design, check)
+                : TuneReport.text(t, conv, convFindings, values, design, check));
         out.flush();
         return failed ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }

@@ -42,7 +42,11 @@ public record CheckPolicy(Map<PolicyKey, Double> values) {
             new Pair(PolicyKey.DELAY_MARGIN_FAIL_SCANS, PolicyKey.DELAY_MARGIN_WARN_SCANS, false),
             new Pair(PolicyKey.REPLAY_RMS_FAIL_PCT, PolicyKey.REPLAY_RMS_WARN_PCT, true),
             new Pair(PolicyKey.REPLAY_CORRELATION_FAIL, PolicyKey.REPLAY_CORRELATION_WARN, false),
-            new Pair(PolicyKey.REPLAY_AS_LEFT_RMS_FAIL_PCT, PolicyKey.REPLAY_AS_LEFT_RMS_WARN_PCT, true));
+            new Pair(PolicyKey.REPLAY_AS_LEFT_RMS_FAIL_PCT, PolicyKey.REPLAY_AS_LEFT_RMS_WARN_PCT, true),
+            new Pair(PolicyKey.FIT_FAIL_DB, PolicyKey.FIT_WARN_DB, true),
+            new Pair(PolicyKey.FIT_FAIL_DEG, PolicyKey.FIT_WARN_DEG, true),
+            new Pair(PolicyKey.ROUNDING_WARN_DB, PolicyKey.ROUNDING_INFO_DB, true),
+            new Pair(PolicyKey.ROUNDING_WARN_DEG, PolicyKey.ROUNDING_INFO_DEG, true));
 
     public CheckPolicy {
         EnumMap<PolicyKey, Double> copy = new EnumMap<>(PolicyKey.class);

@@ -75,8 +75,28 @@ public enum PolicyKey {
     REPLAY_AS_LEFT_RMS_WARN_PCT("replay_as_left_rms_warn_pct", 1, "% of span", "replay: RMS difference of the target's"
             + " output from the source's on the record above which the as-left preview warns", CheckRules.REPLAY_POLICY),
     REPLAY_AS_LEFT_RMS_FAIL_PCT("replay_as_left_rms_fail_pct", 5, "% of span", "replay: RMS difference of the"
-            + " target's output from the source's above which the as-left preview fails", CheckRules.REPLAY_POLICY);
-
+            + " target's output from the source's above which the as-left preview fails", CheckRules.REPLAY_POLICY),
+    FIT_WARN_DB("fit_warn_db", 0.25, "dB", "feedback-path gain deviation of a nearest fit, where the loop lives, above"
+            + " which the conversion warns (and by which the setpoint path must exceed it to be reported)",
+            "loopform policy (common practice): 0.25 dB is 3 % of gain, within what a loop's model is known to"),
+    FIT_WARN_DEG("fit_warn_deg", 3, "deg", "feedback-path phase deviation of a nearest fit, where the loop lives,"
+            + " above which the conversion warns", "loopform policy (common practice): a few degrees of phase"
+            + " margin, within what a loop's model is known to"),
+    FIT_FAIL_DB("fit_fail_db", 3, "dB", "feedback-path gain deviation of a nearest fit, where the loop lives, above"
+            + " which the conversion fails (anywhere in the band: warns)", "loopform policy (common practice)"),
+    FIT_FAIL_DEG("fit_fail_deg", 20, "deg", "feedback-path phase deviation of a nearest fit, where the loop lives,"
+            + " above which the conversion fails (anywhere in the band: warns)", "loopform policy (common practice)"),
+    FILTER_CHANGE_DB("filter_change_db", 0.1, "dB", "change of the high-frequency derivative gain above which a"
+            + " target that cannot hold the source's filter is reported", "loopform policy (common practice)"),
+    ROUNDING_INFO_DB("rounding_info_db", 0.1, "dB", "gain move of the law by rounding to the target's resolution"
+            + " above which it is reported", "loopform policy (common practice)"),
+    ROUNDING_INFO_DEG("rounding_info_deg", 1, "deg", "phase move of the law by rounding above which it is reported",
+            "loopform policy (common practice)"),
+    ROUNDING_WARN_DB("rounding_warn_db", 0.5, "dB", "gain move of the law by rounding above which it warns",
+            "loopform policy (common practice): 0.5 dB is a gain change of 6 %, within what a loop's tuning is"
+                    + " known to"),
+    ROUNDING_WARN_DEG("rounding_warn_deg", 3, "deg", "phase move of the law by rounding above which it warns",
+            "loopform policy (common practice)");
 
     private final String id;
     private final double defaultValue;

@@ -2,7 +2,7 @@ package org.loopform.findings;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.loopform.analysis.SampledResponse;
+import org.loopform.simulate.SampledResponse;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.simulate.StepTest;
 import org.loopform.simulate.StepTest.OutputExtremes;

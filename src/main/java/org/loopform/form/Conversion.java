@@ -2,8 +2,6 @@ package org.loopform.form;
 
 import java.util.List;
 import java.util.Map;
-import org.loopform.findings.Finding;
-import org.loopform.findings.Severity;
 import org.loopform.law.ControlLaw;
 import org.loopform.lti.FrequencyBand;
 import org.loopform.law.LawDeviation;
@@ -12,7 +10,8 @@ import org.loopform.law.LawDeviation;
  * The result of carrying one tuning from a source form to a target form: whether the target
  * writes the source law exactly, the target values (as computed, and as entered at the target's
  * resolution), how far the target law strays from the source law over the band and over the band
- * where the loop lives, and the findings.
+ * where the loop lives, and the plain facts ({@link ConversionNote}) that {@code findings.ConversionRules}
+ * judges.
  *
  * @param textbook     the target values by the textbook relations for laws without a derivative
  *                     filter (Astrom and Hagglund 1995, sec. 3.4), when they differ from the exact
@@ -29,30 +28,17 @@ import org.loopform.law.LawDeviation;
 public record Conversion(FormDefinition from, FormDefinition to, PidSetting sourceSetting, ControlLaw sourceLaw,
                          PidSetting targetSetting, ControlLaw targetLaw, ControlLaw enteredLaw, boolean exact,
                          WrittenTuning parameters, WrittenTuning entered, LawDeviation deviation,
-                         FrequencyBand band, List<Finding> findings, WrittenTuning textbook,
+                         FrequencyBand band, List<ConversionNote> notes, WrittenTuning textbook,
                          List<String> assumptions, FrequencyBand loopBand, LawDeviation loopDeviation,
                          Map<String, String> refused) {
 
     public Conversion {
-        findings = List.copyOf(findings);
+        notes = List.copyOf(notes);
         assumptions = List.copyOf(assumptions);
         refused = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(refused));
         if (loopBand == null || loopDeviation == null) {
             throw new IllegalArgumentException("a conversion needs the band where the loop lives and its deviation there");
         }
-    }
-
-    /** This conversion with {@code more} findings after its own. */
-    public Conversion withFindings(List<Finding> more) {
-        List<Finding> all = new java.util.ArrayList<>(findings);
-        all.addAll(more);
-        return new Conversion(from, to, sourceSetting, sourceLaw, targetSetting, targetLaw, enteredLaw, exact, parameters,
-                entered, deviation, band, all, textbook, assumptions, loopBand, loopDeviation, refused);
-    }
-
-    /** The worst finding's severity (INFO when there are none). */
-    public Severity worst() {
-        return Finding.worst(findings);
     }
 
     /** The reason the target refuses {@code name}'s value, or null when it accepts it. */

@@ -5,9 +5,8 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.loopform.findings.Finding;
-import org.loopform.findings.Severity;
-import org.loopform.findings.Topic;
+import java.util.Optional;
+import java.util.OptionalDouble;
 import org.loopform.law.ControlLaw;
 import org.loopform.lti.FrequencyBand;
 import org.loopform.law.LawDeviation;
@@ -22,33 +21,13 @@ import org.loopform.units.Numbers;
  */
 public final class Converter {
 
-    /** Rounding that moves the law by more than this is reported (the tool's policy). */
-    public static final double ROUNDING_GAIN_DB = 0.1;
-    public static final double ROUNDING_PHASE_DEG = 1.0;
     /**
-     * Rounding to the target's resolution is the best it can store; a move beyond these is worth
-     * acting on (a finer form or a retune), one within them is reported as info (the tool's policy:
-     * 0.5 dB is a gain change of 6 %, within what a loop's tuning is known to).
+     * The scales of the nearest fit's score: a feedback-path deviation of this many dB or degrees
+     * weighs one unit (the fail limits of the default policy, {@code fit_fail_db} and
+     * {@code fit_fail_deg}; a weighting, not a threshold).
      */
-    public static final double ROUNDING_WARN_GAIN_DB = 0.5;
-    public static final double ROUNDING_WARN_PHASE_DEG = 3.0;
-    /** A nearest fit worse than this is a failure rather than a warning (the tool's policy, common practice). */
-    public static final double FIT_FAIL_GAIN_DB = 3.0;
-    public static final double FIT_FAIL_PHASE_DEG = 20.0;
-    /**
-     * A feedback-path deviation below this where the loop lives changes nothing an engineer could
-     * see in the loop's response: 0.25 dB is 3 % of gain, 3 deg a few degrees of phase margin,
-     * both within what a loop's model is known to (the tool's policy, common practice). With a
-     * process the check compares the loops themselves.
-     */
-    static final double NEGLIGIBLE_GAIN_DB = 0.25;
-    static final double NEGLIGIBLE_PHASE_DEG = 3.0;
-    /** A change in high-frequency derivative gain below this is not worth a finding. */
-    static final double FILTER_CHANGE_DB = 0.1;
-
-    private static final String ASTROM_1995 =
-            "Astrom & Hagglund, PID Controllers: Theory, Design and Tuning, 2nd ed., ISA 1995, sec. 3.4";
-    private static final String POLICY = "loopform policy (common practice)";
+    static final double FIT_SCALE_GAIN_DB = 3.0;
+    static final double FIT_SCALE_PHASE_DEG = 20.0;
 
     private Converter() {
     }
@@ -77,7 +56,7 @@ public final class Converter {
      */
     public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
                                             FormDefinition to, WritingContext ctx, FrequencyBand loopBand) {
-        List<Finding> findings = new ArrayList<>();
+        List<ConversionNote> notes = new ArrayList<>();
         List<String> assumptions = new ArrayList<>();
         PidSetting src = FormCodec.decode(from, values, fromCtx, "source");
         java.util.Set<String> given = new java.util.HashSet<>();
@@ -142,7 +121,7 @@ public final class Converter {
         if (!exact) {
             deviation = LawDeviation.ofFeedback(law, targetLaw, band);
             loopDeviation = LawDeviation.ofFeedback(law, targetLaw, lives);
-            explainInexact(law, targetLaw, to, band, lives, deviation, loopDeviation, findings);
+            notes.add(inexact(law, targetLaw, to, lives));
         }
 
         WrittenTuning written = FormCodec.encode(to, result, ctx, "target");
@@ -154,17 +133,17 @@ public final class Converter {
             }
         }
         if (exact) {
-            explainExactFilter(from, src, to, result, law, textbookSetting, textbookValues != null, lives, findings);
+            explainExactFilter(from, src, to, result, law, textbookSetting, textbookValues != null, lives, notes);
         }
         Map<String, String> refused = new LinkedHashMap<>();
-        checkLimits(to, written, result, findings, refused);
+        checkLimits(to, written, result, notes, refused);
         WrittenTuning entered = enter(to, written);
         ControlLaw enteredLaw = targetLaw;
         if (!sameToDigits(entered, written)) {
-            enteredLaw = checkRounding(to, written, entered, targetLaw, band, ctx, findings);
+            enteredLaw = checkRounding(to, written, entered, targetLaw, band, ctx, notes);
         }
         return new Conversion(from, to, src, law, result, targetLaw, enteredLaw, exact, written, entered, deviation,
-                band, findings, textbookValues, assumptions, lives, loopDeviation, refused);
+                band, notes, textbookValues, assumptions, lives, loopDeviation, refused);
     }
 
     /**
@@ -205,18 +184,20 @@ public final class Converter {
 
     /**
      * An exact conversion that needs a filter setting other than the target's default (or the
-     * source's) says so, and what entering the other values with the default filter would cost.
+     * source's) notes it, with what entering the other values with the default filter would cost.
      */
     private static void explainExactFilter(FormDefinition from, PidSetting src, FormDefinition to, PidSetting result,
                                            ControlLaw law, PidSetting textbookSetting, boolean textbookDiffers,
-                                           FrequencyBand lives, List<Finding> findings) {
+                                           FrequencyBand lives, List<ConversionNote> notes) {
         double td = result.derivativeTimeSeconds();
         if (td == 0) {
             return;
         }
         PidSetting withDefault;
-        String needed;
-        String defaultText;
+        String parameter;
+        double needed;
+        double defaultValue;
+        String unit;
         if (to.filter().kind() == FilterKind.RATIO) {
             double n = result.filterSeconds() > 0 ? td / result.filterSeconds() : Double.POSITIVE_INFINITY;
             double nDefault = to.filter().ratio();
@@ -224,55 +205,39 @@ public final class Converter {
                 return;
             }
             withDefault = result.withFilterSeconds(td / nDefault);
-            needed = "n = " + (Double.isFinite(n) ? Numbers.significant(n, 4) : "off");
-            defaultText = "n = " + Numbers.plain(nDefault);
+            parameter = "n";
+            needed = n;
+            defaultValue = nDefault;
+            unit = "";
         } else if (to.filter().kind() == FilterKind.TIME_CONSTANT) {
             double tfDefault = to.filter().unit().toSeconds(to.filter().defaultTime());
             if (Math.abs(result.filterSeconds() - tfDefault) <= TEXTBOOK_DIFFERS * Math.max(tfDefault, td)) {
                 return;
             }
             withDefault = result.withFilterSeconds(tfDefault);
-            needed = "tf = " + Numbers.significant(to.filter().unit().fromSeconds(result.filterSeconds()), 4) + " "
-                    + to.filter().unit().symbol();
-            defaultText = "tf = " + Numbers.plain(to.filter().defaultTime()) + " " + to.filter().unit().symbol();
+            parameter = "tf";
+            needed = to.filter().unit().fromSeconds(result.filterSeconds());
+            defaultValue = to.filter().defaultTime();
+            unit = to.filter().unit().symbol();
         } else {
             return;
         }
         LawDeviation cost = LawDeviation.ofFeedback(law, StructureLaw.toLaw(withDefault, to.filter().placement()), lives);
-        StringBuilder m = new StringBuilder("Exact with " + needed + " instead of " + to.id() + "'s default "
-                + defaultText + ": ");
-        if (from.structure() != to.structure() && (from.structure() == Structure.SERIES
-                || to.structure() == Structure.SERIES)) {
-            m.append("a series controller filters its derivative lead-lag K(1 + 1/(Ti s))(1 + Td s)/(1 + Tf s), and"
-                    + " written in the other structure that same filter time is a different share of the derivative"
-                    + " time. ");
-        } else {
-            m.append("the source's filter time Tf = ").append(Numbers.significant(src.filterSeconds(), 4))
-                    .append(" s is a different share of the target's derivative time. ");
-        }
-        m.append("Entering the other values with ").append(defaultText).append(" would move the law by up to ")
-                .append(Numbers.deviation(cost.gainDb())).append(" dB and ").append(Numbers.deviation(cost.phaseDegrees()))
-                .append(" deg over ").append(bandText(lives)).append(" (where the loop lives); enter ")
-                .append(needed).append('.');
+        boolean seriesInvolved = from.structure() != to.structure() && (from.structure() == Structure.SERIES
+                || to.structure() == Structure.SERIES);
+        Optional<LawDeviation> textbookCost = Optional.empty();
         if (textbookDiffers && textbookSetting != null) {
-            LawDeviation tb = LawDeviation.ofFeedback(law, StructureLaw.toLaw(
-                    project(textbookSetting, to, law.terms()), to.filter().placement()), lives);
-            m.append(" The textbook values (the relations without a filter) with ").append(defaultText)
-                    .append(" would move it by up to ").append(Numbers.deviation(tb.gainDb())).append(" dB and ")
-                    .append(Numbers.deviation(tb.phaseDegrees())).append(" deg there.");
+            textbookCost = Optional.of(LawDeviation.ofFeedback(law, StructureLaw.toLaw(
+                    project(textbookSetting, to, law.terms()), to.filter().placement()), lives));
         }
-        findings.add(new Finding(Topic.FILTER, Severity.INFO, cost.gainDb(), null, "dB", ASTROM_1995, m.toString()));
-    }
-
-    private static String bandText(FrequencyBand b) {
-        return Numbers.significant(b.lowRadPerSecond(), 3) + " to " + Numbers.significant(b.highRadPerSecond(), 3)
-                + " rad/s";
+        notes.add(new ConversionNote.FilterSettingNeeded(parameter, needed, defaultValue, unit, seriesInvolved,
+                src.filterSeconds(), cost, textbookCost));
     }
 
     /** Feedback path first: a setpoint-path gain never buys a feedback-path loss. */
     private static double score(LawDeviation feedback, LawDeviation setpoint) {
-        return 1e3 * (feedback.gainDb() / FIT_FAIL_GAIN_DB + feedback.phaseDegrees() / FIT_FAIL_PHASE_DEG)
-                + setpoint.gainDb() / FIT_FAIL_GAIN_DB + setpoint.phaseDegrees() / FIT_FAIL_PHASE_DEG;
+        return 1e3 * (feedback.gainDb() / FIT_SCALE_GAIN_DB + feedback.phaseDegrees() / FIT_SCALE_PHASE_DEG)
+                + setpoint.gainDb() / FIT_SCALE_GAIN_DB + setpoint.phaseDegrees() / FIT_SCALE_PHASE_DEG;
     }
 
     /** Puts a candidate onto what the target can hold: its filter rule and its fixed weights. */
@@ -315,115 +280,29 @@ public final class Converter {
                 to.c().defaultValue());
     }
 
-    /**
-     * The severity of a nearest fit, judged where the loop lives: fail beyond
-     * {@link #FIT_FAIL_GAIN_DB} / {@link #FIT_FAIL_PHASE_DEG} there; warn beyond
-     * {@link #NEGLIGIBLE_GAIN_DB} / {@link #NEGLIGIBLE_PHASE_DEG} there, or beyond the fail limits
-     * anywhere in the band (the loop band is an estimate without a process); info otherwise.
-     */
-    static Severity fitSeverity(LawDeviation loop, LawDeviation whole) {
-        if (loop.gainDb() > FIT_FAIL_GAIN_DB || loop.phaseDegrees() > FIT_FAIL_PHASE_DEG) {
-            return Severity.FAIL;
-        }
-        if (loop.gainDb() > NEGLIGIBLE_GAIN_DB || loop.phaseDegrees() > NEGLIGIBLE_PHASE_DEG
-                || whole.gainDb() > FIT_FAIL_GAIN_DB || whole.phaseDegrees() > FIT_FAIL_PHASE_DEG) {
-            return Severity.WARN;
-        }
-        return Severity.INFO;
-    }
-
-    private static void explainInexact(ControlLaw law, ControlLaw target, FormDefinition to, FrequencyBand band,
-                                       FrequencyBand lives, LawDeviation deviation, LawDeviation loopDeviation,
-                                       List<Finding> findings) {
+    /** The figures of an inexact conversion that say why it is inexact ({@link ConversionNote.Inexact}). */
+    private static ConversionNote inexact(ControlLaw law, ControlLaw target, FormDefinition to, FrequencyBand lives) {
         PidTerms s = law.terms();
-        Severity fitSeverity = fitSeverity(loopDeviation, deviation);
-        String bandText = "over " + bandText(band);
-        String devText = "deviates in its feedback path by up to " + Numbers.deviation(loopDeviation.gainDb())
-                + " dB and " + Numbers.deviation(loopDeviation.phaseDegrees()) + " deg over " + bandText(lives)
-                + " (where the loop lives), and by up to " + Numbers.deviation(deviation.gainDb()) + " dB and "
-                + Numbers.deviation(deviation.phaseDegrees()) + " deg " + bandText;
-        boolean explained = false;
-        if (to.structure() == Structure.SERIES && StructureLaw.seriesDiscriminant(s) < 0) {
-            double ratio = s.p() * s.p() / (s.d() * s.i());
-            findings.add(new Finding(Topic.REALIZABILITY, fitSeverity, ratio, 4.0, "ratio", ASTROM_1995,
-                    "The source law has complex zeros (p^2/(d i), the ideal form's Ti/Td, is "
-                            + Numbers.significant(ratio, 4) + ", below 4), so a series controller cannot write it."
-                            + " The nearest series setting " + devText + "."));
-            explained = true;
-        }
+        OptionalDouble complexZeros = to.structure() == Structure.SERIES && StructureLaw.seriesDiscriminant(s) < 0
+                ? OptionalDouble.of(s.p() * s.p() / (s.d() * s.i())) : OptionalDouble.empty();
         double hfSource = s.highFrequencyGain();
-        double hfTarget = target.terms().highFrequencyGain();
-        boolean sourceFiltered = Double.isFinite(hfSource);
-        boolean targetFiltered = Double.isFinite(hfTarget);
         boolean filterBound = to.filter().kind() == FilterKind.FIXED_RATIO || to.filter().kind() == FilterKind.NONE
-                || !sourceFiltered;
-        if (s.d() != 0 && filterBound && (sourceFiltered != targetFiltered || sourceFiltered
-                && Math.abs(20 * Math.log10(hfTarget / hfSource)) > FILTER_CHANGE_DB)) {
-            String what = switch (to.filter().kind()) {
-                case FIXED_RATIO -> "fixes its filter ratio at N = " + Numbers.plain(to.filter().ratio());
-                case NONE -> "has no derivative filter";
-                default -> "cannot hold the source's derivative filter";
-            };
-            if (sourceFiltered && targetFiltered) {
-                double changeDb = 20 * Math.log10(hfTarget / hfSource);
-                findings.add(new Finding(Topic.FILTER, fitSeverity, changeDb, 0.0, "dB", POLICY,
-                        "Target " + to.id() + " " + what + ": the high-frequency derivative gain changes from "
-                                + Numbers.significant(hfSource, 4) + " to " + Numbers.significant(hfTarget, 4)
-                                + " %/% (" + Numbers.significant(changeDb, 3) + " dB); the nearest setting "
-                                + devText + "."));
-            } else if (targetFiltered) {
-                findings.add(new Finding(Topic.FILTER, fitSeverity, hfTarget, null, "%/%", POLICY,
-                        "The source law has no derivative filter (derivative gain unlimited at high frequency); target "
-                                + to.id() + " " + what + " and caps it at " + Numbers.significant(hfTarget, 4)
-                                + " %/%. The target law " + devText + "."));
-            } else {
-                findings.add(new Finding(Topic.FILTER, fitSeverity, hfSource, null, "%/%", POLICY,
-                        "Target " + to.id() + " has no derivative filter: its derivative gain grows without bound "
-                                + "where the source law capped it at " + Numbers.significant(hfSource, 4)
-                                + " %/%. The target law " + devText + "."));
-            }
-            explained = true;
-        }
-        boolean feedbackExact = target.sameFeedbackAs(law, ControlLaw.SAME_LAW_TOLERANCE);
-        if (!explained && !feedbackExact) {
-            findings.add(new Finding(Topic.REALIZABILITY, fitSeverity, loopDeviation.gainDb(), FIT_FAIL_GAIN_DB, "dB",
-                    POLICY, "Target " + to.id() + " cannot write the source law exactly; the nearest setting "
-                    + devText + "."));
-        }
-        LawDeviation sp = LawDeviation.ofSetpoint(law, target, lives);
-        // only what the feedback path's deviation does not already explain is the weights' doing; it
-        // is info on the setpoint path (usually wanted: derivative on the measurement, a weighted
-        // setpoint) unless the feedback path changes too where the loop lives
-        if (sp.gainDb() > loopDeviation.gainDb() + NEGLIGIBLE_GAIN_DB
-                || sp.phaseDegrees() > loopDeviation.phaseDegrees() + NEGLIGIBLE_PHASE_DEG) {
-            boolean feedbackChanges = fitSeverity != Severity.INFO;
-            findings.add(new Finding(Topic.REALIZABILITY, feedbackChanges ? Severity.WARN : Severity.INFO, sp.gainDb(),
-                    NEGLIGIBLE_GAIN_DB, "dB", POLICY,
-                    (feedbackExact ? "The feedback path is exact, but t" : "T") + "arget " + to.id()
-                            + " cannot weight the setpoint as the source does (setpoint weights b, c"
-                            + (to.c().adjustable() ? "" : "; its c is fixed at " + Numbers.plain(to.c().defaultValue()))
-                            + "): the setpoint path deviates by up to " + Numbers.deviation(sp.gainDb()) + " dB and "
-                            + Numbers.deviation(sp.phaseDegrees()) + " deg over " + bandText(lives)
-                            + ". Setpoint responses will differ; disturbance responses follow the feedback path"
-                            + (feedbackChanges ? ", which changes too." : ", which does not change there.")));
-        }
+                || !Double.isFinite(hfSource);
+        return new ConversionNote.Inexact(complexZeros, s.d() != 0, filterBound, hfSource,
+                target.terms().highFrequencyGain(), target.sameFeedbackAs(law, ControlLaw.SAME_LAW_TOLERANCE),
+                LawDeviation.ofSetpoint(law, target, lives));
     }
 
-    private static void checkLimits(FormDefinition to, WrittenTuning written, PidSetting s, List<Finding> findings,
-                                    Map<String, String> refused) {
+    private static void checkLimits(FormDefinition to, WrittenTuning written, PidSetting s,
+                                    List<ConversionNote> notes, Map<String, String> refused) {
         written.values().forEach((name, value) -> {
             if (name.equals(to.integralName()) && !s.hasIntegral()) {
                 return; // the off value is written as the form says, whatever the range
             }
             if (name.equals(to.integralName()) && to.integral().isOff(value)) {
-                String unit = FormUnits.of(to, name);
                 refused.put(name, "read as integral action off by " + to.id());
-                findings.add(new Finding(Topic.LIMITS, Severity.FAIL, value, to.integral().offValue(), unit,
-                        "target form " + to.id(), name + " = " + Numbers.significant(value, 6) + " " + unit
-                        + " is what " + to.id() + " reads as integral action off ("
-                        + Numbers.plain(to.integral().offValue()) + " " + unit + (to.integral().offValue() > 0
-                        ? " or more" : "") + "): entered, the loop would lose its integral action and hold an"
-                        + " offset. Retune, or pick a form that can hold this integral time."));
+                notes.add(new ConversionNote.ReadAsIntegralOff(name, value, FormUnits.of(to, name),
+                        to.integral().offValue()));
                 return;
             }
             ParameterLimit limit = to.limit(name);
@@ -433,11 +312,7 @@ public final class Converter {
                 String unit = FormUnits.of(to, name);
                 refused.put(name, (high ? "above the maximum " : "below the minimum ") + Numbers.plain(bound) + " " + unit
                         + " " + to.id() + " accepts");
-                findings.add(new Finding(Topic.LIMITS, Severity.FAIL, value, bound, unit, "target form " + to.id(),
-                        name + " = " + Numbers.significant(value, 6) + " " + unit + " is " + (high ? "above" : "below")
-                                + " what " + to.id() + " accepts (" + (high ? "max " : "min ")
-                                + Numbers.plain(bound) + " " + unit + "); the target cannot hold this tuning."
-                                + " Nothing was clipped: retune or pick another form."));
+                notes.add(new ConversionNote.OutOfRange(name, value, bound, high, unit));
             }
         });
     }
@@ -462,47 +337,27 @@ public final class Converter {
 
     private static ControlLaw checkRounding(FormDefinition to, WrittenTuning written, WrittenTuning entered,
                                             ControlLaw targetLaw, FrequencyBand band, WritingContext ctx,
-                                            List<Finding> findings) {
+                                            List<ConversionNote> notes) {
         ControlLaw enteredLaw;
         try {
             PidSetting e = FormCodec.decode(to, FormCodec.asText(entered), ctx, "target");
             enteredLaw = StructureLaw.toLaw(e, to.filter().placement());
         } catch (FormException ex) {
-            findings.add(new Finding(Topic.ROUNDING, Severity.FAIL, null, null, "", "target form " + to.id(),
-                    "Rounded to " + to.id() + "'s resolution the tuning is no longer valid (" + ex.getMessage()
-                            + "); enter it by hand or use a finer resolution."));
+            notes.add(new ConversionNote.RoundingInvalid(ex.getMessage()));
             return targetLaw;
         }
         if (targetLaw.terms().i() != 0 && enteredLaw.terms().i() == 0) {
-            findings.add(new Finding(Topic.ROUNDING, Severity.FAIL, null, null, "", "target form " + to.id(),
-                    "Rounded to " + to.id() + "'s resolution, " + to.integralName() + " becomes the value that turns"
-                            + " integral action off; enter it by hand at a finer resolution, or retune."));
+            notes.add(new ConversionNote.RoundingLosesIntegral());
         }
-        LawDeviation d = LawDeviation.between(targetLaw, enteredLaw, band);
-        if (d.gainDb() > ROUNDING_GAIN_DB || d.phaseDegrees() > ROUNDING_PHASE_DEG) {
-            StringBuilder moved = new StringBuilder();
-            written.values().forEach((name, value) -> {
-                double r = entered.values().get(name);
-                if (r != value) {
-                    moved.append(moved.length() == 0 ? "" : ", ").append(name).append(' ')
-                            .append(Numbers.significant(value, 6)).append(" -> ").append(Numbers.plain(r));
-                }
-            });
-            // rounding to the nearest step is the best the target can store: it is worth acting on
-            // (a form with a finer resolution, or a retune to values it holds) only when it moves
-            // the law by more than the resolution margin
-            boolean matters = d.gainDb() > ROUNDING_WARN_GAIN_DB || d.phaseDegrees() > ROUNDING_WARN_PHASE_DEG;
-            findings.add(new Finding(Topic.ROUNDING, matters ? Severity.WARN : Severity.INFO, d.gainDb(),
-                    matters ? ROUNDING_WARN_GAIN_DB : ROUNDING_GAIN_DB, "dB", POLICY,
-                    "Rounding to " + to.id() + "'s resolution (" + moved + ") moves the law by up to "
-                            + Numbers.deviation(d.gainDb()) + " dB and " + Numbers.deviation(d.phaseDegrees())
-                            + " deg" + (matters ? " (beyond " + Numbers.plain(ROUNDING_WARN_GAIN_DB) + " dB or "
-                            + Numbers.plain(ROUNDING_WARN_PHASE_DEG) + " deg: use a form with a finer resolution,"
-                            + " or retune to values the target can hold)."
-                            : "; no value can be entered more precisely, and the move is within "
-                            + Numbers.plain(ROUNDING_WARN_GAIN_DB) + " dB and " + Numbers.plain(ROUNDING_WARN_PHASE_DEG)
-                            + " deg.")));
-        }
+        StringBuilder moved = new StringBuilder();
+        written.values().forEach((name, value) -> {
+            double r = entered.values().get(name);
+            if (r != value) {
+                moved.append(moved.length() == 0 ? "" : ", ").append(name).append(' ')
+                        .append(Numbers.significant(value, 6)).append(" -> ").append(Numbers.plain(r));
+            }
+        });
+        notes.add(new ConversionNote.Rounded(LawDeviation.between(targetLaw, enteredLaw, band), moved.toString()));
         return enteredLaw;
     }
 }

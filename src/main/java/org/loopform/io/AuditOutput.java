@@ -6,7 +6,6 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.Reader;
-import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -17,12 +16,7 @@ import java.util.Collection;
 import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
-import org.loopform.audit.AuditSummary;
-import org.loopform.audit.LoopOutcome;
-import org.loopform.audit.Verdict;
-import org.loopform.report.AuditInfo;
-import org.loopform.report.AuditRows;
-import org.loopform.report.HtmlReport;
+import com.fasterxml.jackson.databind.JsonNode;
 
 /**
  * Writes an audit's output folder as the results stream in: {@code loops.csv}, {@code loops.json},
@@ -35,6 +29,9 @@ import org.loopform.report.HtmlReport;
  * <p>Nothing loopform did not write is ever deleted or replaced: an existing folder is replaced
  * only when it is empty, or when it holds loopform's marker and nothing but the files the marker
  * lists, unchanged (with {@code force}); never when an input (reached through links) lies inside it.
+ *
+ * <p>It writes what it is given and renders nothing: the rows, JSON elements and report sections
+ * come rendered ({@code report.AuditRendering}), the report document through a {@link DocumentWriter}.
  */
 public final class AuditOutput implements AutoCloseable {
 
@@ -60,8 +57,14 @@ public final class AuditOutput implements AutoCloseable {
     private boolean finished;
     private boolean abandoned;
 
-    private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders)
-            throws IOException {
+    /** Writes the report document around its loop sections, which it reads from {@code sections}. */
+    @FunctionalInterface
+    public interface DocumentWriter {
+        void write(Writer out, Reader sections) throws IOException;
+    }
+
+    private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders,
+                        List<String> loopColumns, List<String> entryColumns) throws IOException {
         this.shown = shown;
         this.createdFolders = createdFolders;
         this.target = target;
@@ -76,9 +79,9 @@ public final class AuditOutput implements AutoCloseable {
         try {
             OutputFolder.markWriting(temp);
             this.loopsCsv = new CSVPrinter(Files.newBufferedWriter(temp.resolve("loops.csv"), StandardCharsets.UTF_8),
-                    CSVFormat.RFC4180.builder().setHeader(AuditRows.LOOP_COLUMNS.toArray(String[]::new)).get());
+                    CSVFormat.RFC4180.builder().setHeader(loopColumns.toArray(String[]::new)).get());
             this.entrySheet = new CSVPrinter(Files.newBufferedWriter(temp.resolve("entry-sheet.csv"),
-                    StandardCharsets.UTF_8), CSVFormat.RFC4180.builder().setHeader(AuditRows.ENTRY_COLUMNS
+                    StandardCharsets.UTF_8), CSVFormat.RFC4180.builder().setHeader(entryColumns
                     .toArray(String[]::new)).get());
             this.json = MAPPER.getFactory().createGenerator(temp.resolve("loops.json").toFile(), JsonEncoding.UTF8);
             json.useDefaultPrettyPrinter();
@@ -96,9 +99,11 @@ public final class AuditOutput implements AutoCloseable {
     /**
      * Opens the output folder {@code out}. Refuses (exit 2) when any of {@code inputs} lies inside it
      * (both compared through links), when it is a file or a link to nothing, and when it exists, is not
-     * empty and is not loopform's own; replaces loopform's own only with {@code force}.
+     * empty and is not loopform's own; replaces loopform's own only with {@code force}. The CSV files
+     * get {@code loopColumns} and {@code entryColumns} as their headers.
      */
-    public static AuditOutput create(Path out, boolean force, boolean html, Collection<Path> inputs) {
+    public static AuditOutput create(Path out, boolean force, boolean html, Collection<Path> inputs,
+                                     List<String> loopColumns, List<String> entryColumns) {
         Path target = OutputFolder.real(out);
         List<Path> realInputs = new ArrayList<>();
         for (Path in : inputs) {
@@ -119,42 +124,11 @@ public final class AuditOutput implements AutoCloseable {
                     + " writable, or choose another --out");
         }
         try {
-            return new AuditOutput(out, target, force, html, List.copyOf(realInputs), created);
+            return new AuditOutput(out, target, force, html, List.copyOf(realInputs), created, loopColumns, entryColumns);
         } catch (IOException e) {
             removeCreated(target.getParent(), created);
             throw new InputException(out + ": cannot be written (" + OutputFolder.reason(e) + "); check the folder"
                     + " above it is writable and has free space, or choose another --out");
-        }
-    }
-
-    /**
-     * One loop's output, rendered off the writing thread: its loops.csv row, its entry-sheet rows,
-     * its loops.json element, and its report section without plots and (for loops that warn or
-     * fail) with them. Rendering is the costly part; writing is then a copy.
-     */
-    public record Rendered(List<String> loopRow, List<List<String>> entryRows, String json, String section,
-                           String sectionWithPlots) {
-    }
-
-    /** Renders {@code o}'s output; safe to call from any thread. */
-    public static Rendered render(LoopOutcome o, boolean html) {
-        try {
-            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
-            String plain = null;
-            String plotted = null;
-            if (html) {
-                java.io.StringWriter w = new java.io.StringWriter();
-                HtmlReport.writeLoopSection(w, o, false);
-                plain = w.toString();
-                if (o.ok() && o.result().verdict() != Verdict.PASS) {
-                    java.io.StringWriter p = new java.io.StringWriter();
-                    HtmlReport.writeLoopSection(p, o, true);
-                    plotted = p.toString();
-                }
-            }
-            return new Rendered(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted);
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot render the audit output", e);
         }
     }
 
@@ -163,25 +137,25 @@ public final class AuditOutput implements AutoCloseable {
         return html;
     }
 
-    /** Writes one loop's rows (call in input order). */
-    public void accept(LoopOutcome o) {
-        accept(o, render(o, html));
-    }
-
-    /** Writes one loop's rendered rows (call in input order). */
-    public void accept(LoopOutcome o, Rendered r) {
+    /**
+     * Writes one loop's rendered output (call in input order): its loops.csv row, its entry-sheet
+     * rows, its loops.json element, and its report section, with plots ({@code sectionWithPlots},
+     * null when the loop wants none) while fewer than {@link #PLOTTED_LOOPS} loops have them.
+     */
+    public void accept(List<String> loopRow, List<List<String>> entryRows, String loopJson, String section,
+                       String sectionWithPlots) {
         try {
-            loopsCsv.printRecord(r.loopRow());
-            for (List<String> row : r.entryRows()) {
+            loopsCsv.printRecord(loopRow);
+            for (List<String> row : entryRows) {
                 entrySheet.printRecord(row);
             }
-            json.writeRawValue(r.json());
+            json.writeRawValue(loopJson);
             if (sections != null) {
-                if (r.sectionWithPlots() != null && plotted < PLOTTED_LOOPS) {
+                if (sectionWithPlots != null && plotted < PLOTTED_LOOPS) {
                     plotted++;
-                    sections.write(r.sectionWithPlots());
+                    sections.write(sectionWithPlots);
                 } else {
-                    sections.write(r.section());
+                    sections.write(section);
                 }
             }
         } catch (IOException e) {
@@ -194,12 +168,15 @@ public final class AuditOutput implements AutoCloseable {
                 + " free space and the folder is writable; nothing was written there");
     }
 
-    /** Writes the summary and the report, then moves the folder into place. */
-    public void finish(AuditSummary summary, AuditInfo info) {
+    /**
+     * Writes {@code summary} as loops.json's summary and the report through {@code document}, then
+     * moves the folder into place.
+     */
+    public void finish(JsonNode summary, DocumentWriter document) {
         try {
             json.writeEndArray();
             json.writeFieldName("summary");
-            MAPPER.writeTree(json, AuditRows.summaryJson(summary));
+            MAPPER.writeTree(json, summary);
             json.writeEndObject();
             json.close();
             loopsCsv.close();
@@ -209,7 +186,7 @@ public final class AuditOutput implements AutoCloseable {
                 Path sectionFile = temp.resolve(".sections.html");
                 try (Writer out = new BufferedWriter(Files.newBufferedWriter(temp.resolve("report.html"),
                         StandardCharsets.UTF_8)); Reader in = Files.newBufferedReader(sectionFile, StandardCharsets.UTF_8)) {
-                    HtmlReport.writeDocument(out, summary, info, in);
+                    document.write(out, in);
                 }
                 Files.delete(sectionFile);
             }

@@ -23,7 +23,7 @@ import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.loopform.form.FormDefinition;
 import org.loopform.process.ProcessModel;
 import org.loopform.units.BadInput;

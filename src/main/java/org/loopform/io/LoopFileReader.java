@@ -6,7 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;

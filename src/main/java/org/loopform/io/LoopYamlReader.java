@@ -15,7 +15,7 @@ import java.util.Set;
 import java.util.function.LongSupplier;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.composer.Composer;
 import org.yaml.snakeyaml.error.Mark;

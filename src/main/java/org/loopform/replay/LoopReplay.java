@@ -5,7 +5,7 @@ import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;
@@ -92,7 +92,7 @@ public final class LoopReplay {
         Agreement asLeftVsLog = Agreement.of(targetRun.output(), atTarget.output, targetRun.compared(),
                 atTarget::timeSeconds);
 
-        List<Finding> findings = new ArrayList<>(conversion.findings());
+        List<Finding> findings = new ArrayList<>(org.loopform.findings.ConversionRules.findings(conversion, policy));
         addIfAny(findings, ReplayRules.outsideRange("PV", trend.pv().shareOutside(pvRange.low(), pvRange.high()),
                 pvRange.toString()));
         addIfAny(findings, ReplayRules.outsideRange("output", trend.output().shareOutside(outRange.low(),

@@ -10,9 +10,9 @@ import java.util.stream.Collectors;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.audit.AuditSummary;
-import org.loopform.audit.CheckResult;
+import org.loopform.check.CheckResult;
 import org.loopform.audit.LoopOutcome;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 import org.loopform.form.Conversion;
@@ -195,6 +195,15 @@ public final class AuditRows {
         ArrayNode a = n.putArray("problems");
         o.problems().forEach(a::add);
         return n;
+    }
+
+    /** The audit's summary as printed by {@code audit --format json}: the summary, and {@code out} when a folder was written. */
+    public static String summaryJsonText(AuditSummary s, String folder) {
+        ObjectNode n = summaryJson(s);
+        if (folder != null) {
+            n.put("out", folder);
+        }
+        return Json.write(n);
     }
 
     public static ObjectNode summaryJson(AuditSummary s) {

@@ -4,7 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.OptionalDouble;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
-import org.loopform.audit.CheckResult;
+import org.loopform.check.CheckResult;
 import org.loopform.form.Conversion;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormUnits;

@@ -2,6 +2,7 @@ package org.loopform.report;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
+import org.loopform.findings.Finding;
 import org.loopform.form.Conversion;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
@@ -19,7 +20,8 @@ public final class ConversionReport {
     private ConversionReport() {
     }
 
-    public static String text(Conversion c, Map<String, String> sourceValues) {
+    /** {@code c} and its {@code findings} as text, the source values as {@code sourceValues} gave them. */
+    public static String text(Conversion c, java.util.List<Finding> findings, Map<String, String> sourceValues) {
         String nl = System.lineSeparator();
         StringBuilder sb = new StringBuilder();
         sb.append("From ").append(c.from().id()).append("  (").append(c.from().title()).append(')').append(nl);
@@ -83,7 +85,7 @@ public final class ConversionReport {
             }
         }
         sb.append(nl).append(assumptionsText(c.assumptions()));
-        sb.append(FindingText.render(c.findings()));
+        sb.append(FindingText.render(findings));
         sb.append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
     }
@@ -113,7 +115,8 @@ public final class ConversionReport {
         });
     }
 
-    public static String json(Conversion c) {
+    /** {@code c} and its {@code findings} as JSON. */
+    public static String json(Conversion c, java.util.List<Finding> findings) {
         ObjectNode n = Json.object();
         n.put("from", c.from().id());
         n.put("to", c.to().id());
@@ -145,7 +148,7 @@ public final class ConversionReport {
         loop.put("high_rad_s", c.loopBand().highRadPerSecond());
         com.fasterxml.jackson.databind.node.ArrayNode a = n.putArray("assumptions");
         c.assumptions().forEach(a::add);
-        n.set("findings", Json.findings(c.findings()));
+        n.set("findings", Json.findings(findings));
         return Json.write(n);
     }
 

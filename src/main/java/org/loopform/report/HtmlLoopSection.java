@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Map;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
-import org.loopform.audit.CheckResult;
+import org.loopform.check.CheckResult;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.audit.LoopRow;
 import org.loopform.findings.Finding;

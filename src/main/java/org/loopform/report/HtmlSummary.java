@@ -8,7 +8,7 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.loopform.audit.AuditSummary;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 

@@ -3,8 +3,8 @@ package org.loopform.report;
 import java.util.ArrayList;
 import java.util.List;
 import org.loopform.analysis.ControllerMismatch;
-import org.loopform.analysis.SampledResponse;
-import org.loopform.audit.CheckResult;
+import org.loopform.simulate.SampledResponse;
+import org.loopform.check.CheckResult;
 
 /**
  * The pictures of a checked loop: setpoint and load responses, design against target, and the

@@ -2,8 +2,8 @@ package org.loopform.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import org.loopform.audit.CheckResult;
-import org.loopform.audit.ScanSweep;
+import org.loopform.check.CheckResult;
+import org.loopform.check.ScanSweep;
 import org.loopform.scan.ScanFacts;
 import org.loopform.units.Numbers;
 

@@ -1,8 +1,9 @@
 package org.loopform.report;
 
+import org.loopform.findings.Finding;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
-import org.loopform.audit.CheckResult;
+import org.loopform.check.CheckResult;
 import org.loopform.form.Conversion;
 import org.loopform.form.Structure;
 import org.loopform.tuning.PublishedTuning;
@@ -46,7 +47,8 @@ public final class TuneReport {
         return key.endsWith("_s") ? " s" : key.equals("ku") ? " %/%" : "";
     }
 
-    public static String text(PublishedTuning t, Conversion c, Map<String, String> published, CheckResult design,
+    public static String text(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings,
+                              Map<String, String> published, CheckResult design,
                               CheckResult check) {
         String nl = System.lineSeparator();
         StringBuilder sb = new StringBuilder();
@@ -89,11 +91,12 @@ public final class TuneReport {
             }
             sb.append(tt.render(2));
         }
-        sb.append(nl).append(ConversionReport.text(c, published));
+        sb.append(nl).append(ConversionReport.text(c, convFindings, published));
         return sb.toString();
     }
 
-    public static String json(PublishedTuning t, Conversion c, CheckResult design, CheckResult check) {
+    public static String json(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings, CheckResult design,
+                              CheckResult check) {
         ObjectNode n = Json.object();
         n.put("rule", t.rule().id());
         n.put("controller", t.controller().id());
@@ -145,7 +148,7 @@ public final class TuneReport {
         } else {
             n.putNull("check");
         }
-        n.set("findings", Json.findings(check != null ? check.findings() : c.findings()));
+        n.set("findings", Json.findings(check != null ? check.findings() : convFindings));
         return Json.write(n);
     }
 

@@ -2,7 +2,7 @@ package org.loopform.report;
 
 import java.util.Locale;
 import org.loopform.audit.AuditSummary;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 
 /**
  * Loops by verdict as one stacked horizontal bar in inline SVG: fail, warn, pass, not checked,

@@ -1,6 +1,5 @@
 package org.loopform.simulate;
 
-import org.loopform.analysis.SampledResponse;
 
 /**
  * The responses of one loop to the setpoint step and to the load step. {@code stepSeconds} is

@@ -1,6 +1,5 @@
 package org.loopform.simulate;
 
-import org.loopform.analysis.SampledResponse;
 import org.loopform.lti.HeldProcess;
 import org.loopform.lti.SampledProcess;
 import org.loopform.lti.SampledStateSpace;

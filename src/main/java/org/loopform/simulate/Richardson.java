@@ -1,6 +1,5 @@
 package org.loopform.simulate;
 
-import org.loopform.analysis.SampledResponse;
 
 /**
  * Richardson extrapolation of two closed-loop runs of the same continuous loop, one on step h and

@@ -1,6 +1,5 @@
 package org.loopform.simulate;
 
-import org.loopform.analysis.SampledResponse;
 
 /**
  * The two closed-loop tests a check runs, in percent of span around an operating point: a

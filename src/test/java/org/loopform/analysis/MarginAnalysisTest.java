@@ -17,7 +17,7 @@ import org.loopform.lti.TransferFunction;
 @DisplayName("Margin analysis")
 /**
  * Source: margins derived exactly for loops whose crossings have closed forms (derivations in the
- * comments below; REFERENCES.md section 10 for the ultimate gain of 1/(s + 1)^3, Ku = 8).
+ * comments below; docs/references.md 10 for the ultimate gain of 1/(s + 1)^3, Ku = 8).
  */
 class MarginAnalysisTest {
 

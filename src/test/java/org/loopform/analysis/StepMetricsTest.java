@@ -1,5 +1,6 @@
 package org.loopform.analysis;
 
+import org.loopform.simulate.SampledResponse;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;

@@ -1,12 +1,14 @@
 package org.loopform.audit;
 
+import org.loopform.check.CheckResult;
+import org.loopform.check.LoopCheck;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
-import org.loopform.analysis.SampledResponse;
+import org.loopform.simulate.SampledResponse;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.io.LoopFileReader;
 

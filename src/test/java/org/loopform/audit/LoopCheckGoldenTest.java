@@ -1,5 +1,8 @@
 package org.loopform.audit;
 
+import org.loopform.check.LoopSpec;
+import org.loopform.check.CheckResult;
+import org.loopform.check.LoopCheck;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 

@@ -1,5 +1,8 @@
 package org.loopform.audit;
 
+import org.loopform.check.Verdict;
+import org.loopform.check.CheckResult;
+import org.loopform.check.LoopCheck;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;

@@ -3,7 +3,7 @@ package org.loopform.findings;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
-import org.loopform.analysis.SampledResponse;
+import org.loopform.simulate.SampledResponse;
 import org.loopform.simulate.StepTest;
 import org.loopform.simulate.StepTest.OutputExtremes;
 

@@ -11,6 +11,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.loopform.findings.ConversionRules;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
@@ -77,7 +78,7 @@ class ExplainedConversionTest {
 
         @Test
         void says_that_the_filter_ratio_changes_and_what_the_default_would_cost() {
-            assertThat(c.findings()).filteredOn(f -> f.topic() == Topic.FILTER).singleElement().satisfies(f -> {
+            assertThat(ConversionRules.findings(c)).filteredOn(f -> f.topic() == Topic.FILTER).singleElement().satisfies(f -> {
                 assertThat(f.severity()).isEqualTo(Severity.INFO);
                 assertThat(f.message()).contains("n = 7.475").contains("default n = 10").contains("dB");
                 assertThat(f.figure()).isGreaterThan(0.0);
@@ -113,7 +114,7 @@ class ExplainedConversionTest {
             Conversion c = convert("ideal", "kc=1 ti=60 td=10", "ideal-unfiltered");
             assertThat(c.exact()).isFalse();
             assertThat(c.deviation().gainDb()).isGreaterThan(0.0);
-            assertThat(c.findings()).anySatisfy(f -> assertThat(f.topic()).isEqualTo(Topic.FILTER));
+            assertThat(ConversionRules.findings(c)).anySatisfy(f -> assertThat(f.topic()).isEqualTo(Topic.FILTER));
         }
 
         @Test
@@ -194,7 +195,7 @@ class ExplainedConversionTest {
         void does_not_trade_the_crossover_for_the_high_frequency_gain() {
             Conversion c = convert("ideal", "kc=1 ti=60 td=10", "ideal-fixed-n8");
             assertThat(c.parameters().values().get("kc")).isCloseTo(1.0, within(0.03));
-            assertThat(c.findings()).filteredOn(f -> f.topic() == Topic.FILTER).singleElement()
+            assertThat(ConversionRules.findings(c)).filteredOn(f -> f.topic() == Topic.FILTER).singleElement()
                     .satisfies(f -> assertThat(f.message()).contains("high-frequency derivative gain"));
         }
     }

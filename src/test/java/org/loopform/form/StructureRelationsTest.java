@@ -4,6 +4,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import java.util.Map;
+import org.loopform.findings.ConversionRules;
+import org.loopform.findings.Finding;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
@@ -15,8 +17,8 @@ import org.loopform.findings.Topic;
 /**
  * Series, ideal and parallel PID relations. Source: Astrom & Hagglund, PID Controllers: Theory,
  * Design and Tuning, 2nd ed., ISA 1995, sec. 3.4 (controller parameterizations; section number
- * from memory), as gathered in shared/REFERENCES.md section 1. Expected values are computed in
- * the test from the published formulas, or are the hand-derived vectors of REFERENCES.md.
+ * from memory), as listed in docs/references.md 1. Expected values are computed in
+ * the test from the published formulas, or are the hand-derived vectors of docs/references.md 1.
  */
 class StructureRelationsTest {
 
@@ -38,13 +40,13 @@ class StructureRelationsTest {
 
         @Test
         void the_reference_vector_kc1_ti10_td1_gives_0_8873_8_873_1_127() {
-            // REFERENCES.md 1, derived vector: ideal (1, 10, 1) -> series (0.8873, 8.8730, 1.1270)
+            // docs/references.md 1, derived vector: ideal (1, 10, 1) -> series (0.8873, 8.8730, 1.1270)
             Conversion c = convert(IDEAL, SERIES, "kc", "1", "ti", "10", "td", "1");
             assertThat(c.exact()).isTrue();
             assertThat(c.parameters().values().get("kc")).isCloseTo(0.8873, within(1e-4));
             assertThat(c.parameters().values().get("ti")).isCloseTo(8.8730, within(1e-4));
             assertThat(c.parameters().values().get("td")).isCloseTo(1.1270, within(1e-4));
-            assertThat(c.findings()).isEmpty();
+            assertThat(ConversionRules.findings(c)).isEmpty();
         }
 
         @ParameterizedTest(name = "ideal ({0}, {1}, {2})")
@@ -62,7 +64,7 @@ class StructureRelationsTest {
 
         @Test
         void is_exact_on_the_boundary_ti_equal_4_td() {
-            // REFERENCES.md 1: the boundary ideal (2, 4, 1) -> series (1, 2, 2)
+            // docs/references.md 1: the boundary ideal (2, 4, 1) -> series (1, 2, 2)
             Conversion c = convert(IDEAL, SERIES, "kc", "2", "ti", "4", "td", "1");
             assertThat(c.exact()).isTrue();
             assertThat(c.parameters().values().get("kc")).isCloseTo(1.0, within(1e-9));
@@ -75,14 +77,14 @@ class StructureRelationsTest {
             // complex zeros when Ti < 4 Td (Astrom & Hagglund 1995, sec. 3.4)
             Conversion c = convert(IDEAL, SERIES, "kc", "1", "ti", "3", "td", "1");
             assertThat(c.exact()).isFalse();
-            assertThat(c.findings()).anySatisfy(f -> {
+            assertThat(ConversionRules.findings(c)).anySatisfy(f -> {
                 assertThat(f.topic()).isEqualTo(Topic.REALIZABILITY);
                 assertThat(f.figure()).isCloseTo(3.0, within(1e-9)); // Ti/Td of the unfiltered ideal law
                 assertThat(f.threshold()).isEqualTo(4.0);
                 assertThat(f.message()).contains("complex zeros");
             });
             assertThat(c.deviation().gainDb()).isGreaterThan(0.0);
-            assertThat(c.worst()).isIn(Severity.WARN, Severity.FAIL);
+            assertThat(Finding.worst(ConversionRules.findings(c))).isIn(Severity.WARN, Severity.FAIL);
         }
     }
 
@@ -105,7 +107,7 @@ class StructureRelationsTest {
 
         @Test
         void series_2_3_4_is_parallel_14_over_3_2_over_3_8() {
-            // REFERENCES.md 1, derived: series (2, 3, 4) -> parallel (14/3, 2/3, 8)
+            // docs/references.md 1, derived: series (2, 3, 4) -> parallel (14/3, 2/3, 8)
             Conversion c = convert(SERIES, PARALLEL, "kc", "2", "ti", "3", "td", "4");
             assertThat(c.exact()).isTrue();
             assertThat(c.parameters().values().get("kp")).isCloseTo(14.0 / 3, within(1e-12));
@@ -126,7 +128,7 @@ class StructureRelationsTest {
 
     @Test
     void a_filtered_series_law_is_not_mistaken_for_a_filtered_ideal_law() {
-        // Derived by multiplying out both definitions (DERIVED, shared/REFERENCES.md style):
+        // Derived by multiplying out both definitions (derived, as docs/references.md marks it):
         // series Kc'(1 + 1/(Ti's))(1 + Td's)/(1 + Tf s) with Tf = Td'/N equals the ideal
         // Kc(1 + 1/(Ti s) + Td s/(1 + Tf s)) with the same Tf when
         //   Kc = Kc'(1 + (Td' - Tf)/Ti'),  Ti = Ti' + Td' - Tf,  Td = Kc'Td'/Kc - Tf.

@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 
 import java.util.LinkedHashMap;
 import java.util.Map;
+import org.loopform.findings.ConversionRules;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -15,8 +16,8 @@ import org.loopform.units.Span;
 /**
  * The units layer: proportional band, repeats per minute, minutes versus seconds, engineering
  * units, per-scan gains and the action flag. Sources: PB% = 100/Kc (ISA InTech, Oct 2022, citing
- * Goettsche (ed.), Maintenance of Instruments and Systems, 2nd ed., ISA 2005; REFERENCES.md 2);
- * reset rate = 1/Ti in repeats per minute (common practice; REFERENCES.md 2); Kc% = Kc_eu * PV
+ * Goettsche (ed.), Maintenance of Instruments and Systems, 2nd ed., ISA 2005; docs/references.md 2);
+ * reset rate = 1/Ti in repeats per minute (common practice; docs/references.md 2); Kc% = Kc_eu * PV
  * span / output span and per-scan gains ki h, kd/h (common practice, derived from the definitions).
  */
 class UnitsConversionTest {
@@ -136,7 +137,7 @@ class UnitsConversionTest {
         // ti = 7000 s = 116.7 min: at or above 100 min, so the target would run without integral action
         Conversion c = Converter.convert(form("ideal"), values("kc", "2", "ti", "7000", "td", "0"), offAt100,
                 WritingContext.NONE);
-        assertThat(c.findings()).anySatisfy(f -> {
+        assertThat(ConversionRules.findings(c)).anySatisfy(f -> {
             assertThat(f.topic()).isEqualTo(org.loopform.findings.Topic.LIMITS);
             assertThat(f.severity()).isEqualTo(org.loopform.findings.Severity.FAIL);
             assertThat(f.message()).contains("integral action off");

@@ -86,7 +86,7 @@ class SampledProcessTest {
 
         // FOPDT sampled with L = d h + tau: x(k+1) = e^(-h/T) x(k) + G0 u(k-d) + G1 u(k-d-1), so
         // H(z) = z^-d (G0 + G1 z^-1) / (z - e^(-h/T)) (Astrom & Wittenmark ch. 2, from memory;
-        // G0, G1 as in REFERENCES section 11, evaluated here from the published formula)
+        // G0, G1 as in docs/references.md 5, evaluated here from the published formula)
         @Test
         void matches_the_modified_z_transform_of_a_first_order_process() {
             double k = 1.7;

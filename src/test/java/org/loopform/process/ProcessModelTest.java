@@ -133,7 +133,7 @@ class ProcessModelTest {
     @DisplayName("general transfer function")
     class General {
 
-        // 1/(s+1)^3 at w = sqrt(3) is -1/8 (its ultimate frequency and gain 8: REFERENCES section 10)
+        // 1/(s+1)^3 at w = sqrt(3) is -1/8 (its ultimate frequency and gain 8: docs/references.md 10)
         @Test
         void three_equal_lags_cross_minus_180_degrees_at_sqrt_3() {
             GeneralTransferFunction g = new GeneralTransferFunction(

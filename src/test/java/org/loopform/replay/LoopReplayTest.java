@@ -8,7 +8,7 @@ import java.util.Map;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
-import org.loopform.audit.LoopSpec;
+import org.loopform.check.LoopSpec;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Finding;
 import org.loopform.findings.Severity;

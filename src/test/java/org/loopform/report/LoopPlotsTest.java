@@ -4,7 +4,7 @@ package org.loopform.report;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import org.junit.jupiter.api.Test;
-import org.loopform.analysis.SampledResponse;
+import org.loopform.simulate.SampledResponse;
 
 class LoopPlotsTest {
 

@@ -17,7 +17,7 @@ import org.loopform.audit.AuditSummary;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.audit.LoopRow;
-import org.loopform.audit.Verdict;
+import org.loopform.check.Verdict;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.io.LoopFileReader;
 

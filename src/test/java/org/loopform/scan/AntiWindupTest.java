@@ -76,7 +76,7 @@ class AntiWindupTest {
     @DisplayName("back-calculation")
     class BackCalculation {
 
-        // Back-calculation, I <- I + (h/Ti) K e + (h/Tt)(u - v) (REFERENCES.md section 4; Astrom &
+        // Back-calculation, I <- I + (h/Ti) K e + (h/Tt)(u - v) (docs/references.md 4; Astrom &
         // Hagglund 1995, section 3.5 - from memory). Held at the upper limit u = 100 with constant
         // error e, the integral is steady when the two increments cancel: K h e/Ti + (h/Tt)(100 - v) = 0,
         // so v = 100 + Tt K e/Ti: the unlimited output settles Tt K e/Ti above the limit, closer as Tt
@@ -99,7 +99,7 @@ class AntiWindupTest {
             assertThat(c.integralPercent()).isCloseTo(settled - 20.0 - 0.2, within(TOL));
         }
 
-        // rule of thumb Tt = sqrt(Ti Td), Ti without derivative (REFERENCES.md section 4, from memory)
+        // rule of thumb Tt = sqrt(Ti Td), Ti without derivative (docs/references.md 4, from memory)
         @Test
         void tracking_time_defaults_to_the_rule_of_thumb() {
             ScanController pid = ScanController.limited(Setups.ideal(2.0, 10.0, 2.5, 0.25, 1.0, 1.0),

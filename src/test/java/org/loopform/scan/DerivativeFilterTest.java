@@ -44,7 +44,7 @@ class DerivativeFilterTest {
 
         // Wittenmark, Astrom & Arzen, "Computer Control: An Overview", IFAC Professional Brief, 2002,
         // Table 3: forward 1 - h/Tf, backward Tf/(Tf + h), Tustin (2Tf - h)/(2Tf + h), step (ramp)
-        // invariant exp(-h/Tf); values for Tf = 1 s, h = 0.5 s as derived in REFERENCES.md section 4
+        // invariant exp(-h/Tf); values for Tf = 1 s, h = 0.5 s as derived in docs/references.md 4
         @ParameterizedTest(name = "{0}: {1}")
         @CsvSource({"FORWARD, 0.5", "BACKWARD, 0.666667", "TRAPEZOIDAL, 0.6", "RAMP_INVARIANT, 0.606531", "STEP_INVARIANT, 0.606531"})
         void scan_facts_give_the_published_pole(Discretization method, double pole) {
@@ -80,7 +80,7 @@ class DerivativeFilterTest {
     class LongScans {
 
         // forward difference pole 1 - h/Tf = -2 for h = 3 Tf: |pole| > 1, unstable (IFAC brief 2002, Table 3;
-        // REFERENCES.md section 4)
+        // docs/references.md 4)
         @Test
         void forward_difference_grows_without_bound_when_h_exceeds_2_tf() {
             double[] d = derivativeAfterPvStep(Discretization.FORWARD, 1.0, 5.0, 1.0, 3.0, 12);

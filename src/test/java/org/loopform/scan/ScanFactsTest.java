@@ -19,7 +19,7 @@ class ScanFactsTest {
     @Test
     void n_h_over_td_is_h_over_tf() {
         // N = 10, Td = 2 s (Tf = 0.2 s), h = 0.1 s: N h/Td = 0.5, inside the 0.2..0.6 rule of thumb
-        // (REFERENCES.md section 4, from memory)
+        // (docs/references.md 4, from memory)
         ScanFacts facts = ScanFacts.of(Setups.ideal(1.0, 10.0, 2.0, 0.2, 1.0, 1.0), Discretization.BACKWARD, 0.1);
         assertThat(facts.nhOverTd()).isCloseTo(0.5, within(TOL));
         assertThat(facts.hasDerivative()).isTrue();

@@ -29,7 +29,7 @@ class VelocityFormTest {
     }
 
     // Wittenmark, Astrom & Arzen, "Computer Control: An Overview", IFAC Professional Brief, 2002
-    // (REFERENCES.md section 4): for the ideal PID without filter, backward differences,
+    // (docs/references.md 4): for the ideal PID without filter, backward differences,
     // du(k) = K [e(k) - e(k-1) + (h/Ti) e(k) + (Td/h)(e(k) - 2 e(k-1) + e(k-2))], e = r - y (b = c = 1)
     @Test
     void increments_follow_the_published_velocity_equation() {

@@ -1,4 +1,4 @@
-package org.loopform.audit;
+package org.loopform.check;
 
 import java.util.List;
 import org.loopform.findings.Finding;

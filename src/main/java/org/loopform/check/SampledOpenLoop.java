@@ -1,4 +1,4 @@
-package org.loopform.audit;
+package org.loopform.check;
 
 import java.util.ArrayList;
 import java.util.List;

@@ -1,4 +1,4 @@
-package org.loopform.audit;
+package org.loopform.check;
 
 import java.util.concurrent.TimeUnit;
 import org.loopform.findings.CheckPolicy;

@@ -1,5 +1,5 @@
 // plumbing: no published source needed (source: none); it checks how responses are stored
-package org.loopform.analysis;
+package org.loopform.simulate;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;

@@ -1,4 +1,4 @@
-package org.loopform.analysis;
+package org.loopform.simulate;
 
 import java.util.Arrays;
 import java.util.Objects;

@@ -1,0 +1,200 @@
+package org.loopform.check;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import org.loopform.analysis.ControllerMismatch;
+import org.loopform.analysis.LoopMargins;
+import org.loopform.findings.ActionRule;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.CheckRules;
+import org.loopform.findings.ConversionRules;
+import org.loopform.findings.Finding;
+import org.loopform.findings.ResponseRules;
+import org.loopform.findings.Severity;
+import org.loopform.findings.StabilityRule;
+import org.loopform.findings.Topic;
+import org.loopform.form.Conversion;
+import org.loopform.form.Converter;
+import org.loopform.form.FormCodec;
+import org.loopform.form.FormDefinition;
+import org.loopform.form.FormException;
+import org.loopform.form.PidSetting;
+import org.loopform.form.WritingContext;
+import org.loopform.law.ControlLaw;
+import org.loopform.law.LawDeviation;
+import org.loopform.law.TuningBand;
+import org.loopform.lti.FrequencyBand;
+import org.loopform.process.ProcessModel;
+import org.loopform.scan.PulseLaw;
+import org.loopform.scan.ScanFacts;
+import org.loopform.simulate.StepTest;
+import org.loopform.units.Numbers;
+
+/**
+ * Checks one loop's deployment: converts its tuning to the target form, rounds it as the target
+ * stores it, and compares the design loop ({@link DesignLoop}: the source law, continuous, or the
+ * source's own algorithm at its own scan) with the target loop ({@link TargetLoop}: the target's
+ * algorithm at the target scan, the process sampled exactly) in the frequency and time domains
+ * ({@link LoopComparison}); then applies the rules. This is the package's entry:
+ * {@link #run(LoopSpec, CheckPolicy)} returns a {@link CheckResult}.
+ */
+public final class LoopCheck {
+
+    /** Horizon in units of 1/crossover: a well-damped loop settles within about 5 to 10 / crossover. */
+    static final double HORIZON_CROSSOVERS = 30.0;
+    /** The controller comparison reaches this many times the crossover, where a model gives one. */
+    static final double MISMATCH_CROSSOVERS = 10.0;
+    /** Most target-loop steps simulated; a longer horizon is cut. */
+    static final int MAX_TARGET_STEPS = 200_000;
+
+    private LoopCheck() {
+    }
+
+    /** Checks {@code loop} against {@code policy}. */
+    public static CheckResult run(LoopSpec loop, CheckPolicy policy) {
+        return run(loop, policy, Double.NaN);
+    }
+
+    /**
+     * As {@link #run(LoopSpec, CheckPolicy)}, the step tests run over {@code horizonSeconds}
+     * (still cut at {@link #MAX_TARGET_STEPS} target scans) instead of the horizon the margins
+     * give; NaN picks that one. For benchmarks, which need a fixed response length.
+     */
+    static CheckResult run(LoopSpec loop, CheckPolicy policy, double horizonSeconds) {
+        double h = targetScan(loop);
+        FormDefinition target = loop.targetForm();
+        WritingContext ctx = new WritingContext(loop.pvRange(), loop.outputRange(), h);
+        Conversion conversion = convert(loop, ctx, h);
+        PidSetting entered = enteredSetting(conversion, target, ctx);
+        ControlLaw designLaw = conversion.sourceLaw();
+        PulseLaw targetPulse = PulseLaw.of(entered, target.filter().placement(), target.algorithm(), h);
+        FrequencyBand lawBand = TuningBand.implied(designLaw.terms(), h);
+
+        List<Finding> findings = new ArrayList<>(ConversionRules.findings(conversion, policy));
+        Optional<Compared> compared = loop.hasProcess()
+                ? Optional.of(compare(loop, conversion, entered, targetPulse, lawBand, horizonSeconds, findings))
+                : Optional.empty();
+        Optional<LoopComparison> comparison = compared.map(Compared::comparison);
+        FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h,
+                comparison.map(c -> c.design().margins()));
+        // what the loop sees: the design law against the controller as run, feedback path
+        LawDeviation mismatch = ControllerMismatch.over(designLaw, targetPulse, mismatchBand, true);
+        // what the scan alone changes: the target's own continuous law against its discrete run
+        LawDeviation discretization = ControllerMismatch.over(conversion.enteredLaw(), targetPulse, mismatchBand);
+        ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
+        findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h,
+                ScanFacts.of(entered, target.algorithm().derivative(), h),
+                comparison.map(c -> c.design().margins()).orElse(null),
+                comparison.map(c -> c.target().margins()).orElse(null), discretization,
+                mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true)),
+                policy));
+        compared.ifPresent(c -> {
+            findings.addAll(c.stepFindings());
+            findings.addAll(responseFindings(c.comparison(), h, policy));
+        });
+        comparison.flatMap(c -> noIntegralNote(c, conversion)).ifPresent(findings::add);
+        return new CheckResult(loop, h, conversion, comparison, mismatch, curve, findings);
+    }
+
+    /** A comparison and the findings of its step choice (what the output limits did to the steps). */
+    private record Compared(LoopComparison comparison, List<Finding> stepFindings) {
+    }
+
+    private static double targetScan(LoopSpec loop) {
+        if (loop.targetScanSeconds() == null) {
+            throw new FormException(loop.where() + ": target.scan: required; give the target's scan time, e.g."
+                    + " 'scan: 0.5 s' (or --scan)");
+        }
+        return loop.targetScanSeconds();
+    }
+
+    private static Conversion convert(LoopSpec loop, WritingContext ctx, double h) {
+        try {
+            WritingContext sourceCtx = new WritingContext(loop.pvRange(), loop.outputRange(),
+                    loop.sourceScanSeconds() != null ? loop.sourceScanSeconds() : h);
+            return Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx, loop.targetForm(), ctx);
+        } catch (FormException e) {
+            throw new FormException(loop.where() + ": loop " + loop.tag() + ": tuning: " + e.getMessage());
+        }
+    }
+
+    /**
+     * The design and target loops with the process evaluated side by side; adds the action and
+     * stability findings to {@code findings} (they come before the margin rules').
+     */
+    private static Compared compare(LoopSpec loop, Conversion conversion, PidSetting entered, PulseLaw targetPulse,
+                                    FrequencyBand lawBand, double horizonSeconds, List<Finding> findings) {
+        ProcessModel p = loop.process();
+        ControlLaw designLaw = conversion.sourceLaw();
+        double h = loop.targetScanSeconds();
+        double low = LoopBand.belowLowestCrossover(LoopBand.bandBottom(lawBand, p), LoopBand.continuousLoop(designLaw, p),
+                p.integrators() + (designLaw.terms().hasIntegral() ? 1 : 0));
+        DesignLoop design = DesignLoop.of(loop, conversion, p, low);
+        TargetLoop target = TargetLoop.of(loop.targetForm(), entered, targetPulse, h, p, low);
+        ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
+        findings.addAll(StabilityRule.evaluate(design.stability(), target.stability()));
+
+        double horizon = Double.isNaN(horizonSeconds)
+                ? horizon(design.margins(), target.margins(), designLaw, p) : horizonSeconds;
+        horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
+        TargetLoop.Evaluated t = target.evaluate(StepTest.standard(horizon));
+        StepTest steps = t.choice().steps();
+        DesignLoop.Evaluated d = design.evaluate(steps, horizon);
+        return new Compared(new LoopComparison(d.evaluation(), t.evaluation(), steps, d.referenceStepSeconds(),
+                d.referenceErrorPercent()), t.choice().findings());
+    }
+
+    private static List<Finding> responseFindings(LoopComparison c, double h, CheckPolicy policy) {
+        var targetSetpoint = c.target().run().setpoint();
+        return ResponseRules.evaluate(new ResponseRules.Inputs(c.bothStable(), c.design().setpoint(),
+                c.target().setpoint(), c.design().load(), c.target().load(), h,
+                targetSetpoint.timeSeconds(targetSetpoint.size() - 1), c.steps().loadStepPercent()), policy);
+    }
+
+    /** Without integral action the IAE grows with the simulated time: said once, as info. */
+    private static Optional<Finding> noIntegralNote(LoopComparison c, Conversion conversion) {
+        if (conversion.enteredLaw().terms().i() != 0) {
+            return Optional.empty();
+        }
+        var run = c.target().run().setpoint();
+        double simulatedSeconds = run.timeSeconds(run.size() - 1);
+        return Optional.of(new Finding(Topic.ROBUSTNESS, Severity.INFO, simulatedSeconds, null, "s",
+                "common practice", "The controller has no integral action, so the loop holds a steady offset after a"
+                + " step: its IAE grows with the simulated time (" + Numbers.significant(simulatedSeconds, 4)
+                + " s here) and compares only between design and target, not with other loops."));
+    }
+
+    /**
+     * Where the controllers are compared: from the tuning's lowest corner up to its derivative filter
+     * corner (the highest corner without a filter), cut at the Nyquist frequency and, with a model,
+     * at ten times the crossover; above that the loop no longer follows the controller.
+     */
+    private static FrequencyBand mismatchBand(FrequencyBand lawBand, ControlLaw law, double h,
+                                              Optional<LoopMargins> design) {
+        double top = law.terms().tf() > 0 ? 1.0 / law.terms().tf() : lawBand.highRadPerSecond();
+        top = Math.min(top, Math.PI / h);
+        if (design.isPresent() && design.get().crossoverRadPerSecond().isPresent()) {
+            top = Math.min(top, MISMATCH_CROSSOVERS * design.get().crossoverRadPerSecond().getAsDouble());
+        }
+        double low = Math.min(lawBand.lowRadPerSecond(), top / 100);
+        return new FrequencyBand(low, top);
+    }
+
+    private static PidSetting enteredSetting(Conversion c, FormDefinition target, WritingContext ctx) {
+        try {
+            return FormCodec.decode(target, FormCodec.asText(c.entered()), ctx, "target");
+        } catch (FormException e) {
+            return c.targetSetting(); // the conversion already reported that rounding breaks the tuning
+        }
+    }
+
+    private static double horizon(LoopMargins design, LoopMargins target, ControlLaw law, ProcessModel p) {
+        double wc = design.crossoverRadPerSecond().orElse(target.crossoverRadPerSecond().orElse(Double.NaN));
+        if (Double.isFinite(wc) && wc > 0) {
+            return Math.max(HORIZON_CROSSOVERS / wc, 5 * p.deadTimeSeconds());
+        }
+        double ti = law.terms().i() != 0 ? Math.abs(law.terms().p() / law.terms().i()) : 0;
+        return 20 * Math.max(ti, p.deadTimeSeconds() + 1.0);
+    }
+}

@@ -1,0 +1,55 @@
+package org.loopform.report;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.util.List;
+import org.loopform.audit.LoopOutcome;
+import org.loopform.check.Verdict;
+
+/**
+ * Renders one audited loop's share of the output folder, off the writing thread: its loops.csv
+ * row, its entry-sheet rows, its loops.json element, and its report section without plots and (for
+ * loops that warn or fail) with them. Rendering is the costly part; writing is then a copy.
+ */
+public final class AuditRendering {
+
+    private static final ObjectMapper MAPPER = new ObjectMapper();
+
+    private AuditRendering() {
+    }
+
+    /**
+     * One loop's rendered output; {@code section} and {@code sectionWithPlots} are null without
+     * HTML, {@code sectionWithPlots} also for a loop that passes.
+     */
+    public record RenderedLoop(List<String> loopRow, List<List<String>> entryRows, String json, String section,
+                               String sectionWithPlots) {
+    }
+
+    /** Renders {@code o}'s output; safe to call from any thread. */
+    public static RenderedLoop render(LoopOutcome o, boolean html) {
+        try {
+            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
+            String plain = null;
+            String plotted = null;
+            if (html) {
+                StringWriter w = new StringWriter();
+                HtmlReport.writeLoopSection(w, o, false);
+                plain = w.toString();
+                if (o.ok() && o.result().verdict() != Verdict.PASS) {
+                    StringWriter p = new StringWriter();
+                    HtmlReport.writeLoopSection(p, o, true);
+                    plotted = p.toString();
+                }
+            }
+            return new RenderedLoop(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted);
+        } catch (JsonProcessingException e) {
+            throw new UncheckedIOException("cannot render the audit output", e);
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot render the audit output", e);
+        }
+    }
+}
