@@ -87,8 +87,8 @@ public final class LoopCheck {
                 ScanFacts.of(entered, target.algorithm().derivative(), h),
                 comparison.map(c -> c.design().margins()).orElse(null),
                 comparison.map(c -> c.target().margins()).orElse(null), discretization,
-                mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true)),
-                policy));
+                mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true),
+                sourceFacts(loop, conversion)), policy));
         compared.ifPresent(c -> {
             findings.addAll(c.stepFindings());
             findings.addAll(responseFindings(c.comparison(), h, policy));
@@ -109,14 +109,48 @@ public final class LoopCheck {
         return loop.targetScanSeconds();
     }
 
+    /** The old controller's scan facts when the design loop runs it at its own scan; empty for a continuous design. */
+    private static Optional<ScanFacts> sourceFacts(LoopSpec loop, Conversion conversion) {
+        Double scan = loop.sourceScanSeconds();
+        return scan == null ? Optional.empty()
+                : Optional.of(ScanFacts.of(conversion.sourceSetting(), loop.sourceForm().algorithm().derivative(), scan));
+    }
+
+    /**
+     * The tuning converted to the target. Where the target cannot hold the law exactly and the process is
+     * known, the nearest fit is weighted where this loop lives: a decade below to three times above the
+     * design loop's crossover (the source law with the process, continuous), rather than around the law's
+     * own corners.
+     */
     private static Conversion convert(LoopSpec loop, WritingContext ctx, double h) {
         try {
             WritingContext sourceCtx = new WritingContext(loop.pvRange(), loop.outputRange(),
                     loop.sourceScanSeconds() != null ? loop.sourceScanSeconds() : h);
-            return Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx, loop.targetForm(), ctx);
+            Conversion c = Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx, loop.targetForm(), ctx);
+            if (c.exact() || !loop.hasProcess()) {
+                return c;
+            }
+            Optional<FrequencyBand> lives = aroundCrossover(c.sourceLaw(), loop.process(), h);
+            return lives.isEmpty() ? c : Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx,
+                    loop.targetForm(), ctx, lives.get());
         } catch (FormException e) {
             throw new FormException(loop.where() + ": loop " + loop.tag() + ": tuning: " + e.getMessage());
         }
+    }
+
+    /** From a decade below to three times the continuous design loop's crossover; empty without one. */
+    static Optional<FrequencyBand> aroundCrossover(ControlLaw law, ProcessModel p, double h) {
+        FrequencyBand lawBand = TuningBand.implied(law.terms(), h);
+        double low = LoopBand.bandBottom(lawBand, p);
+        FrequencyBand band = FrequencyBand.of(low, Math.max(LoopBand.continuousTop(law, p), 10 * low));
+        java.util.OptionalDouble wc = org.loopform.analysis.MarginAnalysis.over(band)
+                .analyze(LoopBand.continuousLoop(law, p)).crossoverRadPerSecond();
+        if (wc.isEmpty()) {
+            return Optional.empty();
+        }
+        double top = Math.min(3 * wc.getAsDouble(), Math.PI / h);
+        double bottom = wc.getAsDouble() / 10;
+        return top > bottom ? Optional.of(FrequencyBand.of(bottom, top)) : Optional.empty();
     }
 
     /**

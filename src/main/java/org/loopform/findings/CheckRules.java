@@ -34,7 +34,34 @@ public final class CheckRules {
     /** What the rules look at. {@code design} and {@code target} are null without a process model. */
     public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
                          LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
-                         boolean targetStable) {
+                         boolean targetStable, java.util.Optional<ScanFacts> sourceFacts) {
+
+        /** Inputs without the old controller's scan facts (a continuous design, or none to compare). */
+        public Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
+                      LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
+                      boolean targetStable) {
+            this(targetForm, scanSeconds, facts, designLoop, targetLoop, mismatch, mismatchBandHighRadPerSecond,
+                    targetStable, java.util.Optional.empty());
+        }
+    }
+
+    /** A condition the old controller already had is not made worse unless its figure grows by more than this share. */
+    static final double NOT_WORSE_SHARE = 0.1;
+
+    /**
+     * The words and severity of a derivative finding when the old controller (a sampled source) had the same
+     * condition: info when the migration does not make it worse (its figure grows by at most
+     * {@link #NOT_WORSE_SHARE}), otherwise the severity stands and the text says the old figure.
+     */
+    private static Finding againstSource(Finding f, double sourceFigure, double sourceScanSeconds, String what) {
+        String old = " The old controller had the same condition (" + what + " = " + Numbers.significant(sourceFigure, 3)
+                + " at its " + Numbers.plain(sourceScanSeconds) + " s scan)";
+        if (f.figure() != null && f.figure() <= sourceFigure * (1 + NOT_WORSE_SHARE)) {
+            return new Finding(f.topic(), Severity.INFO, f.figure(), f.threshold(), f.unit(), f.source(),
+                    f.message() + old + ": the migration does not make it worse.");
+        }
+        return new Finding(f.topic(), f.severity(), f.figure(), f.threshold(), f.unit(), f.source(),
+                f.message() + old + ": the migration makes it worse.");
     }
 
     public static List<Finding> evaluate(Inputs in, CheckPolicy policy) {
@@ -100,7 +127,7 @@ public final class CheckRules {
             boolean shorterThanScan = f.nhOverTd() > 1;
             boolean matters = shorterThanScan || lm == null || lm.crossoverRadPerSecond().isEmpty()
                     || corner < 10 * lm.crossoverRadPerSecond().getAsDouble();
-            out.add(new Finding(Topic.DERIVATIVE, matters ? Severity.WARN : Severity.INFO, f.nhOverTd(),
+            Finding coarse = new Finding(Topic.DERIVATIVE, matters ? Severity.WARN : Severity.INFO, f.nhOverTd(),
                     p.derivativeNhTdWarn(), "ratio", ASTROM_WITTENMARK, "The scan is coarse for the derivative filter:"
                     + " N h / Td = " + Numbers.significant(f.nhOverTd(), 3) + ", so the filter time constant Td/N = "
                     + Numbers.significant(f.filterSeconds(), 3) + " s spans less than " + Numbers.significant(
@@ -110,11 +137,19 @@ public final class CheckRules {
                     + " expect less derivative action than designed." : matters
                     ? "That is close enough to the loop's crossover to change what the derivative does: scan faster,"
                     + " or expect less derivative action than designed."
-                    : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices.")));
+                    : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices."));
+            java.util.Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() > 0
+                    && s.nhOverTd() > p.derivativeNhTdWarn());
+            out.add(old.isPresent() ? againstSource(coarse, old.get().nhOverTd(), old.get().scanSeconds(), "N h / Td")
+                    : coarse);
         } else if (f.filterSeconds() == 0 && in.scanSeconds() > f.derivativeTimeSeconds()) {
-            out.add(new Finding(Topic.DERIVATIVE, Severity.WARN, in.scanSeconds() / f.derivativeTimeSeconds(), 1.0,
-                    "ratio", COMMON, "The scan time is longer than the derivative time, so the unfiltered derivative"
-                    + " acts as one-scan spikes."));
+            Finding spikes = new Finding(Topic.DERIVATIVE, Severity.WARN, in.scanSeconds() / f.derivativeTimeSeconds(),
+                    1.0, "ratio", COMMON, "The scan time is longer than the derivative time, so the unfiltered derivative"
+                    + " acts as one-scan spikes.");
+            java.util.Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() == 0
+                    && s.scanSeconds() > s.derivativeTimeSeconds());
+            out.add(old.isPresent() ? againstSource(spikes, old.get().scanSeconds() / old.get().derivativeTimeSeconds(),
+                    old.get().scanSeconds(), "h / Td") : spikes);
         }
         LoopMargins m = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
         if (m != null && m.crossoverRadPerSecond().isPresent()) {

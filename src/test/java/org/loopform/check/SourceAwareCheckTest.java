@@ -1,0 +1,84 @@
+package org.loopform.check;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.Finding;
+import org.loopform.findings.Severity;
+import org.loopform.findings.Topic;
+import org.loopform.io.LoopFileReader;
+
+/**
+ * A check that knows the old controller: a derivative condition the old controller already had is
+ * said so (and is info unless the migration makes it worse); a nearest fit is weighted around the
+ * loop's crossover when the process is known. The rule of thumb N h / Td of about 0.2 to 0.6 is
+ * Astrom and Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 (from memory); the rest
+ * is arithmetic written out beside each assertion.
+ */
+@DisplayName("A check that knows the old controller")
+class SourceAwareCheckTest {
+
+    @TempDir
+    Path dir;
+
+    private CheckResult check(String sourceScan, String targetForm, String targetScan) throws IOException {
+        Path file = Files.writeString(dir.resolve("loop.yaml"), "tag: TIC-900\n"
+                + "process: {model: fopdt, gain: 1, time_constant: 100 s, dead_time: 10 s}\n"
+                + "tuning: {form: ideal, kc: 1, ti: 60, td: 2, n: 10" + (sourceScan == null ? "" : ", scan: " + sourceScan)
+                + "}\ntarget: {form: " + targetForm + ", scan: " + targetScan + "}\n"
+                + "ranges: {pv: 0..100, output: 0..100}\n");
+        return LoopCheck.run(LoopFileReader.readOne(file, file.toString()), CheckPolicy.DEFAULT);
+    }
+
+    private static Finding coarseDerivative(CheckResult r) {
+        return r.findings().stream().filter(f -> f.topic() == Topic.DERIVATIVE && f.message().contains("N h / Td"))
+                .findFirst().orElseThrow();
+    }
+
+    /** Td 2 s, N 10, h 1 s: N h / Td = 10 * 1 / 2 = 5 (the filter Td/N = 0.2 s is shorter than one scan). */
+    @Test
+    void a_coarse_derivative_the_old_controller_already_had_at_the_same_scan_is_info() throws IOException {
+        Finding f = coarseDerivative(check("1 s", "ideal", "1 s"));
+        assertThat(f.figure()).isCloseTo(5.0, within(1e-6));
+        assertThat(f.severity()).isEqualTo(Severity.INFO);
+        assertThat(f.message()).contains("old controller had the same condition").contains("does not make it worse");
+    }
+
+    /** At a 2 s target scan N h / Td = 10 * 2 / 2 = 10, twice the old 5: worse, so it stays a warning. */
+    @Test
+    void a_coarse_derivative_the_migration_makes_worse_stays_a_warning() throws IOException {
+        Finding f = coarseDerivative(check("1 s", "ideal", "2 s"));
+        assertThat(f.figure()).isCloseTo(10.0, within(1e-6));
+        assertThat(f.severity()).isEqualTo(Severity.WARN);
+        assertThat(f.message()).contains("makes it worse");
+    }
+
+    /** Without a sampled source there is no old figure to compare: the finding stands as it is. */
+    @Test
+    void a_continuous_design_has_no_old_condition() throws IOException {
+        Finding f = coarseDerivative(check(null, "ideal", "1 s"));
+        assertThat(f.severity()).isEqualTo(Severity.WARN);
+        assertThat(f.message()).doesNotContain("old controller");
+    }
+
+    /**
+     * A target with a fixed filter ratio cannot hold n = 10 exactly: its nearest fit is weighted from a
+     * decade below to three times the design loop's crossover (with the process known), not around the
+     * law's own corners.
+     */
+    @Test
+    void a_nearest_fit_is_weighted_around_the_design_crossover() throws IOException {
+        CheckResult r = check(null, "ideal-fixed-n8", "0.1 s");
+        assertThat(r.conversion().exact()).isFalse();
+        double wc = r.designMargins().crossoverRadPerSecond().getAsDouble();
+        assertThat(r.conversion().loopBand().lowRadPerSecond()).isCloseTo(wc / 10, within(1e-3 * wc));
+        assertThat(r.conversion().loopBand().highRadPerSecond()).isCloseTo(3 * wc, within(1e-3 * wc));
+    }
+}
