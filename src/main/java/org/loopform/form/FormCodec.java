@@ -146,7 +146,7 @@ public final class FormCodec {
     }
 
     /** Writes a setting in {@code form}'s units: the numeric values by name, in the form's order. */
-    public static WrittenTuning encode(FormDefinition form, PidSetting s, WritingContext ctx, String side) {
+    static WrittenTuning encode(FormDefinition form, PidSetting s, WritingContext ctx, String side) {
         boolean parallel = form.structure() == Structure.PARALLEL;
         if (s.structure() != form.structure()) {
             throw new IllegalArgumentException("setting is " + s.structure().id() + ", form " + form.id() + " is "
@@ -198,7 +198,7 @@ public final class FormCodec {
     }
 
     /** The written value of {@code n} that means "no derivative filter". */
-    public static final double FILTER_OFF = 0.0;
+    static final double FILTER_OFF = 0.0;
     /** How a person writes "no derivative filter": {@code n=off} (or {@code tf=off}). */
     public static final String OFF = "off";
 
