@@ -11,14 +11,14 @@ import org.loopform.units.BadInput;
  * {@link PolicyKey}; the keys, defaults, units and sources are listed there.
  *
  * <p>Defaults and their sources, in short: the scan rules {@code sampling_warn} 0.5 rad and
- * {@code sampling_fail} 1 rad of h wc and {@code derivative_nh_td_warn} 0.6 (Astrom &amp;
- * Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 - from memory; Wittenmark, Astrom
- * &amp; Arzen 2002, verified, for the hold's h/2 delay); robustness: {@code ms_warn} 2 (Ms 1.3 to 2
+ * {@code sampling_fail} 1 rad of h wc and {@code derivative_nh_td_warn} 0.6 (common practice,
+ * rules of thumb for sampled PID; Wittenmark, Astrom &amp; Arzen 2002, verified, for the hold's
+ * h/2 delay); robustness: {@code ms_warn} 2 (Ms 1.3 to 2
  * is reasonable: Astrom &amp; Hagglund 1995 as cited by Octave's control package and Wikipedia's
  * "Sensitivity (control systems)" - verified), {@code ms_fail} 3, {@code phase_margin_fail_deg}
  * 20 and {@code gain_margin_fail} 1.5 (loopform policy: the margins Ms 3 guarantees,
- * GM &gt;= Ms/(Ms-1) = 1.5 and PM &gt;= 2 arcsin(1/(2 Ms)) = 19.2 deg, Skogestad &amp; Postlethwaite,
- * Multivariable Feedback Control, ch. 2 - from memory; "we usually aim for a gain margin of
+ * GM &gt;= Ms/(Ms-1) = 1.5 and PM &gt;= 2 arcsin(1/(2 Ms)) = 19.2 deg, derived from
+ * |1 + L| &gt;= 1/Ms at the crossovers; "we usually aim for a gain margin of
  * &gt; 1.5 and a phase margin above 30-45 deg", ControlSystems.jl documentation, analysis example -
  * verified), {@code phase_margin_warn_deg} 30 and {@code gain_margin_warn} 2 (common practice:
  * PM 30 to 60 deg, GM 2 to 5); the delay margin in target scans, fail below 1 and warn below 2

@@ -18,14 +18,22 @@ import org.loopform.units.Numbers;
 public final class CheckRules {
 
     static final String WITTENMARK_2002 = "Wittenmark, Astrom & Arzen, Computer Control: An Overview, IFAC 2002, Table 3";
-    static final String ASTROM_WITTENMARK = "Astrom & Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 8 "
-            + "(from memory)";
+    /**
+     * The sampling rules of thumb (h wc, N h / Td): common practice; a search of public pages and
+     * documentation did not turn up a published table to cite for the figures (docs/references.md).
+     */
+    static final String SAMPLING_PRACTICE = "common practice (rule of thumb for sampled PID)";
     static final String MS_SOURCE = "Astrom & Hagglund 1995, as cited in Octave control package docs: Ms 1.3 to 2";
     static final String COMMON = "common practice";
     /** Where the replay thresholds come from. */
     public static final String REPLAY_POLICY = "loopform policy (common practice): a controller re-run on its own"
             + " inputs reproduces its logged output to the log's resolution";
-    static final String MS_BOUNDS = "Skogestad & Postlethwaite, Multivariable Feedback Control, ch. 2 (from memory):"
+    /**
+     * The margins Ms guarantees, derived: the Nyquist curve keeps |1 + L| >= 1/Ms, so at the phase
+     * crossover (L = -1/GM) 1 - 1/GM >= 1/Ms, and at the gain crossover (|L| = 1)
+     * |1 + L| = 2 sin(PM/2) >= 1/Ms.
+     */
+    static final String MS_BOUNDS = "derived from |1 + L| >= 1/Ms at the crossovers:"
             + " GM >= Ms/(Ms-1), PM >= 2 arcsin(1/(2 Ms))";
 
     private CheckRules() {
@@ -94,7 +102,7 @@ public final class CheckRules {
         Severity s = hwc > p.samplingFail() ? Severity.FAIL : hwc > p.samplingWarn() ? Severity.WARN : null;
         if (s != null) {
             out.add(new Finding(Topic.SAMPLING, s, hwc, s == Severity.FAIL ? p.samplingFail() : p.samplingWarn(), "rad",
-                    ASTROM_WITTENMARK, "The scan is slow for this loop: scan time times crossover is "
+                    SAMPLING_PRACTICE, "The scan is slow for this loop: scan time times crossover is "
                     + Numbers.significant(hwc, 3) + " rad (crossover " + Numbers.significant(wc, 3) + " rad/s); the hold"
                     + " alone, a delay of about h/2, costs " + Numbers.significant(lostDeg, 3) + " deg of phase at"
                     + " crossover. Use a scan of at most " + Numbers.significant(p.samplingWarn() / wc, 3) + " s"
@@ -128,7 +136,7 @@ public final class CheckRules {
             boolean matters = shorterThanScan || lm == null || lm.crossoverRadPerSecond().isEmpty()
                     || corner < 10 * lm.crossoverRadPerSecond().getAsDouble();
             Finding coarse = new Finding(Topic.DERIVATIVE, matters ? Severity.WARN : Severity.INFO, f.nhOverTd(),
-                    p.derivativeNhTdWarn(), "ratio", ASTROM_WITTENMARK, "The scan is coarse for the derivative filter:"
+                    p.derivativeNhTdWarn(), "ratio", SAMPLING_PRACTICE, "The scan is coarse for the derivative filter:"
                     + " N h / Td = " + Numbers.significant(f.nhOverTd(), 3) + ", so the filter time constant Td/N = "
                     + Numbers.significant(f.filterSeconds(), 3) + " s spans less than " + Numbers.significant(
                     1 / f.nhOverTd(), 2) + " scans and the sampled derivative departs from the design's near and above"

@@ -9,12 +9,12 @@ package org.loopform.findings;
  */
 public enum PolicyKey {
     SAMPLING_WARN("sampling_warn", 0.5, "rad", "scan time x target crossover above which the scan is slow",
-            CheckRules.ASTROM_WITTENMARK + ": h wc of about 0.15 to 0.5"),
+            CheckRules.SAMPLING_PRACTICE + ": h wc of about 0.15 to 0.5"),
     SAMPLING_FAIL("sampling_fail", 1.0, "rad", "scan time x target crossover above which the scan fails",
             "at h wc = 1 the hold alone costs about 29 deg at crossover (its h/2 delay, "
                     + CheckRules.WITTENMARK_2002 + ")"),
     DERIVATIVE_NH_TD_WARN("derivative_nh_td_warn", 0.6, "ratio", "N h / Td above which the scan is coarse for the"
-            + " derivative filter", CheckRules.ASTROM_WITTENMARK + ": N h / Td of about 0.2 to 0.6"),
+            + " derivative filter", CheckRules.SAMPLING_PRACTICE + ": N h / Td of about 0.2 to 0.6"),
     DERIVATIVE_LEAD_KEPT_WARN("derivative_lead_kept_warn", 0.5, "fraction", "share of the continuous derivative's"
             + " phase lead at crossover the sampled derivative must keep", CheckRules.COMMON),
     MS_WARN("ms_warn", 2.0, "ratio", "target maximum sensitivity Ms above which the loop warns", CheckRules.MS_SOURCE),

@@ -20,7 +20,7 @@ public enum Action {
         return this == REVERSE ? 1.0 : -1.0;
     }
 
-    public static Action ofSign(double gain) {
+    static Action ofSign(double gain) {
         return gain < 0 ? DIRECT : REVERSE;
     }
 

@@ -4,10 +4,12 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Optional;
 import java.util.stream.Collectors;
+import java.util.function.DoubleSupplier;
 import org.loopform.units.Measure;
+import org.loopform.units.Numbers;
 import org.loopform.units.Plausible;
-import org.loopform.units.TimeUnit;
 import org.loopform.units.UnitException;
+import org.loopform.units.UnitText;
 
 /**
  * The thin units layer between the values a person writes in a form and the structure's own SI
@@ -48,21 +50,9 @@ public final class FormCodec {
         double eu = form.needsRanges() ? ctx.engineeringToPercent(form, side) : 1.0;
 
         // gain and its sign
-        double gainValue = number(form, values, form.gainName(), Kind.GAIN);
-        double gain;
-        if (form.gain().writing() == GainWriting.BAND) {
-            if (!(gainValue > 0)) {
-                throw new FormException("pb: a proportional band must be > 0 % (got " + gainValue + " %); it is "
-                        + "100 / gain, so a small band is a high gain");
-            }
-            gain = 100.0 / gainValue;
-        } else {
-            if (gainValue == 0) {
-                throw new FormException(form.gainName() + ": gain must not be 0 (got 0); a controller without "
-                        + "proportional action cannot be written in these structures");
-            }
-            gain = gainValue * eu;
-        }
+        GainWriting gw = form.gain().writing();
+        double gainValue = number(form, values, form.gainName(), gw::inOwnUnit, gw.unitHint());
+        double gain = gw.toGain(form.gainName(), gainValue, eu);
         Optional<Action> action = Optional.empty();
         if (values.containsKey("action")) {
             if (form.gain().sign() != SignConvention.ACTION) {
@@ -84,51 +74,43 @@ public final class FormCodec {
             throw new FormException(form.gainName() + ": " + gainValue + " gives a gain of " + Math.abs(gain)
                     + " %/%, outside what any controller holds (1e-9 to 1e9); check the value and its units");
         }
+        DoubleSupplier scan = () -> ctx.scan(form, side);
 
         // integral
-        double iv = number(form, values, form.integralName(), Kind.INTEGRAL);
         IntegralSpec is = form.integral();
+        IntegralWriting iw = is.writing();
+        double iv = number(form, values, form.integralName(), (u, x) -> iw.inOwnUnit(u, x, is.unit()), iw.unitHint());
         if (iv < 0) {
-            throw new FormException(form.integralName() + ": must be >= 0 (got " + iv + " " + FormUnits.integralUnit(form)
+            throw new FormException(form.integralName() + ": must be >= 0 (got " + iv + " " + form.unitOf(form.integralName())
                     + "); the controller's action is set by the gain" + (form.gain().sign() == SignConvention.ACTION
                     ? "'s action setting" : "'s sign"));
         }
         boolean integralOff = is.isOff(iv);
-        if (!integralOff && iv == 0 && (is.writing() == IntegralWriting.TIME || !parallel)) {
+        if (!integralOff && iv == 0 && (iw.isTime() || !parallel)) {
             throw new FormException(form.integralName() + ": 0 is not a valid value for form " + form.id()
-                    + ", which writes integral action off as " + org.loopform.units.Numbers.plain(is.offValue()) + " "
-                    + FormUnits.integralUnit(form) + (is.writing() == IntegralWriting.TIME ? " or more" : "")
-                    + "; give a positive value, or " + org.loopform.units.Numbers.plain(is.offValue())
+                    + ", which writes integral action off as " + Numbers.plain(is.offValue()) + " "
+                    + form.unitOf(form.integralName()) + (iw.isTime() ? " or more" : "")
+                    + "; give a positive value, or " + Numbers.plain(is.offValue())
                     + " to turn integral action off");
         }
         double integral;
         if (parallel) {
-            double kiPerSecond = integralOff ? 0.0 : switch (is.writing()) {
-                case TIME -> 1.0 / is.unit().toSeconds(iv);
-                case RATE, GAIN -> iv / is.unit().seconds();
-                case PER_SCAN -> iv / ctx.scan(form, side);
-            };
+            double kiPerSecond = integralOff ? 0.0 : iw.toCoordinate(iv, is.unit(), true, scan);
             integral = Math.copySign(kiPerSecond * eu, gain);
         } else {
-            if (integralOff) {
-                integral = Double.POSITIVE_INFINITY;
-            } else {
-                integral = is.writing() == IntegralWriting.TIME ? is.unit().toSeconds(iv) : is.unit().seconds() / iv;
-            }
+            integral = integralOff ? Double.POSITIVE_INFINITY : iw.toCoordinate(iv, is.unit(), false, scan);
         }
 
         // derivative
-        double dv = number(form, values, form.derivativeName(), Kind.DERIVATIVE);
+        DerivativeSpec ds = form.derivative();
+        DerivativeWriting dw = ds.writing();
+        double dv = number(form, values, form.derivativeName(), (u, x) -> dw.inOwnUnit(u, x, ds.unit()), dw.unitHint());
         if (dv < 0) {
             throw new FormException(form.derivativeName() + ": must be >= 0 (got " + dv + " "
-                    + FormUnits.derivativeUnit(form) + "); write 0 to turn derivative action off");
+                    + form.unitOf(form.derivativeName()) + "); write 0 to turn derivative action off");
         }
-        DerivativeSpec ds = form.derivative();
-        double derivative = switch (ds.writing()) {
-            case TIME -> ds.unit().toSeconds(dv);
-            case GAIN -> Math.copySign(ds.unit().toSeconds(dv) * eu, gain);
-            case PER_SCAN -> Math.copySign(dv * ctx.scan(form, side) * eu, gain);
-        };
+        double derivativeMagnitude = dw.toCoordinate(dv, ds.unit(), eu, scan);
+        double derivative = dw.parallel() ? Math.copySign(derivativeMagnitude, gain) : derivativeMagnitude;
 
         // filter
         double td = parallel ? derivative / gain : derivative;
@@ -139,7 +121,7 @@ public final class FormCodec {
                 if (values.containsKey("n") && isOff(values.get("n"))) {
                     yield 0.0;
                 }
-                double n = values.containsKey("n") ? number(form, values, "n", Kind.PLAIN) : form.filter().ratio();
+                double n = values.containsKey("n") ? number(form, values, "n", NO_UNIT, PLAIN_HINT) : form.filter().ratio();
                 if (!(n > 0)) {
                     throw new FormException("n: the derivative filter ratio must be > 0 (got " + n + "); typical values"
                             + " are 8 to 20, or write n=off for a derivative without a filter");
@@ -148,7 +130,8 @@ public final class FormCodec {
             }
             case TIME_CONSTANT -> {
                 double t = values.containsKey("tf") ? (isOff(values.get("tf")) ? 0.0
-                        : number(form, values, "tf", Kind.FILTER_TIME)) : form.filter().defaultTime();
+                        : number(form, values, "tf", (u, x) -> UnitText.time(u).map(
+                        tu -> form.filter().unit().fromSeconds(tu.toSeconds(x))), DerivativeWriting.TIME.unitHint())) : form.filter().defaultTime();
                 if (t < 0) {
                     throw new FormException("tf: the filter time constant must be >= 0 (got " + t + ")");
                 }
@@ -163,7 +146,7 @@ public final class FormCodec {
     }
 
     /** Writes a setting in {@code form}'s units: the numeric values by name, in the form's order. */
-    public static WrittenTuning encode(FormDefinition form, PidSetting s, WritingContext ctx, String side) {
+    static WrittenTuning encode(FormDefinition form, PidSetting s, WritingContext ctx, String side) {
         boolean parallel = form.structure() == Structure.PARALLEL;
         if (s.structure() != form.structure()) {
             throw new IllegalArgumentException("setting is " + s.structure().id() + ", form " + form.id() + " is "
@@ -171,36 +154,21 @@ public final class FormCodec {
         }
         double eu = form.needsRanges() ? ctx.engineeringToPercent(form, side) : 1.0;
         Map<String, Double> v = new LinkedHashMap<>();
-        double magnitude = Math.abs(s.gain());
         boolean signed = form.gain().sign() == SignConvention.SIGNED;
-        if (form.gain().writing() == GainWriting.BAND) {
-            v.put("pb", 100.0 / magnitude);
-        } else {
-            v.put(form.gainName(), (signed ? s.gain() : magnitude) / eu);
-        }
+        GainWriting gw = form.gain().writing();
+        v.put(form.gainName(), gw.fromGain(s.gain(), signed, eu));
+        DoubleSupplier scan = () -> ctx.scan(form, side);
         IntegralSpec is = form.integral();
         double iv;
         if (!s.hasIntegral()) {
             iv = is.offValue();
-        } else if (parallel) {
-            double ki = Math.abs(s.integral()) / eu;
-            iv = switch (is.writing()) {
-                case TIME -> is.unit().fromSeconds(1.0 / ki);
-                case RATE, GAIN -> ki * is.unit().seconds();
-                case PER_SCAN -> ki * ctx.scan(form, side);
-            };
         } else {
-            iv = is.writing() == IntegralWriting.TIME ? is.unit().fromSeconds(s.integral())
-                    : is.unit().seconds() / s.integral();
+            double coordinate = parallel ? Math.abs(s.integral()) / eu : s.integral();
+            iv = is.writing().fromCoordinate(coordinate, is.unit(), parallel, scan);
         }
         v.put(form.integralName(), iv);
         DerivativeSpec ds = form.derivative();
-        double kd = Math.abs(s.derivative());
-        v.put(form.derivativeName(), switch (ds.writing()) {
-            case TIME -> ds.unit().fromSeconds(kd);
-            case GAIN -> ds.unit().fromSeconds(kd / eu);
-            case PER_SCAN -> kd / eu / ctx.scan(form, side);
-        });
+        v.put(form.derivativeName(), ds.writing().fromCoordinate(Math.abs(s.derivative()), ds.unit(), eu, scan));
         double td = s.derivativeTimeSeconds();
         switch (form.filter().kind()) {
             // n = 0 stands for "off" (no filter) in a written tuning; it is printed and read back as "off"
@@ -230,7 +198,7 @@ public final class FormCodec {
     }
 
     /** The written value of {@code n} that means "no derivative filter". */
-    public static final double FILTER_OFF = 0.0;
+    static final double FILTER_OFF = 0.0;
     /** How a person writes "no derivative filter": {@code n=off} (or {@code tf=off}). */
     public static final String OFF = "off";
 
@@ -251,8 +219,8 @@ public final class FormCodec {
         if (isFilterOff(name, value)) {
             return OFF;
         }
-        return form.limit(name).resolution() != null ? org.loopform.units.Numbers.plain(value)
-                : org.loopform.units.Numbers.significant(value, digits);
+        return form.limit(name).resolution() != null ? Numbers.plain(value)
+                : Numbers.significant(value, digits);
     }
 
     /** "kc (%/%), ti (s/repeat), td (s), optional n (ratio, default 10)". */
@@ -260,7 +228,7 @@ public final class FormCodec {
         return form.parameters().stream().map(p -> p.required()
                         ? p.name() + " (" + p.unit() + ")"
                         : "optional " + p.name() + " (" + p.unit()
-                        + (p.defaultValue() != null ? ", default " + org.loopform.units.Numbers.plain(p.defaultValue())
+                        + (p.defaultValue() != null ? ", default " + Numbers.plain(p.defaultValue())
                         : p.name().equals("action") ? ", default reverse" : "") + ")")
                 .collect(Collectors.joining(", "));
     }
@@ -270,7 +238,7 @@ public final class FormCodec {
             return "; write " + name + "=0 for a controller without derivative action";
         }
         if (name.equals(form.integralName())) {
-            return "; write " + name + "=" + org.loopform.units.Numbers.plain(form.integral().offValue())
+            return "; write " + name + "=" + Numbers.plain(form.integral().offValue())
                     + " for a controller without integral action";
         }
         return "";
@@ -302,26 +270,34 @@ public final class FormCodec {
         }
     }
 
-    private enum Kind { GAIN, INTEGRAL, DERIVATIVE, FILTER_TIME, PLAIN }
-
     private static double weight(FormDefinition form, Map<String, String> values, String name, Weight w) {
         if (!values.containsKey(name)) {
             return w.defaultValue();
         }
-        double v = number(form, values, name, Kind.PLAIN);
+        double v = number(form, values, name, NO_UNIT, PLAIN_HINT);
         if (!w.adjustable()) {
             throw new FormException(name + ": form " + form.id() + " fixes this setpoint weight at "
-                    + org.loopform.units.Numbers.plain(w.defaultValue()) + "; drop '" + name + "'");
+                    + Numbers.plain(w.defaultValue()) + "; drop '" + name + "'");
         }
         if (v < w.min() || v > w.max()) {
-            throw new FormException(name + ": must lie within " + org.loopform.units.Numbers.plain(w.min()) + ".."
-                    + org.loopform.units.Numbers.plain(w.max()) + " (got " + v + ")");
+            throw new FormException(name + ": must lie within " + Numbers.plain(w.min()) + ".."
+                    + Numbers.plain(w.max()) + " (got " + v + ")");
         }
         return v;
     }
 
+    /** Reads an explicit unit into a parameter's own unit; empty when the unit does not fit. */
+    @FunctionalInterface
+    private interface OwnUnit {
+        Optional<Double> convert(String unit, double value);
+    }
+
+    private static final OwnUnit NO_UNIT = (u, x) -> Optional.empty();
+    private static final String PLAIN_HINT = "; write a bare number";
+
     /** Reads a value, converting an explicit unit to the form's unit for that parameter. */
-    private static double number(FormDefinition form, Map<String, String> values, String name, Kind kind) {
+    private static double number(FormDefinition form, Map<String, String> values, String name, OwnUnit own,
+                                 String unitHint) {
         String text = values.get(name);
         Measure m;
         try {
@@ -332,88 +308,8 @@ public final class FormCodec {
         if (!m.hasUnit()) {
             return m.value();
         }
-        String u = m.unit().replace(" ", "");
-        switch (kind) {
-            case GAIN -> {
-                if (form.gain().writing() == GainWriting.BAND ? u.equals("%") : u.equals("%/%")) {
-                    return m.value();
-                }
-            }
-            case INTEGRAL -> {
-                IntegralSpec is = form.integral();
-                switch (is.writing()) {
-                    case TIME -> {
-                        Optional<TimeUnit> t = TimeUnit.parse(stripPerRepeat(u));
-                        if (t.isPresent()) {
-                            return is.unit().fromSeconds(t.get().toSeconds(m.value()));
-                        }
-                    }
-                    case RATE, GAIN -> {
-                        Optional<TimeUnit> t = perTime(u);
-                        if (t.isPresent()) {
-                            return m.value() * is.unit().seconds() / t.get().seconds();
-                        }
-                    }
-                    case PER_SCAN -> {
-                        if (u.equals("/scan") || u.equals("perscan")) {
-                            return m.value();
-                        }
-                    }
-                    default -> { }
-                }
-            }
-            case DERIVATIVE, FILTER_TIME -> {
-                boolean perScan = kind == Kind.DERIVATIVE && form.derivative().writing() == DerivativeWriting.PER_SCAN;
-                if (perScan && (u.equals("scans") || u.equals("scan"))) {
-                    return m.value();
-                }
-                TimeUnit own = kind == Kind.DERIVATIVE ? form.derivative().unit() : form.filter().unit();
-                Optional<TimeUnit> t = TimeUnit.parse(u);
-                if (t.isPresent() && !perScan) {
-                    return own.fromSeconds(t.get().toSeconds(m.value()));
-                }
-            }
-            default -> { }
-        }
-        throw new FormException(name + ": unknown unit '" + m.unit() + "' (got '" + text.trim() + "'); form "
-                + form.id() + " writes " + name + " in " + FormUnits.of(form, name) + unitHint(kind, form));
-    }
-
-    private static String unitHint(Kind kind, FormDefinition form) {
-        return switch (kind) {
-            case INTEGRAL -> switch (form.integral().writing()) {
-                case TIME -> "; write a time such as 90s or 1.5min";
-                case RATE, GAIN -> "; write a rate such as 2/min or 0.05/s";
-                case PER_SCAN -> "; write a bare number";
-            };
-            case DERIVATIVE, FILTER_TIME -> form.derivative().writing() == DerivativeWriting.PER_SCAN
-                    && kind == Kind.DERIVATIVE ? "; write a bare number" : "; write a time such as 30s or 0.5min";
-            default -> "; write a bare number";
-        };
-    }
-
-    private static String stripPerRepeat(String u) {
-        for (String suffix : new String[] {"/repeat", "/rep", "perrepeat"}) {
-            if (u.endsWith(suffix)) {
-                return u.substring(0, u.length() - suffix.length());
-            }
-        }
-        return u;
-    }
-
-    /** Reads a "per time" unit: /min, 1/min, repeats/min, r/min, rpm, /s, 1/s, repeats/s, /h. */
-    private static Optional<TimeUnit> perTime(String u) {
-        if (u.equals("rpm")) {
-            return Optional.of(TimeUnit.MINUTES);
-        }
-        int slash = u.indexOf('/');
-        if (slash < 0) {
-            return Optional.empty();
-        }
-        String head = u.substring(0, slash);
-        if (!(head.isEmpty() || head.equals("1") || head.equals("r") || head.startsWith("repeat"))) {
-            return Optional.empty();
-        }
-        return TimeUnit.parse(u.substring(slash + 1));
+        return own.convert(m.unit(), m.value()).orElseThrow(() -> new FormException(name + ": unknown unit '"
+                + m.unit() + "' (got '" + text.trim() + "'); form " + form.id() + " writes " + name + " in "
+                + form.unitOf(name) + unitHint));
     }
 }

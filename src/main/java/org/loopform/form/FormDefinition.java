@@ -31,15 +31,15 @@ public record FormDefinition(String id, String title, String description, Struct
             problems.add("title: every form needs a one-line title");
         }
         boolean parallel = structure == Structure.PARALLEL;
-        if (!parallel && (integral.writing() == IntegralWriting.GAIN || integral.writing() == IntegralWriting.PER_SCAN)) {
+        if (!parallel && integral.writing().parallelOnly()) {
             problems.add("integral.as: '" + integral.writing().name().toLowerCase() + "' needs structure "
                     + "parallel; an " + structure.id() + " form writes integral as 'time' or 'rate'");
         }
-        if (!parallel && derivative.writing() != DerivativeWriting.TIME) {
+        if (!parallel && derivative.writing().parallel()) {
             problems.add("derivative.as: '" + derivative.writing().name().toLowerCase() + "' needs structure "
                     + "parallel; an " + structure.id() + " form writes derivative as 'time'");
         }
-        if (parallel && derivative.writing() == DerivativeWriting.TIME) {
+        if (parallel && !derivative.writing().parallel()) {
             problems.add("derivative.as: a parallel form writes derivative as 'gain' or 'per_scan' (kd)");
         }
         if (parallel && gain.writing() == GainWriting.BAND) {
@@ -80,34 +80,21 @@ public record FormDefinition(String id, String title, String description, Struct
     }
 
     public String gainName() {
-        return gainName(structure, gain);
-    }
-
-    private static String gainName(Structure structure, GainSpec gain) {
-        if (gain.writing() == GainWriting.BAND) {
-            return "pb";
-        }
-        return structure == Structure.PARALLEL ? "kp" : "kc";
+        return gain.writing().name(structure);
     }
 
     public String integralName() {
-        return integralName(integral);
-    }
-
-    private static String integralName(IntegralSpec integral) {
-        return switch (integral.writing()) {
-            case TIME -> "ti";
-            case RATE -> "reset";
-            case GAIN, PER_SCAN -> "ki";
-        };
+        return integral.writing().parameter();
     }
 
     public String derivativeName() {
-        return derivativeName(derivative);
+        return derivative.writing().parameter();
     }
 
-    private static String derivativeName(DerivativeSpec derivative) {
-        return derivative.writing() == DerivativeWriting.TIME ? "td" : "kd";
+    /** The unit text of parameter {@code name} ("" for a name the form does not have). */
+    public String unitOf(String name) {
+        return parameters().stream().filter(p -> p.name().equals(name)).findFirst()
+                .map(FormParameter::unit).orElse("");
     }
 
     /** The names of the numeric parameters, in the order a person reads them. */
@@ -128,20 +115,14 @@ public record FormDefinition(String id, String title, String description, Struct
     private static List<FormParameter> parametersOf(Structure structure, GainSpec gain, IntegralSpec integral,
                                                     DerivativeSpec derivative, FilterSpec filter, Weight b, Weight c) {
         List<FormParameter> list = new ArrayList<>();
-        list.add(new FormParameter(gainName(structure, gain), FormUnits.gainUnit(gain), gain.writing() == GainWriting.BAND
-                ? "proportional band" : (structure == Structure.PARALLEL ? "proportional gain" : "controller gain"),
+        GainWriting g = gain.writing();
+        list.add(new FormParameter(g.name(structure), g.unit(gain.basis()), g.meaning(structure), true, null));
+        IntegralWriting i = integral.writing();
+        list.add(new FormParameter(i.parameter(), i.unit(gain.basis(), integral.unit()), i.meaning() + offNote(integral),
                 true, null));
-        list.add(new FormParameter(integralName(integral), FormUnits.integralUnit(gain, integral), switch (integral.writing()) {
-            case TIME -> "integral time per repeat";
-            case RATE -> "reset rate";
-            case GAIN -> "integral gain";
-            case PER_SCAN -> "integral gain per scan";
-        } + offNote(integral), true, null));
-        list.add(new FormParameter(derivativeName(derivative), FormUnits.derivativeUnit(gain, derivative), switch (derivative.writing()) {
-            case TIME -> "derivative time";
-            case GAIN -> "derivative gain";
-            case PER_SCAN -> "derivative gain per scan";
-        } + " (0: off)", true, null));
+        DerivativeWriting d = derivative.writing();
+        list.add(new FormParameter(d.parameter(), d.unit(gain.basis(), derivative.unit()), d.meaning() + " (0: off)",
+                true, null));
         switch (filter.kind()) {
             case RATIO -> list.add(new FormParameter("n", "ratio", "derivative filter ratio, Tf = Td/N",
                     false, filter.ratio()));
@@ -164,6 +145,6 @@ public record FormDefinition(String id, String title, String description, Struct
     private static String offNote(IntegralSpec integral) {
         double off = integral.offValue();
         String v = off == Math.rint(off) ? Long.toString((long) off) : Double.toString(off);
-        return integral.writing() == IntegralWriting.TIME && off > 0 ? " (" + v + " or more: off)" : " (" + v + ": off)";
+        return integral.writing().isTime() && off > 0 ? " (" + v + " or more: off)" : " (" + v + ": off)";
     }
 }

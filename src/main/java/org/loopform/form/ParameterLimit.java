@@ -6,7 +6,7 @@ package org.loopform.form;
  */
 public record ParameterLimit(Double min, Double max, Double resolution) {
 
-    public static final ParameterLimit NONE = new ParameterLimit(null, null, null);
+    static final ParameterLimit NONE = new ParameterLimit(null, null, null);
 
     public ParameterLimit {
         if (min != null && !Double.isFinite(min) || max != null && !Double.isFinite(max)) {
@@ -25,7 +25,7 @@ public record ParameterLimit(Double min, Double max, Double resolution) {
      * the conversion (117.99999999999999) is taken off, nothing the law would feel; outputs print
      * fewer digits. The check runs these values, so the target loop is the converted law itself.
      */
-    public static final int UNRESOLVED_DIGITS = 12;
+    static final int UNRESOLVED_DIGITS = 12;
 
     public boolean accepts(double value) {
         return (min == null || value >= min - tolerance(min)) && (max == null || value <= max + tolerance(max));

@@ -34,7 +34,7 @@ public final class StructureLaw {
         return new ControlLaw(toTerms(s, placement));
     }
 
-    public static PidTerms toTerms(PidSetting s, FilterPlacement placement) {
+    static PidTerms toTerms(PidSetting s, FilterPlacement placement) {
         double tf = s.filterSeconds();
         double b = s.b();
         double c = s.c();
@@ -90,7 +90,7 @@ public final class StructureLaw {
      * p^2 >= 4 d i, which for an ideal law without filter is Ti >= 4 Td (Astrom and Hagglund 1995,
      * section 3.4); a setting also needs a non-zero gain and a derivative time >= 0.
      */
-    public static PidSetting fromTerms(PidTerms t, Structure structure, FilterPlacement placement, double seriesC) {
+    static PidSetting fromTerms(PidTerms t, Structure structure, FilterPlacement placement, double seriesC) {
         double tf = t.tf();
         double i = t.i();
         switch (structure) {
@@ -150,7 +150,7 @@ public final class StructureLaw {
     private static final double ROUNDING = 1e-12;
 
     /** The discriminant test for a series realization: p^2 - 4 d i, >= 0 for real zeros. */
-    public static double seriesDiscriminant(PidTerms t) {
+    static double seriesDiscriminant(PidTerms t) {
         return t.p() * t.p() - 4 * t.d() * t.i();
     }
 }

@@ -22,7 +22,7 @@ public record Weight(double defaultValue, boolean adjustable, double min, double
         return new Weight(value, false, value, value);
     }
 
-    public static Weight adjustable(double defaultValue) {
+    static Weight adjustable(double defaultValue) {
         return new Weight(defaultValue, true, 0.0, 1.0);
     }
 }

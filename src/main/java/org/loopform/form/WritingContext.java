@@ -8,7 +8,7 @@ import org.loopform.units.Span;
  */
 public record WritingContext(Span pvRange, Span outputRange, Double scanSeconds) {
 
-    public static final WritingContext NONE = new WritingContext(null, null, null);
+    static final WritingContext NONE = new WritingContext(null, null, null);
 
     public WritingContext {
         if (scanSeconds != null && !(scanSeconds > 0 && Double.isFinite(scanSeconds))) {

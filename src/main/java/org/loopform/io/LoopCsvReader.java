@@ -5,7 +5,6 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.Reader;
 import java.io.UncheckedIOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -27,9 +26,7 @@ import org.loopform.check.LoopSpec;
 import org.loopform.form.FormDefinition;
 import org.loopform.process.ProcessModel;
 import org.loopform.units.BadInput;
-import org.loopform.units.Measure;
 import org.loopform.units.Span;
-import org.loopform.units.UnitException;
 
 /**
  * Reads a loop list as CSV, one loop a row, streaming and reading its input once (a pipe works
@@ -173,22 +170,14 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             Path abs = path.toAbsolutePath();
             return new LoopCsvReader(in, in::bytesRead, shownName, abs.getParent(), defaults);
         } catch (NotUtf8Exception e) {
-            closeQuietly(in);
+            LoopFields.closeQuietly(in);
             throw e.toInput();
         } catch (IOException e) {
-            closeQuietly(in);
+            LoopFields.closeQuietly(in);
             throw TextInput.unreadable(e, shownName);
         } catch (RuntimeException e) {
-            closeQuietly(in);
+            LoopFields.closeQuietly(in);
             throw e;
-        }
-    }
-
-    private static void closeQuietly(Reader r) {
-        try {
-            r.close();
-        } catch (IOException ignored) {
-            // the file is given up on already
         }
     }
 
@@ -201,10 +190,10 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         try {
             return new LoopCsvReader(in, in::bytesRead, shownName, folder, defaults);
         } catch (NotUtf8Exception e) {
-            closeQuietly(in);
+            LoopFields.closeQuietly(in);
             throw e.toInput();
         } catch (IOException e) {
-            closeQuietly(in);
+            LoopFields.closeQuietly(in);
             throw TextInput.unreadable(e, shownName);
         }
     }
@@ -400,12 +389,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             return f;
         }
         try {
-            String p = idOrPath;
-            if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !Path.of(p).isAbsolute()
-                    && Files.isRegularFile(folder.resolve(p))) {
-                p = folder.resolve(p).toString();
-            }
-            f = CatalogLoader.resolve(p, column);
+            f = LoopFields.form(idOrPath, folder, column);
         } catch (InputException e) {
             throw new InputException(where + ": " + e.getMessage());
         }
@@ -414,22 +398,11 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     }
 
     private static Span span(Map<String, String> c, String key, String where) {
-        if (!c.containsKey(key)) {
-            return null;
-        }
-        try {
-            return Span.parse(c.get(key));
-        } catch (UnitException e) {
-            throw new InputException(where + ": " + key + ": " + e.getMessage());
-        }
+        return c.containsKey(key) ? LoopFields.span(c.get(key), where + ": " + key + ": ") : null;
     }
 
     private static double seconds(String text, String where, String key) {
-        try {
-            return Measure.parsePositiveSeconds(text);
-        } catch (UnitException e) {
-            throw new InputException(where + ": " + key + ": " + e.getMessage());
-        }
+        return LoopFields.positiveSeconds(text, where + ": " + key + ": ");
     }
 
     @Override

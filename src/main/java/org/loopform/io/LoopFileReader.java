@@ -12,9 +12,7 @@ import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;
 import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
-import org.loopform.units.Measure;
 import org.loopform.units.Span;
-import org.loopform.units.UnitException;
 
 /**
  * Reads loop files: one loop block ({@code tag}, {@code process}, {@code tuning}, {@code target},
@@ -186,13 +184,7 @@ public final class LoopFileReader {
 
     private static FormDefinition resolveForm(YamlNode block, String key, String idOrPath) {
         try {
-            String p = idOrPath;
-            Path base = Path.of(block.file()).toAbsolutePath().getParent();
-            if (!org.loopform.io.CatalogLoader.bundled().find(p).isPresent() && base != null
-                    && !Path.of(p).isAbsolute() && java.nio.file.Files.isRegularFile(base.resolve(p))) {
-                p = base.resolve(p).toString();
-            }
-            return CatalogLoader.resolve(p, "form");
+            return LoopFields.form(idOrPath, Path.of(block.file()).toAbsolutePath().getParent(), "form");
         } catch (InputException ex) {
             YamlNode at = block.get(key).orElse(block);
             throw new InputException(at.where() + ex.getMessage().replaceFirst("^form: ", ""));
@@ -204,19 +196,10 @@ public final class LoopFileReader {
             return null;
         }
         YamlNode v = r.get(key).get();
-        try {
-            return Span.parse(v.text());
-        } catch (UnitException ex) {
-            throw new InputException(v.where() + ex.getMessage());
-        }
+        return LoopFields.span(v.text(), v.where());
     }
 
     private static double seconds(YamlNode block, String key, String text) {
-        try {
-            return Measure.parsePositiveSeconds(text);
-        } catch (UnitException ex) {
-            YamlNode at = block.get(key).orElse(block);
-            throw new InputException(at.where() + ex.getMessage());
-        }
+        return LoopFields.positiveSeconds(text, block.get(key).orElse(block).where());
     }
 }

@@ -96,11 +96,7 @@ public final class LoopYamlReader implements Iterator<LoopRow>, AutoCloseable {
         try {
             return new LoopYamlReader(r, r::bytesRead, shownName, defaults);
         } catch (RuntimeException e) {
-            try {
-                r.close();
-            } catch (IOException ignored) {
-                // the file is given up on already
-            }
+            LoopFields.closeQuietly(r);
             throw e;
         }
     }

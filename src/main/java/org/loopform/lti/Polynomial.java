@@ -10,7 +10,7 @@ import java.util.Arrays;
 public final class Polynomial {
 
     /** The zero polynomial. */
-    public static final Polynomial ZERO = new Polynomial(new double[0]);
+    static final Polynomial ZERO = new Polynomial(new double[0]);
     /** The constant one. */
     public static final Polynomial ONE = new Polynomial(new double[] {1.0});
 

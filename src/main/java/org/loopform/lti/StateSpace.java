@@ -5,7 +5,7 @@ package org.loopform.lti;
  * {@code dx/dt = A x + B u, y = C x + D u}. Immutable; accessors return copies. Order 0 (a pure
  * gain) is allowed.
  */
-public final class StateSpace {
+final class StateSpace {
 
     private final double[][] a;
     private final double[] b;
@@ -38,7 +38,7 @@ public final class StateSpace {
     }
 
     /** The model with the given matrices (copied). */
-    public static StateSpace of(double[][] a, double[] b, double[] c, double d) {
+    static StateSpace of(double[][] a, double[] b, double[] c, double d) {
         return new StateSpace(a, b, c, d);
     }
 
@@ -49,7 +49,7 @@ public final class StateSpace {
      * B is the last unit vector, D is the ratio of leading coefficients and C holds the
      * coefficients of the strictly proper remainder {@code N(s) - D den(s)}.
      */
-    public static StateSpace of(TransferFunction g) {
+    static StateSpace of(TransferFunction g) {
         if (!g.isProper()) {
             throw new IllegalArgumentException("only a proper transfer function has a state-space realization (got " + g + ")");
         }
