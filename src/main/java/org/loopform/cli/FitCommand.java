@@ -29,7 +29,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "fit", mixinStandardHelpOptions = true,
         description = {"Fits FOPDT, SOPDT and integrating-plus-dead-time models to a logged open-loop test (one or"
                 + " several output steps, or a pulse) by least squares on the response simulated from the recorded"
-                + " output, with 95 % intervals, and recommends one; or, with --relay, reads the ultimate gain and"
+                + " output, with 95 %% intervals, and recommends one; or, with --relay, reads the ultimate gain and"
                 + " period from a relay-feedback test. Says when the record cannot support a model."},
         footer = {"", "Examples:",
                 "  loopform fit bump.csv --time time --output out --pv pv",

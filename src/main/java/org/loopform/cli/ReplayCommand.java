@@ -80,6 +80,10 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the logged output and both replays (one loop).")
     Path plot;
 
+    @Option(names = "--to", paramLabel = "ID|FILE", description = "Target form for every loop (replaces the list's"
+            + " target_form and the loop file's target form).")
+    String to;
+
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")
     Path policyFile;
 
@@ -92,6 +96,8 @@ final class ReplayCommand implements Callable<Integer> {
             throw new InputException("replay: give exactly one of --loop LOOP.yaml (RECORD is a file) or --list LIST"
                     + " (RECORD is a folder of TAG.csv records)");
         }
+        LoopDefaults defaults = to == null ? LoopDefaults.NONE
+                : new LoopDefaults(CatalogLoader.resolve(to, "--to"), null);
         CheckPolicy policy = policyFile == null ? CheckPolicy.DEFAULT
                 : PolicyFileReader.read(policyFile, policyFile.toString());
         TrendColumns columns = new TrendColumns(time, setpoint, pv, output, mode, tracking);
@@ -99,7 +105,7 @@ final class ReplayCommand implements Callable<Integer> {
         var out = spec.commandLine().getOut();
         boolean json = format.format == OutputFormat.json;
         if (loopFile != null) {
-            LoopSpec loop = LoopFileReader.readOne(loopFile, loopFile.toString());
+            LoopSpec loop = defaults.apply(LoopFileReader.readOne(loopFile, loopFile.toString()));
             ReplayResult r = LoopReplay.run(loop, TrendCsvReader.read(record, record.toString(), columns), catalog,
                     policy);
             if (plot != null) {
@@ -121,7 +127,7 @@ final class ReplayCommand implements Callable<Integer> {
         List<ReplayResult> results = new ArrayList<>();
         List<String> missing = new ArrayList<>();
         List<String> bad = new ArrayList<>();
-        for (Iterator<LoopRow> it = rows(); it.hasNext(); ) {
+        for (Iterator<LoopRow> it = rows(defaults); it.hasNext(); ) {
             LoopRow row = it.next();
             if (!row.ok()) {
                 bad.addAll(row.problems());
@@ -148,13 +154,13 @@ final class ReplayCommand implements Callable<Integer> {
         return results.stream().anyMatch(r -> r.verdict() == Severity.FAIL) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }
 
-    private Iterator<LoopRow> rows() {
+    private Iterator<LoopRow> rows(LoopDefaults defaults) {
         String lower = listFile.getFileName().toString().toLowerCase(Locale.ROOT);
         if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
-            return LoopFileReader.rows(listFile, listFile.toString(), LoopDefaults.NONE).iterator();
+            return LoopFileReader.rows(listFile, listFile.toString(), defaults).iterator();
         }
         List<LoopRow> rows = new ArrayList<>();
-        try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), LoopDefaults.NONE)) {
+        try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), defaults)) {
             reader.forEachRemaining(rows::add);
         }
         return rows.iterator();
