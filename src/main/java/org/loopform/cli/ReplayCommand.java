@@ -15,6 +15,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.AtomicFiles;
 import org.loopform.io.CatalogLoader;
+import org.loopform.io.FolderOutput;
 import org.loopform.io.InputException;
 import org.loopform.io.LoopCsvReader;
 import org.loopform.io.LoopFileReader;
@@ -25,6 +26,7 @@ import org.loopform.io.TrendCsvReader;
 import org.loopform.replay.LoopReplay;
 import org.loopform.replay.ReplayResult;
 import org.loopform.report.Cautions;
+import org.loopform.report.ReplayCsv;
 import org.loopform.report.ReplayPlot;
 import org.loopform.report.ReplayReport;
 import picocli.CommandLine.Command;
@@ -84,6 +86,13 @@ final class ReplayCommand implements Callable<Integer> {
             + " target_form and the loop file's target form).")
     String to;
 
+    @Option(names = "--out", paramLabel = "DIR", description = "Write replay.csv (one row a loop) and replay.json"
+            + " into DIR (a new folder, or loopform's own earlier output with --force).")
+    Path outDir;
+
+    @Option(names = "--force", description = "Replace an earlier loopform output in the --out folder.")
+    boolean force;
+
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")
     Path policyFile;
 
@@ -111,9 +120,13 @@ final class ReplayCommand implements Callable<Integer> {
             if (plot != null) {
                 AtomicFiles.write(plot, AtomicFiles.markedSvg(ReplayPlot.svg(r)), List.of(record, loopFile));
             }
+            Path written = outDir == null ? null : writeFolder(List.of(r), List.of(), List.of(record, loopFile));
             out.print(json ? ReplayReport.json(r) : ReplayReport.text(r));
             if (plot != null && !json) {
                 out.println("Plot written to " + plot);
+            }
+            if (written != null && !json) {
+                out.println("Replay summary written to " + written);
             }
             out.flush();
             return r.verdict() == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
@@ -145,13 +158,25 @@ final class ReplayCommand implements Callable<Integer> {
                 bad.addAll(e.problems());
             }
         }
+        Path written = outDir == null || results.isEmpty() && missing.isEmpty() ? null
+                : writeFolder(results, missing, List.of(record, listFile));
         out.print(json ? ReplayReport.json(results, missing) : ReplayReport.text(results, missing));
+        if (written != null && !json) {
+            out.println("Replay summary written to " + written);
+        }
         out.flush();
         if (!bad.isEmpty()) {
             bad.forEach(b -> spec.commandLine().getErr().println("loopform: " + b));
             return ExitCodes.BAD_INPUT;
         }
         return results.stream().anyMatch(r -> r.verdict() == Severity.FAIL) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+    }
+
+    private Path writeFolder(List<ReplayResult> results, List<String> missing, List<Path> inputs) {
+        java.util.Map<String, String> files = new java.util.LinkedHashMap<>();
+        files.put("replay.csv", ReplayCsv.csv(results, missing));
+        files.put("replay.json", ReplayReport.json(results, missing));
+        return FolderOutput.write(outDir, force, files, inputs);
     }
 
     private Iterator<LoopRow> rows(LoopDefaults defaults) {
