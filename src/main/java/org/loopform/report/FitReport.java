@@ -56,7 +56,9 @@ public final class FitReport {
         sb.append(nl).append("Recommended: ").append(r.reason()).append('.').append(nl);
         findings(sb, r.findings());
         sb.append(nl).append("Intervals assume the model's form is right and the noise independent of the output (a"
-                + " lag-one residual correlation widens them); check the fit against the record before tuning on it.")
+                + " lag-one residual correlation widens them), and the output's moves logged when they happen (the"
+                + " dead time's upper end allows one logging interval); check the fit against the record (--plot)"
+                + " before tuning on it.")
                 .append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
     }
