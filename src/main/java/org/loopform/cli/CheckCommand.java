@@ -14,6 +14,7 @@ import org.loopform.findings.PolicyKey;
 import org.loopform.io.AtomicFiles;
 import org.loopform.io.LoopFileReader;
 import org.loopform.io.PolicyFileReader;
+import org.loopform.io.ProcessReader;
 import org.loopform.report.Cautions;
 import org.loopform.report.LoopPlots;
 import org.loopform.units.Measure;
@@ -52,6 +53,11 @@ final class CheckCommand implements Callable<Integer> {
             description = "Target scan time, overriding the loop file's (e.g. 0.5s, 250ms).")
     Double scanSeconds;
 
+    @Option(names = "--process", paramLabel = "MODEL|FILE", description = "The process, replacing the loop file's"
+            + " (or giving one it lacks): an inline mapping such as \"{model: fopdt, gain: 2, time_constant: 60 s,"
+            + " dead_time: 10 s}\", or a YAML file holding one (a 'fit --write-process' file, or a loop file).")
+    String process;
+
     @Option(names = "--sweep-scan", paramLabel = "FROM..TO", description = "Check across scan times from FROM to TO"
             + " (e.g. 0.1s..5s) and name the longest that keeps the loop within the policy.")
     String sweep;
@@ -75,6 +81,11 @@ final class CheckCommand implements Callable<Integer> {
                 : PolicyFileReader.read(policyFile, policyFile.toString());
         if (scanSeconds != null) {
             loop = loop.withTargetScan(scanSeconds);
+        }
+        if (process != null) {
+            loop = new LoopSpec(loop.tag(), ProcessReader.fromOption(process, "--process", loop.pvRange(),
+                    loop.outputRange()), loop.sourceForm(), loop.tuning(), loop.sourceScanSeconds(), loop.targetForm(),
+                    loop.targetScanSeconds(), loop.pvRange(), loop.outputRange(), loop.where());
         }
         var out = spec.commandLine().getOut();
         if (sweep != null) {

@@ -16,6 +16,7 @@ import org.loopform.io.AtomicFiles;
 import org.loopform.io.InputException;
 import org.loopform.io.RecordCsvReader;
 import org.loopform.report.Cautions;
+import org.loopform.report.FitPlot;
 import org.loopform.report.FitReport;
 import org.loopform.units.Span;
 import picocli.CommandLine.Command;
@@ -29,7 +30,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "fit", mixinStandardHelpOptions = true,
         description = {"Fits FOPDT, SOPDT and integrating-plus-dead-time models to a logged open-loop test (one or"
                 + " several output steps, or a pulse) by least squares on the response simulated from the recorded"
-                + " output, with 95 % intervals, and recommends one; or, with --relay, reads the ultimate gain and"
+                + " output, with 95 %% intervals, and recommends one; or, with --relay, reads the ultimate gain and"
                 + " period from a relay-feedback test. Says when the record cannot support a model."},
         footer = {"", "Examples:",
                 "  loopform fit bump.csv --time time --output out --pv pv",
@@ -71,6 +72,10 @@ final class FitCommand implements Callable<Integer> {
             + " file's process block (never over an existing file).")
     Path writeProcess;
 
+    @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the recorded PV with the fitted"
+            + " responses, the recorded output and the recommended model's residuals (step tests).")
+    Path plot;
+
     @Mixin
     FormatOption format;
 
@@ -80,9 +85,16 @@ final class FitCommand implements Callable<Integer> {
             throw new InputException(writeProcess + ": --write-process: the file exists; loopform never writes over"
                     + " an existing file here: choose a new name");
         }
+        if (plot != null && writeProcess != null && plot.toAbsolutePath().normalize()
+                .equals(writeProcess.toAbsolutePath().normalize())) {
+            throw new InputException(plot + ": --plot and --write-process name the same file; give two names");
+        }
         PlantRecord r = RecordCsvReader.read(record, record.toString(), time, output, pv, outRange, pvRange);
         var out = spec.commandLine().getOut();
         boolean json = format.format == OutputFormat.json;
+        if (relay && plot != null) {
+            throw new InputException("--plot: draws a step test's fits; leave it out with --relay");
+        }
         if (relay) {
             RelayResult rr = RelayAnalysis.analyze(r);
             out.print(json ? FitReport.relayJson(rr) : FitReport.relayText(rr));
@@ -91,11 +103,18 @@ final class FitCommand implements Callable<Integer> {
         }
         StepTestResult res = StepIdentification.identify(r, pvRange != null && outRange != null);
         ModelFit best = res.recommendedFit();
+        // the plot first: its checks (a file loopform did not write) can still refuse; the process file's were made
+        if (plot != null) {
+            AtomicFiles.write(plot, AtomicFiles.markedSvg(FitPlot.svg(r, res)), List.of(record));
+        }
         if (writeProcess != null && best != null) {
             AtomicFiles.write(writeProcess, FitReport.processBlock(best, record.getFileName().toString()),
                     List.of(record));
         }
         out.print(json ? FitReport.json(res) : FitReport.text(res));
+        if (plot != null && !json) {
+            out.println("Plot written to " + plot);
+        }
         if (writeProcess != null && !json) {
             out.println(best != null ? "Process block written to " + writeProcess
                     : "No process block written: no model is recommended.");

@@ -15,6 +15,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.AtomicFiles;
 import org.loopform.io.CatalogLoader;
+import org.loopform.io.FolderOutput;
 import org.loopform.io.InputException;
 import org.loopform.io.LoopCsvReader;
 import org.loopform.io.LoopFileReader;
@@ -25,6 +26,7 @@ import org.loopform.io.TrendCsvReader;
 import org.loopform.replay.LoopReplay;
 import org.loopform.replay.ReplayResult;
 import org.loopform.report.Cautions;
+import org.loopform.report.ReplayCsv;
 import org.loopform.report.ReplayPlot;
 import org.loopform.report.ReplayReport;
 import picocli.CommandLine.Command;
@@ -80,6 +82,17 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the logged output and both replays (one loop).")
     Path plot;
 
+    @Option(names = "--to", paramLabel = "ID|FILE", description = "Target form for every loop (replaces the list's"
+            + " target_form and the loop file's target form).")
+    String to;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Write replay.csv (one row a loop) and replay.json"
+            + " into DIR (a new folder, or loopform's own earlier output with --force).")
+    Path outDir;
+
+    @Option(names = "--force", description = "Replace an earlier loopform output in the --out folder.")
+    boolean force;
+
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")
     Path policyFile;
 
@@ -92,6 +105,8 @@ final class ReplayCommand implements Callable<Integer> {
             throw new InputException("replay: give exactly one of --loop LOOP.yaml (RECORD is a file) or --list LIST"
                     + " (RECORD is a folder of TAG.csv records)");
         }
+        LoopDefaults defaults = to == null ? LoopDefaults.NONE
+                : new LoopDefaults(CatalogLoader.resolve(to, "--to"), null);
         CheckPolicy policy = policyFile == null ? CheckPolicy.DEFAULT
                 : PolicyFileReader.read(policyFile, policyFile.toString());
         TrendColumns columns = new TrendColumns(time, setpoint, pv, output, mode, tracking);
@@ -99,15 +114,19 @@ final class ReplayCommand implements Callable<Integer> {
         var out = spec.commandLine().getOut();
         boolean json = format.format == OutputFormat.json;
         if (loopFile != null) {
-            LoopSpec loop = LoopFileReader.readOne(loopFile, loopFile.toString());
+            LoopSpec loop = defaults.apply(LoopFileReader.readOne(loopFile, loopFile.toString()));
             ReplayResult r = LoopReplay.run(loop, TrendCsvReader.read(record, record.toString(), columns), catalog,
                     policy);
             if (plot != null) {
                 AtomicFiles.write(plot, AtomicFiles.markedSvg(ReplayPlot.svg(r)), List.of(record, loopFile));
             }
+            Path written = outDir == null ? null : writeFolder(List.of(r), List.of(), List.of(record, loopFile));
             out.print(json ? ReplayReport.json(r) : ReplayReport.text(r));
             if (plot != null && !json) {
                 out.println("Plot written to " + plot);
+            }
+            if (written != null && !json) {
+                out.println("Replay summary written to " + written);
             }
             out.flush();
             return r.verdict() == Severity.FAIL ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
@@ -121,7 +140,7 @@ final class ReplayCommand implements Callable<Integer> {
         List<ReplayResult> results = new ArrayList<>();
         List<String> missing = new ArrayList<>();
         List<String> bad = new ArrayList<>();
-        for (Iterator<LoopRow> it = rows(); it.hasNext(); ) {
+        for (Iterator<LoopRow> it = rows(defaults); it.hasNext(); ) {
             LoopRow row = it.next();
             if (!row.ok()) {
                 bad.addAll(row.problems());
@@ -139,7 +158,12 @@ final class ReplayCommand implements Callable<Integer> {
                 bad.addAll(e.problems());
             }
         }
+        Path written = outDir == null || results.isEmpty() && missing.isEmpty() ? null
+                : writeFolder(results, missing, List.of(record, listFile));
         out.print(json ? ReplayReport.json(results, missing) : ReplayReport.text(results, missing));
+        if (written != null && !json) {
+            out.println("Replay summary written to " + written);
+        }
         out.flush();
         if (!bad.isEmpty()) {
             bad.forEach(b -> spec.commandLine().getErr().println("loopform: " + b));
@@ -148,13 +172,20 @@ final class ReplayCommand implements Callable<Integer> {
         return results.stream().anyMatch(r -> r.verdict() == Severity.FAIL) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }
 
-    private Iterator<LoopRow> rows() {
+    private Path writeFolder(List<ReplayResult> results, List<String> missing, List<Path> inputs) {
+        java.util.Map<String, String> files = new java.util.LinkedHashMap<>();
+        files.put("replay.csv", ReplayCsv.csv(results, missing));
+        files.put("replay.json", ReplayReport.json(results, missing));
+        return FolderOutput.write(outDir, force, files, inputs);
+    }
+
+    private Iterator<LoopRow> rows(LoopDefaults defaults) {
         String lower = listFile.getFileName().toString().toLowerCase(Locale.ROOT);
         if (lower.endsWith(".yaml") || lower.endsWith(".yml")) {
-            return LoopFileReader.rows(listFile, listFile.toString(), LoopDefaults.NONE).iterator();
+            return LoopFileReader.rows(listFile, listFile.toString(), defaults).iterator();
         }
         List<LoopRow> rows = new ArrayList<>();
-        try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), LoopDefaults.NONE)) {
+        try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), defaults)) {
             reader.forEachRemaining(rows::add);
         }
         return rows.iterator();

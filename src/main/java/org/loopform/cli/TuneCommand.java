@@ -16,10 +16,15 @@ import org.loopform.form.Converter;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.WritingContext;
 import org.loopform.io.CatalogLoader;
+import org.loopform.io.ConfidenceBoxReader;
 import org.loopform.io.ProcessReader;
 import org.loopform.process.ProcessModel;
 import org.loopform.report.Cautions;
+import org.loopform.report.RobustReport;
 import org.loopform.report.TuneReport;
+import org.loopform.tuning.ConfidenceBox;
+import org.loopform.tuning.RobustCheck;
+import org.loopform.tuning.RobustResult;
 import org.loopform.tuning.ControllerType;
 import org.loopform.tuning.PublishedTuning;
 import org.loopform.tuning.Rule;
@@ -103,6 +108,11 @@ final class TuneCommand implements Callable<Integer> {
             description = "Output range in engineering units.")
     Span outRange;
 
+    @Option(names = "--robust", description = "Also check the tuning at every corner of the fit's 95 %% box (--process"
+            + " FILE written by 'fit --write-process') and report the worst Ms and margins; exit 1 if a corner is"
+            + " unstable.")
+    boolean robust;
+
     @Mixin
     FormatOption format;
 
@@ -121,6 +131,14 @@ final class TuneCommand implements Callable<Integer> {
             throw new BadInput("--process or --ultimate: give exactly one (a model, or KU,TU from a field test)");
         }
         FormDefinition target = CatalogLoader.resolve(to, "--to");
+        ConfidenceBox box = null;
+        if (robust) {
+            if (process == null) {
+                throw new BadInput("--robust: needs --process FILE written by 'loopform fit --write-process' (its 95 %"
+                        + " intervals); a field test's --ultimate has none");
+            }
+            box = ConfidenceBoxReader.read(process, "--process");
+        }
         ProcessModel p = null;
         PublishedTuning t;
         RuleOptions options = new RuleOptions(tauCSeconds, lambdaSeconds,
@@ -162,9 +180,19 @@ final class TuneCommand implements Callable<Integer> {
                 failed |= !design.designStability().isStable();
             }
         }
+        RobustResult robustness = null;
+        if (box != null) {
+            LoopSpec nominal = scanSeconds != null
+                    ? new LoopSpec("tune", p, source, values, null, target, scanSeconds, pvRange, outRange, "--process")
+                    : new LoopSpec("tune", p, source, values, null, source, nominalScanSeconds(t, p), pvRange,
+                    outRange, "--process");
+            robustness = RobustCheck.run(nominal, box, CheckPolicy.DEFAULT, scanSeconds != null);
+            failed |= robustness.unstableCorners() > 0;
+        }
         var out = spec.commandLine().getOut();
-        out.print(format.format == OutputFormat.json ? TuneReport.json(t, conv, convFindings, design, check)
-                : TuneReport.text(t, conv, convFindings, values, design, check));
+        out.print(format.format == OutputFormat.json ? TuneReport.json(t, conv, convFindings, design, check, robustness)
+                : TuneReport.text(t, conv, convFindings, values, design, check)
+                + (robustness == null ? "" : RobustReport.text(robustness)));
         out.flush();
         return failed ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }

@@ -2,10 +2,11 @@ package org.loopform.identify;
 
 /**
  * One model fitted to a record, with 95 % intervals. Gains %/% (integrating: %/s per %), times s.
- * The gain's and time constants' intervals come from the Jacobian at the optimum (the covariance
- * {@code s^2 (J^T J)^-1}, positive parameters fitted by their logarithm, the variance inflated by
- * {@code (1 + r1)/(1 - r1)} for residuals correlated at lag one); the dead time's from its own profile
- * (the dead times whose best cost stays within the 95 % likelihood-ratio bound).
+ * The gain's and time constants' intervals come from the Jacobian at the optimum, the dead time among its
+ * columns (the covariance {@code s^2 (J^T J)^-1}, positive parameters fitted by their logarithm, the variance
+ * inflated by {@code (1 + r1)/(1 - r1)} for residuals correlated at lag one); the dead time's from its own
+ * profile (the dead times whose best cost stays within the 95 % likelihood-ratio bound), its upper end
+ * widened by the logging interval before the output's moves (a move shows at the first sample after it).
  *
  * @param kind the model
  * @param gain K or Kv

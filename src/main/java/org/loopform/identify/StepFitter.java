@@ -181,7 +181,11 @@ final class StepFitter {
         double[] se = new double[in.params.length];
         java.util.Arrays.fill(se, Double.NaN);
         try {
-            RealMatrix j = new Array2DRowRealMatrix(jacobian(in.params, input, y), false);
+            // the dead time joins the Jacobian (central difference over one simulation grid step, the finest shift
+            // the held input can make), so the other parameters' intervals allow for its trade-off with them
+            // instead of holding it at its best value
+            RealMatrix j = new Array2DRowRealMatrix(withDeadTimeColumn(jacobian(in.params, input, y), in.params,
+                    deadTime), false);
             RealMatrix cov = new LUDecomposition(j.transpose().multiply(j)).getSolver().getInverse().scalarMultiply(s2);
             for (int k = 0; k < se.length; k++) {
                 se[k] = Math.sqrt(Math.max(0, cov.getEntry(k, k)));
@@ -193,7 +197,9 @@ final class StepFitter {
         double nEff = n / inflation;
         double bound = ssr * Math.exp(CHI2_1_95 / nEff);
         double lo = edge(deadTime, 0, grid, costs, bound, in.params);
-        double hi = edge(deadTime, grid[grid.length - 1], grid, costs, bound, in.params);
+        // the record shows an output move only at the first sample after it: the move may have come up to one
+        // logging interval earlier, and the dead time be longer by as much
+        double hi = edge(deadTime, grid[grid.length - 1], grid, costs, bound, in.params) + moveTimingSeconds();
         double rms = Math.sqrt(ssr / n);
         double r2 = sst > 0 ? 1 - ssr / sst : 0;
         double aic = n * Math.log(Math.max(ssr, 1e-300) / n) + 2 * p;
@@ -253,6 +259,41 @@ final class StepFitter {
             }
         }
         return outside;
+    }
+
+    /** {@code j} with a last column: the prediction's derivative in the dead time at {@code deadTime}. */
+    private double[][] withDeadTimeColumn(double[][] j, double[] params, double deadTime) {
+        double h = sim.gridStepSeconds();
+        double[] up = predict(params, sim.delayedInput(deadTime + h));
+        double[] down = predict(params, sim.delayedInput(Math.max(0, deadTime - h)));
+        double span = deadTime + h - Math.max(0, deadTime - h);
+        double[][] out = new double[j.length][];
+        for (int r = 0; r < j.length; r++) {
+            out[r] = java.util.Arrays.copyOf(j[r], j[r].length + 1);
+            out[r][j[r].length] = (up[r] - down[r]) / span;
+        }
+        return out;
+    }
+
+    /** Output moves smaller than this share of the largest are not used to time the dead time. */
+    static final double MOVE_SHARE = 0.1;
+
+    /**
+     * The longest logging interval that ends at a sample showing an output move of at least {@link #MOVE_SHARE}
+     * of the largest: how much earlier than logged a move that the fit times may have happened, s.
+     */
+    double moveTimingSeconds() {
+        double largest = 0;
+        for (int k = 1; k < record.size(); k++) {
+            largest = Math.max(largest, Math.abs(record.output(k) - record.output(k - 1)));
+        }
+        double longest = 0;
+        for (int k = 1; k < record.size(); k++) {
+            if (largest > 0 && Math.abs(record.output(k) - record.output(k - 1)) >= MOVE_SHARE * largest) {
+                longest = Math.max(longest, record.time(k) - record.time(k - 1));
+            }
+        }
+        return longest;
     }
 
     /** Bisection steps locating each end of the dead-time interval. */

@@ -1,5 +1,6 @@
 package org.loopform.io;
 
+import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.Reader;
 import java.nio.charset.StandardCharsets;
@@ -36,9 +37,22 @@ public final class RecordCsvReader {
         List<Double> t = new ArrayList<>();
         List<Double> u = new ArrayList<>();
         List<Double> y = new ArrayList<>();
-        try (Reader in = Files.newBufferedReader(file, StandardCharsets.UTF_8);
-             CSVParser p = CSVFormat.DEFAULT.builder().setHeader().setSkipHeaderRecord(true).setTrim(true)
-                     .setIgnoreEmptyLines(true).build().parse(in)) {
+        try (Utf8Reader raw = TextInput.open(file, name); BufferedReader in = new BufferedReader(raw, 1 << 16)) {
+            String first = in.readLine();
+            if (first != null && first.startsWith("\uFEFF")) {
+                first = first.substring(1);
+            }
+            if (first == null || first.isBlank()) {
+                throw new InputException(name + ":1: the first line must be a header naming the columns, such as"
+                        + " time,output,pv");
+            }
+            char separator = LoopCsvReader.separator(first);
+            CSVFormat cells = CSVFormat.DEFAULT.builder().setDelimiter(separator).setTrim(true).build();
+            String[] names;
+            try (CSVParser hp = cells.parse(new java.io.StringReader(first))) {
+                names = hp.getRecords().get(0).values();
+            }
+            CSVParser p = cells.builder().setHeader(names).setIgnoreEmptyLines(true).build().parse(in);
             Map<String, Integer> header = p.getHeaderMap();
             String tc = column(header, timeColumn, "--time", name);
             String uc = column(header, outputColumn, "--output", name);
@@ -73,7 +87,9 @@ public final class RecordCsvReader {
                 u.add(outRange == null ? out : 100 * (out - outRange.low()) / outRange.width());
                 y.add(pvRange == null ? pv : 100 * (pv - pvRange.low()) / pvRange.width());
             }
-        } catch (IOException e) {
+        } catch (NotUtf8Exception e) {
+            throw e.toInput();
+        } catch (IOException | java.io.UncheckedIOException e) {
             throw new InputException(name + ": cannot be read (" + e.getMessage() + "); check the path");
         } catch (IllegalArgumentException | IllegalStateException e) {
             throw new InputException(name + ": is not a CSV file with a header row (" + e.getMessage() + ")");
@@ -113,7 +129,8 @@ public final class RecordCsvReader {
             // reported below
         }
         throw new InputException(name + ":" + line + ": " + column + ": must be a number with a decimal point (got '"
-                + cell + "'); fill the gap or remove the row");
+                + cell + "'); " + (cell.matches("[-+]?\\d+,\\d+") ? "write the decimal separator as a point"
+                : "fill the gap or remove the row"));
     }
 
     private static Instant instant(String text) {

@@ -56,7 +56,9 @@ public final class FitReport {
         sb.append(nl).append("Recommended: ").append(r.reason()).append('.').append(nl);
         findings(sb, r.findings());
         sb.append(nl).append("Intervals assume the model's form is right and the noise independent of the output (a"
-                + " lag-one residual correlation widens them); check the fit against the record before tuning on it.")
+                + " lag-one residual correlation widens them), and the output's moves logged when they happen (the"
+                + " dead time's upper end allows one logging interval); check the fit against the record (--plot)"
+                + " before tuning on it.")
                 .append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
     }
@@ -175,6 +177,16 @@ public final class FitReport {
         return Json.write(n);
     }
 
+    /** One {@code key: LO..HI} line; an interval the fit did not determine is left out (and said so). */
+    private static void interval(StringBuilder sb, String key, double lo, double hi) {
+        if (Double.isFinite(lo) && Double.isFinite(hi) && hi > lo) {
+            sb.append("  ").append(key).append(": ").append(Numbers.significant(lo, 6)).append("..")
+                    .append(Numbers.significant(hi, 6)).append('\n');
+        } else {
+            sb.append("  # ").append(key).append(": not determined by the fit").append('\n');
+        }
+    }
+
     /** A loop file's process block for {@code f}, marked as written by loopform. */
     public static String processBlock(ModelFit f, String recordName) {
         String nl = "\n";
@@ -189,6 +201,16 @@ public final class FitReport {
             sb.append("  time_constant_2: ").append(Numbers.significant(f.secondLagSeconds(), 6)).append(" s").append(nl);
         }
         sb.append("  dead_time: ").append(Numbers.significant(f.deadTimeSeconds(), 6)).append(" s").append(nl);
+        sb.append("# the fit's 95 % intervals (gain as above, times in s); tune --robust checks a tuning at the corners")
+                .append(nl).append("intervals:").append(nl);
+        interval(sb, "gain", f.gainLow(), f.gainHigh());
+        if (f.kind() != ModelKind.IPDT) {
+            interval(sb, "time_constant", f.lagLow(), f.lagHigh());
+        }
+        if (f.kind() == ModelKind.SOPDT) {
+            interval(sb, "time_constant_2", f.secondLagLow(), f.secondLagHigh());
+        }
+        interval(sb, "dead_time", f.deadTimeLow(), f.deadTimeHigh());
         return sb.toString();
     }
 }

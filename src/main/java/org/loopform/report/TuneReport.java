@@ -97,6 +97,12 @@ public final class TuneReport {
 
     public static String json(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings, CheckResult design,
                               CheckResult check) {
+        return json(t, c, convFindings, design, check, null);
+    }
+
+    /** As above, with {@code "robust"} ({@link RobustReport#json}) when {@code robust} is given. */
+    public static String json(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings, CheckResult design,
+                              CheckResult check, org.loopform.tuning.RobustResult robust) {
         ObjectNode n = Json.object();
         n.put("rule", t.rule().id());
         n.put("controller", t.controller().id());
@@ -149,6 +155,9 @@ public final class TuneReport {
             n.putNull("check");
         }
         n.set("findings", Json.findings(check != null ? check.findings() : convFindings));
+        if (robust != null) {
+            n.set("robust", RobustReport.json(robust));
+        }
         return Json.write(n);
     }
 
