@@ -401,7 +401,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         }
         try {
             String p = idOrPath;
-            if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !Path.of(p).isAbsolute()
+            if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !UserPath.of(p, column, "a catalog id or the path of a form file").isAbsolute()
                     && Files.isRegularFile(folder.resolve(p))) {
                 p = folder.resolve(p).toString();
             }

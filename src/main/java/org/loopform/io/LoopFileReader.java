@@ -189,7 +189,7 @@ public final class LoopFileReader {
             String p = idOrPath;
             Path base = Path.of(block.file()).toAbsolutePath().getParent();
             if (!org.loopform.io.CatalogLoader.bundled().find(p).isPresent() && base != null
-                    && !Path.of(p).isAbsolute() && java.nio.file.Files.isRegularFile(base.resolve(p))) {
+                    && !UserPath.of(p, key, "a catalog id or the path of a form file").isAbsolute() && java.nio.file.Files.isRegularFile(base.resolve(p))) {
                 p = base.resolve(p).toString();
             }
             return CatalogLoader.resolve(p, "form");
