@@ -49,8 +49,8 @@ for t in "${TARGETS[@]}"; do
     result="FOUND SOMETHING: see $log"
     status=1
   fi
-  runs=$(grep -oE '^(#[0-9]+)\s+(DONE|pulse|NEW|REDUCE|INITED)' "$log" | tail -1 | grep -oE '[0-9]+' | head -1 || true)
-  done_line=$(grep -oE 'Done [0-9]+ runs in [0-9]+ second' "$log" | tail -1 || true)
+  runs=$(grep -aoE '^(#[0-9]+)\s+(DONE|pulse|NEW|REDUCE|INITED)' "$log" | tail -1 | grep -oE '[0-9]+' | head -1 || true)
+  done_line=$(grep -aoE 'Done [0-9]+ runs in [0-9]+ second' "$log" | tail -1 || true)
   if [ -n "$done_line" ]; then
     runs=$(echo "$done_line" | grep -oE '[0-9]+' | head -1)
   fi
