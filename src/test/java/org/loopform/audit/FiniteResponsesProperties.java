@@ -72,7 +72,7 @@ class FiniteResponsesProperties {
                 .as((p, kc, ti, tdShare, n, target, scan) -> new Loop(p, kc, ti, ti * tdShare, n, target, scan));
     }
 
-    @Property(tries = 30, seed = "20261203")
+    @Property(tries = 20, seed = "20261203")
     void every_figure_of_an_accepted_loop_is_finite_or_none(@ForAll("loops") Loop loop) {
         CheckResult result;
         try {

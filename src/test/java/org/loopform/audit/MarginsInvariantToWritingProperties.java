@@ -61,7 +61,7 @@ class MarginsInvariantToWritingProperties {
                         target, scan));
     }
 
-    @Property(tries = 25, seed = "20261204")
+    @Property(tries = 10, seed = "20261204")
     void the_same_law_in_any_form_has_the_same_margins(@ForAll("cases") Case c) {
         double kc = Math.signum(c.processGain()) * c.aggressiveness() * c.lagSeconds()
                 / (Math.abs(c.processGain()) * c.deadSeconds());

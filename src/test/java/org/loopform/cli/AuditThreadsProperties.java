@@ -57,7 +57,7 @@ class AuditThreadsProperties {
 
     @Provide
     Arbitrary<List<String>> lists() {
-        return rows().list().ofMinSize(6).ofMaxSize(12);
+        return rows().list().ofMinSize(5).ofMaxSize(8);
     }
 
     @Property(tries = 2, seed = "20261205")
