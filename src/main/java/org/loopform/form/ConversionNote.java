@@ -23,7 +23,7 @@ public sealed interface ConversionNote {
      * @param filterBound       whether the target cannot follow the source's derivative filter
      *                          (fixed ratio, no filter, or an unfiltered source)
      * @param sourceHighFrequencyGain the source law's high-frequency derivative gain, %/% (infinite unfiltered)
-     * @param targetHighFrequencyGain the target law's, %/%
+     * @param targetHighFrequencyGain the target law's, %/% (infinite unfiltered)
      * @param feedbackExact     whether the feedback paths are the same rational function
      * @param setpoint          the setpoint path's deviation where the loop lives
      */

@@ -51,11 +51,11 @@ public final class CatalogLoader {
         if (found.isPresent()) {
             return found.get();
         }
-        Path p = Path.of(idOrPath);
+        Path p = UserPath.of(idOrPath, option, "a catalog id or the path of a form file");
         if (Files.isRegularFile(p)) {
             return FormFileReader.read(p, idOrPath);
         }
-        throw new InputException(option + ": unknown form '" + idOrPath + "'; give a catalog id ("
+        throw new InputException(option + ": unknown form '" + UserPath.visible(idOrPath) + "'; give a catalog id ("
                 + String.join(", ", catalog.ids()) + ") or the path of a form file");
     }
 

@@ -25,7 +25,7 @@ final class LoopFields {
      */
     static FormDefinition form(String idOrPath, Path folder, String column) {
         String p = idOrPath;
-        if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !Path.of(p).isAbsolute()
+        if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !UserPath.of(p, column, "a catalog id or the path of a form file").isAbsolute()
                 && Files.isRegularFile(folder.resolve(p))) {
             p = folder.resolve(p).toString();
         }

@@ -13,8 +13,17 @@ public final class PolicyFileReader {
     private PolicyFileReader() {
     }
 
+    /** The policy in the file at {@code path}, named {@code shownName} in messages. */
     public static CheckPolicy read(Path path, String shownName) {
-        YamlNode root = YamlSource.read(path, shownName);
+        return fromRoot(YamlSource.read(path, shownName), shownName);
+    }
+
+    /** The policy in YAML {@code text} (tests, fuzzing), named {@code shownName} in messages. */
+    public static CheckPolicy parse(String text, String shownName) {
+        return fromRoot(YamlSource.parse(text, shownName), shownName);
+    }
+
+    private static CheckPolicy fromRoot(YamlNode root, String shownName) {
         List<String> problems = new ArrayList<>(root.unknownKeys(CheckPolicy.DEFAULT.asMap().keySet()));
         Map<String, Double> m = new LinkedHashMap<>();
         Map<String, YamlNode> entries = root.entries();

@@ -60,7 +60,7 @@ public final class ProcessReader {
         if (trimmed.startsWith("{")) {
             root = YamlSource.parse(trimmed, option);
         } else {
-            java.nio.file.Path path = java.nio.file.Path.of(trimmed);
+            java.nio.file.Path path = UserPath.of(trimmed, option, "an inline mapping or the path of a YAML file");
             if (!java.nio.file.Files.isRegularFile(path)) {
                 throw new InputException(option + ": '" + trimmed + "' is neither an inline mapping such as {model: fopdt,"
                         + " gain: 2, time_constant: 60 s, dead_time: 10 s} nor a readable file");
