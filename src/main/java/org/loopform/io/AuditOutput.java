@@ -53,14 +53,15 @@ public final class AuditOutput implements AutoCloseable {
     private final CSVPrinter entrySheet;
     private final JsonGenerator json;
     private final Writer sections;
+    private final Writer index;
     private int plotted;
     private boolean finished;
     private boolean abandoned;
 
-    /** Writes the report document around its loop sections, which it reads from {@code sections}. */
+    /** Writes the report document around its index lines and loop sections, read from {@code index} and {@code sections}. */
     @FunctionalInterface
     public interface DocumentWriter {
-        void write(Writer out, Reader sections) throws IOException;
+        void write(Writer out, Reader index, Reader sections) throws IOException;
     }
 
     private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders,
@@ -89,6 +90,7 @@ public final class AuditOutput implements AutoCloseable {
             json.writeArrayFieldStart("loops");
             this.sections = html ? Files.newBufferedWriter(temp.resolve(".sections.html"), StandardCharsets.UTF_8)
                     : null;
+            this.index = html ? Files.newBufferedWriter(temp.resolve(".index.html"), StandardCharsets.UTF_8) : null;
         } catch (IOException | RuntimeException e) {
             abandon();
             Runtime.getRuntime().removeShutdownHook(cleanup);
@@ -143,13 +145,16 @@ public final class AuditOutput implements AutoCloseable {
      * null when the loop wants none) while fewer than {@link #PLOTTED_LOOPS} loops have them.
      */
     public void accept(List<String> loopRow, List<List<String>> entryRows, String loopJson, String section,
-                       String sectionWithPlots) {
+                       String sectionWithPlots, String indexRow) {
         try {
             loopsCsv.printRecord(loopRow);
             for (List<String> row : entryRows) {
                 entrySheet.printRecord(row);
             }
             json.writeRawValue(loopJson);
+            if (index != null && indexRow != null) {
+                index.write(indexRow);
+            }
             if (sections != null) {
                 if (sectionWithPlots != null && plotted < PLOTTED_LOOPS) {
                     plotted++;
@@ -169,12 +174,17 @@ public final class AuditOutput implements AutoCloseable {
     }
 
     /**
-     * Writes {@code summary} as loops.json's summary and the report through {@code document}, then
-     * moves the folder into place.
+     * Writes {@code summary} as loops.json's summary, each of {@code more} as a key of its own beside
+     * it (the sign-off and provenance), and the report through {@code document}, then moves the folder
+     * into place.
      */
-    public void finish(JsonNode summary, DocumentWriter document) {
+    public void finish(JsonNode summary, java.util.Map<String, ? extends JsonNode> more, DocumentWriter document) {
         try {
             json.writeEndArray();
+            for (var e : more.entrySet()) {
+                json.writeFieldName(e.getKey());
+                MAPPER.writeTree(json, e.getValue());
+            }
             json.writeFieldName("summary");
             MAPPER.writeTree(json, summary);
             json.writeEndObject();
@@ -183,12 +193,16 @@ public final class AuditOutput implements AutoCloseable {
             entrySheet.close();
             if (sections != null) {
                 sections.close();
+                index.close();
                 Path sectionFile = temp.resolve(".sections.html");
+                Path indexFile = temp.resolve(".index.html");
                 try (Writer out = new BufferedWriter(Files.newBufferedWriter(temp.resolve("report.html"),
-                        StandardCharsets.UTF_8)); Reader in = Files.newBufferedReader(sectionFile, StandardCharsets.UTF_8)) {
-                    document.write(out, in);
+                        StandardCharsets.UTF_8)); Reader in = Files.newBufferedReader(sectionFile, StandardCharsets.UTF_8);
+                     Reader idx = Files.newBufferedReader(indexFile, StandardCharsets.UTF_8)) {
+                    document.write(out, idx, in);
                 }
                 Files.delete(sectionFile);
+                Files.delete(indexFile);
             }
             OutputFolder.markFinished(temp);
             moveIntoPlace();
@@ -285,7 +299,7 @@ public final class AuditOutput implements AutoCloseable {
     }
 
     private void closeQuietly() {
-        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections}) {
+        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections, index}) {
             try {
                 if (c != null) {
                     c.close();

@@ -10,6 +10,7 @@ import java.util.stream.Collectors;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.audit.AuditSummary;
+import org.loopform.audit.InputFile;
 import org.loopform.check.CheckResult;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.check.Verdict;
@@ -206,6 +207,43 @@ public final class AuditRows {
         return Json.write(n);
     }
 
+    /**
+     * loops.json's {@code signoff}: the names, change and revision given (empty strings where the
+     * printed report leaves a line to sign).
+     */
+    public static ObjectNode signOffJson(AuditInfo info) {
+        ObjectNode n = Json.object();
+        n.put("prepared_by", info.signOff().preparedBy());
+        n.put("checked_by", info.signOff().checkedBy());
+        n.put("approved_by", info.signOff().approvedBy());
+        n.put("change", info.signOff().change());
+        n.put("revision", info.signOff().revision());
+        return n;
+    }
+
+    /**
+     * loops.json's {@code provenance}: loopform's version, when the audit ran (ISO 8601 with zone),
+     * the loop list, every input file with its SHA-256, the inputs' fingerprint, and the policy in force.
+     */
+    public static ObjectNode provenanceJson(AuditInfo info) {
+        ObjectNode n = Json.object();
+        n.put("loopform_version", info.version());
+        n.put("written_at", info.generatedAt());
+        n.put("loop_list", info.input());
+        n.put("settings", info.settings());
+        ArrayNode files = n.putArray("inputs");
+        for (InputFile f : info.inputs()) {
+            ObjectNode fn = files.addObject();
+            fn.put("role", f.role());
+            fn.put("file", f.name());
+            fn.put("sha256", f.sha256());
+        }
+        n.put("input_fingerprint", info.fingerprint());
+        ObjectNode policy = n.putObject("policy");
+        info.policy().asMap().forEach(policy::put);
+        return n;
+    }
+
     public static ObjectNode summaryJson(AuditSummary s) {
         ObjectNode n = Json.object();
         n.put("loops", s.loops());
@@ -265,13 +303,19 @@ public final class AuditRows {
             TextTable t = new TextTable("tag", "verdict", "fails", "warns", "worst finding");
             int shown = 0;
             for (AuditSummary.Worst w : s.worst()) {
-                if (shown++ == 12) {
+                if (shown == 12) {
                     break;
                 }
+                shown++;
                 String h = w.headline().length() > 90 ? w.headline().substring(0, 87) + "..." : w.headline();
                 t.row(w.tag(), w.verdict().id(), Integer.toString(w.fails()), Integer.toString(w.warns()), h);
             }
             sb.append(t.render(2));
+            int notPassing = s.count(Verdict.FAIL) + s.count(Verdict.WARN);
+            if (notPassing > shown) {
+                sb.append("  ... and ").append(notPassing - shown).append(" more that warn or fail; every loop is in"
+                        + " loops.csv and in the report's index").append(nl);
+            }
         }
         if (!s.assumptions().isEmpty()) {
             sb.append(nl).append("Assumed where the loop list did not say:").append(nl);
