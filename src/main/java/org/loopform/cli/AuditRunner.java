@@ -79,7 +79,8 @@ final class AuditRunner {
             summary = Audit.run(rows, s.policy(), s.threads(),
                     o -> output == null ? null : AuditRendering.render(o, html), (o, r) -> {
                         if (output != null) {
-                            output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots(), r.indexRow());
+                            output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots(), r.indexRow(),
+                                    r.entryCells());
                         }
                         badRows.accept(o);
                         if (bar != null) {

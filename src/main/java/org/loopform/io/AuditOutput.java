@@ -20,7 +20,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 
 /**
  * Writes an audit's output folder as the results stream in: {@code loops.csv}, {@code loops.json},
- * {@code entry-sheet.csv}, unless turned off {@code report.html}, and loopform's marker
+ * {@code entry-sheet.csv} and {@code entry-sheet.xlsx}, unless turned off {@code report.html}, and loopform's marker
  * ({@value OutputFolder#MARKER}). Everything goes into a temporary folder beside the target first
  * and is moved into place whole at {@link #finish}, so a failed or interrupted audit leaves nothing
  * half-written; the temporary folder is removed on failure, on SIGTERM or Ctrl-C (a shutdown hook),
@@ -54,6 +54,8 @@ public final class AuditOutput implements AutoCloseable {
     private final JsonGenerator json;
     private final Writer sections;
     private final Writer index;
+    private final java.io.OutputStream xlsxFile;
+    private final EntrySheetXlsx xlsx;
     private int plotted;
     private boolean finished;
     private boolean abandoned;
@@ -90,6 +92,8 @@ public final class AuditOutput implements AutoCloseable {
             json.writeArrayFieldStart("loops");
             this.sections = html ? Files.newBufferedWriter(temp.resolve(".sections.html"), StandardCharsets.UTF_8)
                     : null;
+            this.xlsxFile = new java.io.BufferedOutputStream(Files.newOutputStream(temp.resolve("entry-sheet.xlsx")));
+            this.xlsx = new EntrySheetXlsx(xlsxFile, entryColumns, "loopform entry sheet");
             this.index = html ? Files.newBufferedWriter(temp.resolve(".index.html"), StandardCharsets.UTF_8) : null;
         } catch (IOException | RuntimeException e) {
             abandon();
@@ -141,15 +145,18 @@ public final class AuditOutput implements AutoCloseable {
 
     /**
      * Writes one loop's rendered output (call in input order): its loops.csv row, its entry-sheet
-     * rows, its loops.json element, and its report section, with plots ({@code sectionWithPlots},
+     * rows (for the CSV, made safe; {@code entryCells} plain, for the workbook), its loops.json element, and its report section, with plots ({@code sectionWithPlots},
      * null when the loop wants none) while fewer than {@link #PLOTTED_LOOPS} loops have them.
      */
     public void accept(List<String> loopRow, List<List<String>> entryRows, String loopJson, String section,
-                       String sectionWithPlots, String indexRow) {
+                       String sectionWithPlots, String indexRow, List<List<String>> entryCells) {
         try {
             loopsCsv.printRecord(loopRow);
             for (List<String> row : entryRows) {
                 entrySheet.printRecord(row);
+            }
+            for (List<String> row : entryCells) {
+                xlsx.row(row);
             }
             json.writeRawValue(loopJson);
             if (index != null && indexRow != null) {
@@ -191,6 +198,8 @@ public final class AuditOutput implements AutoCloseable {
             json.close();
             loopsCsv.close();
             entrySheet.close();
+            xlsx.finish();
+            xlsxFile.close();
             if (sections != null) {
                 sections.close();
                 index.close();
@@ -299,7 +308,7 @@ public final class AuditOutput implements AutoCloseable {
     }
 
     private void closeQuietly() {
-        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections, index}) {
+        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections, index, xlsxFile}) {
             try {
                 if (c != null) {
                     c.close();
