@@ -7,7 +7,10 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.loopform.audit.InputFile;
 import org.loopform.audit.LoopDefaults;
+import org.loopform.audit.SignOff;
+import org.loopform.io.Fingerprint;
 import org.loopform.audit.LoopRow;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
@@ -73,8 +76,16 @@ final class AuditCommand implements Callable<Integer> {
     @Mixin
     FormatOption format;
 
+    @Mixin
+    SignOffOptions signOffOptions;
+
+    private List<InputFile> files = List.of();
+    private SignOff signOff = SignOff.BLANK;
+    private long formReadMark;
+
     @Override
     public Integer call() {
+        formReadMark = CatalogLoader.formReadMark();
         Severity fail = Severity.parse(failOn).filter(x -> x != Severity.INFO).orElseThrow(() ->
                 new org.loopform.units.UnitException("--fail-on: must be warn or fail (got '" + failOn + "')"));
         FormDefinition target = to == null ? null : CatalogLoader.resolve(to, "--to");
@@ -90,6 +101,23 @@ final class AuditCommand implements Callable<Integer> {
         if (to != null && CatalogLoader.bundled().find(to).isEmpty()) {
             inputs.add(Path.of(to));
         }
+        List<InputFile> files = new ArrayList<>();
+        files.add(new InputFile("loop list", name, Fingerprint.sha256(input, name)));
+        if (to != null && CatalogLoader.bundled().find(to).isEmpty()) {
+            files.add(new InputFile("form", to, Fingerprint.sha256(Path.of(to), to)));
+        }
+        if (policyFile != null) {
+            files.add(new InputFile("policy", policyFile.toString(), Fingerprint.sha256(policyFile,
+                    policyFile.toString())));
+        }
+        SignOff signOff = signOffOptions.signOff();
+        if (signOffOptions.file != null) {
+            files.add(new InputFile("sign-off", signOffOptions.file.toString(),
+                    Fingerprint.sha256(signOffOptions.file, signOffOptions.file.toString())));
+            inputs.add(signOffOptions.file);
+        }
+        this.files = files;
+        this.signOff = signOff;
         String settings = (to != null ? "target " + target.id() : "targets from the list")
                 + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
                 + (policyFile != null ? ", policy " + policyFile : ", default policy");
@@ -114,7 +142,7 @@ final class AuditCommand implements Callable<Integer> {
     private AuditRunner.Settings settings(String name, Severity fail, CheckPolicy policy, int n, List<Path> inputs,
                                           String settings, AuditRunner.Progress progress) {
         return new AuditRunner.Settings(name, out, force, !noReport, policy, fail, format.format, n, inputs, settings,
-                progress);
+                progress, signOff, files, formReadMark);
     }
 
     private static long sizeOf(Path p) {

@@ -5,7 +5,14 @@ import java.nio.file.Path;
 import java.time.ZonedDateTime;
 import java.time.format.DateTimeFormatter;
 import java.util.Iterator;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import org.loopform.audit.InputFile;
+import org.loopform.audit.SignOff;
+import org.loopform.io.CatalogLoader;
 import java.util.function.LongSupplier;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
@@ -27,14 +34,22 @@ final class AuditRunner {
     private AuditRunner() {
     }
 
+    /** Date, time, offset and zone: {@code 2026-03-01 14:05:09 +01:00 (Europe/Berlin)}. */
+    private static final DateTimeFormatter WRITTEN_AT = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm:ss xxx '('VV')'");
+
     private static void spec(PrintWriter err, String input) {
         err.println("loopform: " + input + ": no loops were found; a loop list needs a header row and one loop a row"
                 + " (CSV), or a 'loops:' list (YAML)");
         err.flush();
     }
 
+    /**
+     * What one audit run needs: {@code inputs} are the files it must never write into, {@code files}
+     * the fingerprinted inputs for the provenance (form files read by path are added at the end).
+     */
     record Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
-                    OutputFormat format, int threads, List<Path> inputs, String settingsText, Progress progress) {
+                    OutputFormat format, int threads, List<Path> inputs, String settingsText, Progress progress,
+                    SignOff signOff, List<InputFile> files, long formReadMark) {
     }
 
     /**
@@ -64,7 +79,8 @@ final class AuditRunner {
             summary = Audit.run(rows, s.policy(), s.threads(),
                     o -> output == null ? null : AuditRendering.render(o, html), (o, r) -> {
                         if (output != null) {
-                            output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots());
+                            output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots(), r.indexRow(),
+                                    r.entryCells());
                         }
                         badRows.accept(o);
                         if (bar != null) {
@@ -81,10 +97,20 @@ final class AuditRunner {
                 err.println("loopform: no loop could be checked, so nothing was written to " + s.out());
                 err.flush();
             } else if (output != null) {
+                List<InputFile> files = new ArrayList<>(s.files());
+                for (InputFile f : CatalogLoader.formFilesReadSince(s.formReadMark())) {
+                    if (files.stream().noneMatch(x -> x.name().equals(f.name()) && x.sha256().equals(f.sha256()))) {
+                        files.add(f);
+                    }
+                }
                 AuditInfo info = new AuditInfo("loopform migration audit", s.inputName(),
-                        ZonedDateTime.now().withNano(0).format(DateTimeFormatter.ISO_OFFSET_DATE_TIME), s.settingsText());
-                output.finish(AuditRows.summaryJson(summary), (doc, sections) -> HtmlReport.writeDocument(doc, summary,
-                        info, sections));
+                        ZonedDateTime.now().withNano(0).format(WRITTEN_AT), s.settingsText(), s.signOff(),
+                        VersionProvider.version(), files, s.policy());
+                Map<String, ObjectNode> more = new LinkedHashMap<>();
+                more.put("signoff", AuditRows.signOffJson(info));
+                more.put("provenance", AuditRows.provenanceJson(info));
+                output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
+                        HtmlReport.writeDocument(doc, summary, info, index, sections));
             }
         } finally {
             if (bar != null) {

@@ -5,7 +5,10 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.loopform.audit.InputFile;
 import org.loopform.audit.LoopDefaults;
+import org.loopform.io.CatalogLoader;
+import org.loopform.io.Fingerprint;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
@@ -40,9 +43,16 @@ final class DemoCommand implements Callable<Integer> {
     @Mixin
     FormatOption format;
 
+    @Mixin
+    SignOffOptions signOffOptions;
+
     @Override
     public Integer call() throws Exception {
-        FormDefinition target = FormFileReader.parse(resource(TARGET), TARGET);
+        String targetText = resource(TARGET);
+        FormDefinition target = FormFileReader.parse(targetText, TARGET);
+        List<InputFile> files = List.of(
+                new InputFile("loop list", LOOPS + " (bundled)", Fingerprint.sha256(resourceBytes(LOOPS))),
+                new InputFile("form", TARGET + " (bundled)", Fingerprint.sha256(resourceBytes(TARGET))));
         try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(LOOPS);
              LoopCsvReader rows = LoopCsvReader.of(in, LOOPS, null,
                      new LoopDefaults(target, null))) {
@@ -50,7 +60,7 @@ final class DemoCommand implements Callable<Integer> {
             int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, true, true,
                     CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
                     List.of(), "target " + target.id() + " (invented), scans from the list, default policy",
-                    AuditRunner.Progress.UNKNOWN), spec.commandLine().getOut(), spec.commandLine().getErr());
+                    AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark()), spec.commandLine().getOut(), spec.commandLine().getErr());
             if (format.format == OutputFormat.text) {
                 spec.commandLine().getOut().println("Open " + out.resolve("report.html").toAbsolutePath()
                         + " in a browser. The plant and its loops are invented for this demonstration.");
@@ -62,11 +72,15 @@ final class DemoCommand implements Callable<Integer> {
     }
 
     private static String resource(String name) throws java.io.IOException {
+        return new String(resourceBytes(name), StandardCharsets.UTF_8);
+    }
+
+    private static byte[] resourceBytes(String name) throws java.io.IOException {
         try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(name)) {
             if (in == null) {
                 throw new IllegalStateException("the bundled example " + name + " is missing from the jar");
             }
-            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+            return in.readAllBytes();
         }
     }
 }

@@ -20,7 +20,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 
 /**
  * Writes an audit's output folder as the results stream in: {@code loops.csv}, {@code loops.json},
- * {@code entry-sheet.csv}, unless turned off {@code report.html}, and loopform's marker
+ * {@code entry-sheet.csv} and {@code entry-sheet.xlsx}, unless turned off {@code report.html}, and loopform's marker
  * ({@value OutputFolder#MARKER}). Everything goes into a temporary folder beside the target first
  * and is moved into place whole at {@link #finish}, so a failed or interrupted audit leaves nothing
  * half-written; the temporary folder is removed on failure, on SIGTERM or Ctrl-C (a shutdown hook),
@@ -53,14 +53,17 @@ public final class AuditOutput implements AutoCloseable {
     private final CSVPrinter entrySheet;
     private final JsonGenerator json;
     private final Writer sections;
+    private final Writer index;
+    private final java.io.OutputStream xlsxFile;
+    private final EntrySheetXlsx xlsx;
     private int plotted;
     private boolean finished;
     private boolean abandoned;
 
-    /** Writes the report document around its loop sections, which it reads from {@code sections}. */
+    /** Writes the report document around its index lines and loop sections, read from {@code index} and {@code sections}. */
     @FunctionalInterface
     public interface DocumentWriter {
-        void write(Writer out, Reader sections) throws IOException;
+        void write(Writer out, Reader index, Reader sections) throws IOException;
     }
 
     private AuditOutput(Path shown, Path target, boolean force, boolean html, List<Path> inputs, Path createdFolders,
@@ -89,6 +92,9 @@ public final class AuditOutput implements AutoCloseable {
             json.writeArrayFieldStart("loops");
             this.sections = html ? Files.newBufferedWriter(temp.resolve(".sections.html"), StandardCharsets.UTF_8)
                     : null;
+            this.xlsxFile = new java.io.BufferedOutputStream(Files.newOutputStream(temp.resolve("entry-sheet.xlsx")));
+            this.xlsx = new EntrySheetXlsx(xlsxFile, entryColumns, "loopform entry sheet");
+            this.index = html ? Files.newBufferedWriter(temp.resolve(".index.html"), StandardCharsets.UTF_8) : null;
         } catch (IOException | RuntimeException e) {
             abandon();
             Runtime.getRuntime().removeShutdownHook(cleanup);
@@ -139,17 +145,23 @@ public final class AuditOutput implements AutoCloseable {
 
     /**
      * Writes one loop's rendered output (call in input order): its loops.csv row, its entry-sheet
-     * rows, its loops.json element, and its report section, with plots ({@code sectionWithPlots},
+     * rows (for the CSV, made safe; {@code entryCells} plain, for the workbook), its loops.json element, and its report section, with plots ({@code sectionWithPlots},
      * null when the loop wants none) while fewer than {@link #PLOTTED_LOOPS} loops have them.
      */
     public void accept(List<String> loopRow, List<List<String>> entryRows, String loopJson, String section,
-                       String sectionWithPlots) {
+                       String sectionWithPlots, String indexRow, List<List<String>> entryCells) {
         try {
             loopsCsv.printRecord(loopRow);
             for (List<String> row : entryRows) {
                 entrySheet.printRecord(row);
             }
+            for (List<String> row : entryCells) {
+                xlsx.row(row);
+            }
             json.writeRawValue(loopJson);
+            if (index != null && indexRow != null) {
+                index.write(indexRow);
+            }
             if (sections != null) {
                 if (sectionWithPlots != null && plotted < PLOTTED_LOOPS) {
                     plotted++;
@@ -169,26 +181,37 @@ public final class AuditOutput implements AutoCloseable {
     }
 
     /**
-     * Writes {@code summary} as loops.json's summary and the report through {@code document}, then
-     * moves the folder into place.
+     * Writes {@code summary} as loops.json's summary, each of {@code more} as a key of its own beside
+     * it (the sign-off and provenance), and the report through {@code document}, then moves the folder
+     * into place.
      */
-    public void finish(JsonNode summary, DocumentWriter document) {
+    public void finish(JsonNode summary, java.util.Map<String, ? extends JsonNode> more, DocumentWriter document) {
         try {
             json.writeEndArray();
+            for (var e : more.entrySet()) {
+                json.writeFieldName(e.getKey());
+                MAPPER.writeTree(json, e.getValue());
+            }
             json.writeFieldName("summary");
             MAPPER.writeTree(json, summary);
             json.writeEndObject();
             json.close();
             loopsCsv.close();
             entrySheet.close();
+            xlsx.finish();
+            xlsxFile.close();
             if (sections != null) {
                 sections.close();
+                index.close();
                 Path sectionFile = temp.resolve(".sections.html");
+                Path indexFile = temp.resolve(".index.html");
                 try (Writer out = new BufferedWriter(Files.newBufferedWriter(temp.resolve("report.html"),
-                        StandardCharsets.UTF_8)); Reader in = Files.newBufferedReader(sectionFile, StandardCharsets.UTF_8)) {
-                    document.write(out, in);
+                        StandardCharsets.UTF_8)); Reader in = Files.newBufferedReader(sectionFile, StandardCharsets.UTF_8);
+                     Reader idx = Files.newBufferedReader(indexFile, StandardCharsets.UTF_8)) {
+                    document.write(out, idx, in);
                 }
                 Files.delete(sectionFile);
+                Files.delete(indexFile);
             }
             OutputFolder.markFinished(temp);
             moveIntoPlace();
@@ -285,7 +308,7 @@ public final class AuditOutput implements AutoCloseable {
     }
 
     private void closeQuietly() {
-        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections}) {
+        for (java.io.Closeable c : new java.io.Closeable[] {json, loopsCsv, entrySheet, sections, index, xlsxFile}) {
             try {
                 if (c != null) {
                     c.close();

@@ -1,5 +1,9 @@
 package org.loopform.io;
 
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import org.loopform.audit.InputFile;
+
 import java.io.IOException;
 import java.io.InputStream;
 import java.net.URISyntaxException;
@@ -53,10 +57,31 @@ public final class CatalogLoader {
         }
         Path p = UserPath.of(idOrPath, option, "a catalog id or the path of a form file");
         if (Files.isRegularFile(p)) {
-            return FormFileReader.read(p, idOrPath);
+            FormDefinition form = FormFileReader.read(p, idOrPath);
+            Path key = p.toAbsolutePath().normalize();
+            FORM_FILES_READ.computeIfAbsent(key, k -> new InputFile("form", idOrPath, Fingerprint.sha256(p, idOrPath)));
+            LAST_READ.put(key, READS.incrementAndGet());
+            return form;
         }
         throw new InputException(option + ": unknown form '" + UserPath.visible(idOrPath) + "'; give a catalog id ("
                 + String.join(", ", catalog.ids()) + ") or the path of a form file");
+    }
+
+    /** Every form file read by path in this process, with its fingerprint (the audit's provenance lists them). */
+    private static final Map<Path, InputFile> FORM_FILES_READ = new ConcurrentHashMap<>();
+    /** When each was last read, counted in reads, so that one run can ask for its own. */
+    private static final Map<Path, Long> LAST_READ = new ConcurrentHashMap<>();
+    private static final java.util.concurrent.atomic.AtomicLong READS = new java.util.concurrent.atomic.AtomicLong();
+
+    /** A mark to pass to {@link #formFilesReadSince} (take it before a run reads its inputs). */
+    public static long formReadMark() {
+        return READS.get();
+    }
+
+    /** The form files read by path since {@code mark}, each once, by name. */
+    public static List<InputFile> formFilesReadSince(long mark) {
+        return LAST_READ.entrySet().stream().filter(e -> e.getValue() > mark).map(e -> FORM_FILES_READ.get(e.getKey()))
+                .sorted(java.util.Comparator.comparing(InputFile::name)).toList();
     }
 
     private static Catalog load() {

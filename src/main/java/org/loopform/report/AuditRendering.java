@@ -26,7 +26,8 @@ public final class AuditRendering {
      * HTML, {@code sectionWithPlots} also for a loop that passes.
      */
     public record RenderedLoop(List<String> loopRow, List<List<String>> entryRows, String json, String section,
-                               String sectionWithPlots) {
+                               String sectionWithPlots, String indexRow,
+                               List<List<String>> entryCells) {
     }
 
     /** Renders {@code o}'s output; safe to call from any thread. */
@@ -35,7 +36,9 @@ public final class AuditRendering {
             String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
             String plain = null;
             String plotted = null;
+            String index = null;
             if (html) {
+                index = HtmlIndex.row(o);
                 StringWriter w = new StringWriter();
                 HtmlReport.writeLoopSection(w, o, false);
                 plain = w.toString();
@@ -45,7 +48,8 @@ public final class AuditRendering {
                     plotted = p.toString();
                 }
             }
-            return new RenderedLoop(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted);
+            return new RenderedLoop(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted, index,
+                    AuditRows.entryCells(o));
         } catch (JsonProcessingException e) {
             throw new UncheckedIOException("cannot render the audit output", e);
         } catch (IOException e) {

@@ -10,6 +10,7 @@ import java.util.stream.Collectors;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.audit.AuditSummary;
+import org.loopform.audit.InputFile;
 import org.loopform.check.CheckResult;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.check.Verdict;
@@ -36,9 +37,18 @@ public final class AuditRows {
             "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "design_lower_gm", "target_lower_gm",
             "target_delay_margin_scans", "design_margin_notes", "target_margin_notes", "problems");
 
-    /** entry-sheet.csv columns: one row per value to type in. */
+    /**
+     * Entry-sheet columns (entry-sheet.csv and .xlsx): one row per value to type in. The first five
+     * are the new value as before; then the old (as-found) value it replaces with its unit, the
+     * verdict, a do-not-enter flag, a note, and three columns left blank for the commissioning team:
+     * the value actually entered (as-left), by whom and on which date.
+     */
     public static final List<String> ENTRY_COLUMNS = List.of("tag", "target_form", "parameter", "value", "unit",
-            "verdict", "note");
+            "verdict", "note", "old_form", "old_parameter", "old_value", "old_unit", "do_not_enter", "as_left",
+            "entered_by", "entered_on");
+
+    private static final java.util.regex.Pattern VALUE_WITH_UNIT =
+            java.util.regex.Pattern.compile("\\s*([+-]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][+-]?\\d+)?)\\s*(\\S.*)?");
 
     private static String num(double v) {
         return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
@@ -137,22 +147,55 @@ public final class AuditRows {
         return String.join("; ", parts);
     }
 
+    /** The entry-sheet rows of {@code o}, made safe for a CSV opened in a spreadsheet. */
     public static List<List<String>> entryRows(LoopOutcome o) {
+        return entryCells(o).stream().map(AuditRows::spreadsheetRow).toList();
+    }
+
+    /**
+     * The entry-sheet rows of {@code o} as plain cells (for a workbook, whose text cells are never
+     * formulas): new value and unit, the old value it replaces and its unit, the flags, and blank
+     * as-left, entered-by and date cells.
+     */
+    public static List<List<String>> entryCells(LoopOutcome o) {
         List<List<String>> rows = new ArrayList<>();
         if (!o.ok()) {
             return rows;
         }
         CheckResult c = o.result();
         Conversion v = c.conversion();
-        // a value the target refuses is never listed as if it could be typed in
-        v.entered().values().forEach((k, x) -> rows.add(List.of(c.loop().tag(), v.to().id(), k,
-                FormCodec.show(v.to(), k, x, 6), FormUnits.of(v.to(), k), c.verdict().id(),
-                v.refusal(k) == null ? "" : "do not enter: " + v.refusal(k))));
-        if (v.entered().action() != null) {
-            rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
-                    ""));
+        Map<String, String> old = c.loop().tuning();
+        Map<String, String> oldFor = new java.util.HashMap<>();
+        List<String> targetNames = new ArrayList<>(v.entered().values().keySet());
+        for (TuningRows.Row row : TuningRows.pair(new ArrayList<>(old.keySet()), targetNames)) {
+            if (row.target() != null && row.source() != null) {
+                oldFor.put(row.target(), row.source());
+            }
         }
-        return rows.stream().map(AuditRows::spreadsheetRow).toList();
+        // a value the target refuses is never listed as if it could be typed in
+        v.entered().values().forEach((k, x) -> {
+            String src = oldFor.get(k);
+            String[] oldValue = src == null ? new String[] {"", ""} : valueAndUnit(old.get(src), v, src);
+            boolean refused = v.refusal(k) != null;
+            rows.add(List.of(c.loop().tag(), v.to().id(), k, refused ? "" : FormCodec.show(v.to(), k, x, 6),
+                    FormUnits.of(v.to(), k), c.verdict().id(), refused ? "do not enter: " + v.refusal(k) : "",
+                    v.from().id(), src == null ? "" : src, oldValue[0], oldValue[1], refused ? "yes" : "", "", "", ""));
+        });
+        if (v.entered().action() != null) {
+            String oldAction = old.getOrDefault("action", "");
+            rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
+                    "", v.from().id(), oldAction.isEmpty() ? "" : "action", oldAction.trim(), "", "", "", "", ""));
+        }
+        return rows;
+    }
+
+    /** An old value as written, split into number and unit: {@code "30 s"} -> 30, s; a bare number takes its form's unit. */
+    private static String[] valueAndUnit(String text, Conversion v, String name) {
+        java.util.regex.Matcher m = VALUE_WITH_UNIT.matcher(text);
+        if (m.matches()) {
+            return new String[] {m.group(1), m.group(2) != null ? m.group(2).trim() : FormUnits.of(v.from(), name)};
+        }
+        return new String[] {text.trim(), ""};
     }
 
     /**
@@ -204,6 +247,43 @@ public final class AuditRows {
             n.put("out", folder);
         }
         return Json.write(n);
+    }
+
+    /**
+     * loops.json's {@code signoff}: the names, change and revision given (empty strings where the
+     * printed report leaves a line to sign).
+     */
+    public static ObjectNode signOffJson(AuditInfo info) {
+        ObjectNode n = Json.object();
+        n.put("prepared_by", info.signOff().preparedBy());
+        n.put("checked_by", info.signOff().checkedBy());
+        n.put("approved_by", info.signOff().approvedBy());
+        n.put("change", info.signOff().change());
+        n.put("revision", info.signOff().revision());
+        return n;
+    }
+
+    /**
+     * loops.json's {@code provenance}: loopform's version, when the audit ran (ISO 8601 with zone),
+     * the loop list, every input file with its SHA-256, the inputs' fingerprint, and the policy in force.
+     */
+    public static ObjectNode provenanceJson(AuditInfo info) {
+        ObjectNode n = Json.object();
+        n.put("loopform_version", info.version());
+        n.put("written_at", info.generatedAt());
+        n.put("loop_list", info.input());
+        n.put("settings", info.settings());
+        ArrayNode files = n.putArray("inputs");
+        for (InputFile f : info.inputs()) {
+            ObjectNode fn = files.addObject();
+            fn.put("role", f.role());
+            fn.put("file", f.name());
+            fn.put("sha256", f.sha256());
+        }
+        n.put("input_fingerprint", info.fingerprint());
+        ObjectNode policy = n.putObject("policy");
+        info.policy().asMap().forEach(policy::put);
+        return n;
     }
 
     public static ObjectNode summaryJson(AuditSummary s) {
@@ -265,13 +345,19 @@ public final class AuditRows {
             TextTable t = new TextTable("tag", "verdict", "fails", "warns", "worst finding");
             int shown = 0;
             for (AuditSummary.Worst w : s.worst()) {
-                if (shown++ == 12) {
+                if (shown == 12) {
                     break;
                 }
+                shown++;
                 String h = w.headline().length() > 90 ? w.headline().substring(0, 87) + "..." : w.headline();
                 t.row(w.tag(), w.verdict().id(), Integer.toString(w.fails()), Integer.toString(w.warns()), h);
             }
             sb.append(t.render(2));
+            int notPassing = s.count(Verdict.FAIL) + s.count(Verdict.WARN);
+            if (notPassing > shown) {
+                sb.append("  ... and ").append(notPassing - shown).append(" more that warn or fail; every loop is in"
+                        + " loops.csv and in the report's index").append(nl);
+            }
         }
         if (!s.assumptions().isEmpty()) {
             sb.append(nl).append("Assumed where the loop list did not say:").append(nl);

@@ -43,10 +43,10 @@ public final class CheckReport {
                 .append(nl));
         sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
                 + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees()) + " deg").append(nl);
-        sb.append("  controller as run vs design law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
+        sb.append("  new controller as run vs old law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
                 .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
-            TextTable t = new TextTable("figure", "design", "target", "unit");
+            TextTable t = new TextTable("figure", "as-found", "as-left", "unit");
             LoopMargins d = r.designMargins();
             LoopMargins g = r.targetMargins();
             t.row("phase margin", MarginFigures.phaseMargin(d, 3), MarginFigures.phaseMargin(g, 3), "deg");
@@ -78,24 +78,24 @@ public final class CheckReport {
                     .append(fmt(r.steps().loadStepPercent(), 3)).append(" % at the process input (load) about 50 %, over ")
                     .append(fmt(sp.timeSeconds(sp.size() - 1), 4)).append(" s; ");
             if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
-                sb.append("the continuous design loop is simulated on ").append(fmt(r.referenceStepSeconds(), 3))
+                sb.append("no scan was given for the old controller, so the as-found loop runs its law continuously: simulated on ").append(fmt(r.referenceStepSeconds(), 3))
                         .append(" s and ").append(fmt(2 * r.referenceStepSeconds(), 3))
                         .append(" s steps and extrapolated; estimated PV error under ")
                         .append(fmt(r.referenceErrorPercent(), 2)).append(" %.");
             } else {
-                sb.append("the design loop runs the source's own algorithm at its scan.");
+                sb.append("the as-found loop runs the old controller's own algorithm at its scan.");
             }
             sb.append(nl);
-            sb.append("  Stability: design ").append(r.designStability().verdict().word()).append(" (")
-                    .append(r.designStability().test().describe()).append("); target ")
+            sb.append("  Stability: as-found ").append(r.designStability().verdict().word()).append(" (")
+                    .append(r.designStability().test().describe()).append("); as-left ")
                     .append(r.targetStability().verdict().word()).append(" (")
                     .append(r.targetStability().test().describe()).append(")").append(nl)
-                    .append("    target: ").append(r.targetStability().explanation()).append(nl);
+                    .append("    as-left: ").append(r.targetStability().explanation()).append(nl);
             if (!r.designStability().isStable() || !r.targetStability().isStable()) {
                 boolean design = !r.designStability().isStable();
                 sb.append("  ").append((design ? r.designStability() : r.targetStability()).verdict().word()
-                        .toUpperCase(java.util.Locale.ROOT)).append(": ").append(design ? "the design loop"
-                        : "the target loop").append(" is not stable; its responses are held only by the output limits"
+                        .toUpperCase(java.util.Locale.ROOT)).append(": ").append(design ? "the as-found loop"
+                        : "the as-left loop").append(" is not stable; its responses are held only by the output limits"
                         + " and are not figures to compare.").append(nl);
             }
         } else {

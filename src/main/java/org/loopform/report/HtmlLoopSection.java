@@ -56,8 +56,8 @@ final class HtmlLoopSection {
         writeConversionNotes(w, r);
         writeFindings(w, r.findings());
         if (withPlots) {
-            w.write("<details class=\"plots\" open><summary>Plots: responses, design dashed and target"
-                    + " solid; controller as run, feedback path solid and setpoint path dashed</summary>"
+            w.write("<details class=\"plots\" open><summary>Plots: responses, as-found (old) dashed and as-left (new)"
+                    + " solid; new controller as run, feedback path solid and setpoint path dashed</summary>"
                     + "<div class=\"panels\">\n");
             for (String panel : LoopPlots.panels(r, SvgPlot.Size.COMPACT)) {
                 w.write("<figure>");
@@ -95,11 +95,11 @@ final class HtmlLoopSection {
         FormDefinition from = c.from();
         FormDefinition to = c.to();
         StringBuilder sb = new StringBuilder();
-        sb.append("<table class=\"tuning\"><caption>Tuning before and after</caption>\n<thead><tr class=\"group\">"
-                + "<th></th><th colspan=\"3\">source: ").append(Html.esc(from.id()))
-                .append("</th><th class=\"sep\" colspan=\"4\">target: ").append(Html.esc(to.id()))
+        sb.append("<table class=\"tuning\"><caption>Tuning, as-found (old) and as-left (new)</caption>\n<thead><tr class=\"group\">"
+                + "<th></th><th colspan=\"3\">old: ").append(Html.esc(from.id()))
+                .append("</th><th class=\"sep\" colspan=\"4\">new: ").append(Html.esc(to.id()))
                 .append("</th></tr>\n<tr><th>term</th><th>name</th><th class=\"num\">value</th><th>unit</th>"
-                        + "<th class=\"sep\">name</th><th class=\"num\">computed</th><th class=\"num\">entered</th>"
+                        + "<th class=\"sep\">name</th><th class=\"num\">computed</th><th class=\"num\">to enter</th>"
                         + "<th>unit</th></tr></thead>\n<tbody>\n");
         boolean anyRounded = false;
         for (TuningRows.Row row : TuningRows.pair(new ArrayList<>(source.keySet()), targetNames)) {
@@ -123,13 +123,15 @@ final class HtmlLoopSection {
                 String k = row.target();
                 double x = computed.get(k);
                 double e = entered.getOrDefault(k, x);
-                boolean rounded = e != x;
+                // marked only where rounding changed the value as printed, never for a difference below the digits shown
+                boolean rounded = !org.loopform.form.FormCodec.show(to, k, e, VALUE_DIGITS)
+                        .equals(org.loopform.form.FormCodec.show(to, k, x, VALUE_DIGITS));
                 anyRounded |= rounded;
                 String shown = c.refusal(k) != null ? "do not enter (" + Html.esc(c.refusal(k)) + ")"
                         : org.loopform.form.FormCodec.show(to, k, e, VALUE_DIGITS);
                 sb.append("<td class=\"sep\">").append(Html.esc(k)).append("</td><td class=\"num\">")
                         .append(org.loopform.form.FormCodec.show(to, k, x, VALUE_DIGITS)).append("</td><td class=\"num")
-                        .append(rounded ? " rounded\" title=\"rounded to the target's resolution" : "").append("\">")
+                        .append(rounded ? " rounded\" title=\"rounded to the new controller's resolution" : "").append("\">")
                         .append(shown).append("</td><td class=\"unit\">").append(Html.esc(FormUnits.of(to, k)))
                         .append("</td>");
             }
@@ -137,7 +139,7 @@ final class HtmlLoopSection {
         }
         sb.append("</tbody></table>\n");
         if (anyRounded) {
-            sb.append("<p class=\"note\">Bold, dotted underline: rounded to the target's resolution.</p>\n");
+            sb.append("<p class=\"note\">Bold, dotted underline: changed by rounding to the new controller's resolution.</p>\n");
         }
         w.write("<div>" + sb + "</div>\n");
     }
@@ -159,8 +161,8 @@ final class HtmlLoopSection {
         StepMetrics dl = r.designLoad();
         StepMetrics tl = r.targetLoad();
         StringBuilder sb = new StringBuilder();
-        sb.append("<div><table class=\"figures\"><caption>Design loop and target loop</caption>\n<thead><tr>"
-                + "<th>figure</th><th class=\"num\">design</th><th class=\"num\">target</th><th>unit</th></tr></thead>"
+        sb.append("<div><table class=\"figures\"><caption>Loop as-found (old) and as-left (new)</caption>\n<thead><tr>"
+                + "<th>figure</th><th class=\"num\">as-found</th><th class=\"num\">as-left</th><th>unit</th></tr></thead>"
                 + "\n<tbody>\n");
         row(sb, "phase margin", Html.esc(MarginFigures.phaseMargin(d, 3)), Html.esc(MarginFigures.phaseMargin(g, 3)),
                 "deg");
@@ -194,21 +196,21 @@ final class HtmlLoopSection {
                 .append(" % and load step of ").append(Html.fig(r.steps().loadStepPercent(), 3)).append(" % at the process"
                 + " input, about 50 %, over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
         boolean designUnstable = !r.designStability().isStable();
-        sb.append(" Stability from the closed-loop poles: design ").append(r.designStability().verdict().word())
-                .append(", target ").append(r.targetStability().verdict().word()).append(" (")
+        sb.append(" Stability from the closed-loop poles: as-found ").append(r.designStability().verdict().word())
+                .append(", as-left ").append(r.targetStability().verdict().word()).append(" (")
                 .append(Html.esc(r.targetStability().explanation())).append(")");
         if (designUnstable || !r.targetStability().isStable()) {
-            sb.append(" <strong>Not stable:</strong> ").append(designUnstable ? "the design loop" : "the target loop")
+            sb.append(" <strong>Not stable:</strong> ").append(designUnstable ? "the as-found loop" : "the as-left loop")
                     .append(" is ").append((designUnstable ? r.designStability() : r.targetStability()).verdict().word())
                     .append("; its responses are held only by the output limits and are not figures to compare.");
         }
         if (r.loop().sourceScanSeconds() == null) {
-            sb.append(" The continuous design loop is simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))
+            sb.append(" No scan was given for the old controller, so the as-found loop runs its law continuously: simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))
                     .append(" s and ").append(Html.fig(2 * r.referenceStepSeconds(), 3))
                     .append(" s steps and extrapolated; estimated PV error under ")
                     .append(Html.fig(r.referenceErrorPercent(), 2)).append(" %.");
         } else {
-            sb.append(" The design loop runs the source's own algorithm at its scan.");
+            sb.append(" The as-found loop runs the old controller's own algorithm at its scan.");
         }
         sb.append("</p></div>\n");
         w.write(sb.toString());
@@ -224,15 +226,15 @@ final class HtmlLoopSection {
         Conversion c = r.conversion();
         StringBuilder sb = new StringBuilder("<p><b>Conversion:</b> ");
         if (c.exact()) {
-            sb.append("exact; the target form writes the same control law.");
+            sb.append("exact; the new form writes the same control law as the old.");
         } else if (c.deviation().gainDb() < MATCH_DB && c.deviation().phaseDegrees() < MATCH_DEG) {
             sb.append("not exact; the feedback path matches, but the setpoint path differs (see the findings).");
         } else {
-            sb.append("nearest setting the target form can hold; its feedback path is within ")
+            sb.append("nearest setting the new form can hold; its feedback path is within ")
                     .append(Html.fig(c.deviation().gainDb(), 3)).append(" dB and ")
-                    .append(Html.fig(c.deviation().phaseDegrees(), 3)).append(" deg of the source law.");
+                    .append(Html.fig(c.deviation().phaseDegrees(), 3)).append(" deg of the old law.");
         }
-        sb.append(" <b>Controller as run vs design law:</b> up to ").append(Html.fig(r.mismatch().gainDb(), 3))
+        sb.append(" <b>New controller as run vs the old law:</b> up to ").append(Html.fig(r.mismatch().gainDb(), 3))
                 .append(" dB and ").append(Html.fig(r.mismatch().phaseDegrees(), 3)).append(" deg.");
         if (!r.hasProcess()) {
             sb.append(" No process model: only the controller and the sampling rules were checked.");

@@ -7,8 +7,8 @@ import org.loopform.audit.AuditSummary;
 import org.loopform.audit.LoopOutcome;
 
 /**
- * The audit report as one self-contained HTML file (inline CSS and SVG, no scripts, nothing
- * fetched from anywhere): the header and cautions, the summary, then a section per loop in input
+ * The audit report as one self-contained HTML file (inline CSS and SVG, one inline filter script,
+ * nothing fetched from anywhere): the header and cautions, the summary, then a section per loop in input
  * order. Sections are written as the audit streams ({@link #writeLoopSection}) and joined under
  * the summary at the end ({@link #writeDocument}), so memory stays bounded.
  */
@@ -25,15 +25,26 @@ public final class HtmlReport {
         HtmlLoopSection.write(w, o, withPlots);
     }
 
-    /** The whole document: head, cautions, summary, then the sections read from {@code sections}. */
-    public static void writeDocument(Writer out, AuditSummary summary, AuditInfo info, Reader sections)
+    /** One loop's line in the report's index (tag, verdict, old and new values, worst finding). */
+    public static String indexRow(LoopOutcome o) {
+        return HtmlIndex.row(o);
+    }
+
+    /**
+     * The whole document: head with sign-off and provenance, cautions, summary, the index of every
+     * loop read from {@code index}, then the sections read from {@code sections}.
+     */
+    public static void writeDocument(Writer out, AuditSummary summary, AuditInfo info, Reader index, Reader sections)
             throws IOException {
         out.write("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
                 + "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n<title>"
-                + Html.esc(info.title()) + "</title>\n<style>\n" + HtmlStyle.CSS + "</style>\n</head>\n<body>\n");
+                + Html.esc(info.title()) + "</title>\n<style>\n" + HtmlStyle.CSS + HtmlStyle.pageBoxes(info)
+                + "</style>\n</head>\n<body>\n");
         HtmlSummary.writeHeader(out, summary, info);
         HtmlSummary.writeCautions(out);
         HtmlSummary.writeSummary(out, summary);
+        HtmlIndex.write(out, summary.loops(), index);
+        HtmlSummary.writeProvenance(out, info);
         out.write("<main id=\"loops\">\n<h2 class=\"loops\">Loops, in input order</h2>\n");
         sections.transferTo(out);
         out.write("</main>\n<footer><p>Written by loopform. " + Html.esc(Cautions.SHORT) + "</p></footer>\n"

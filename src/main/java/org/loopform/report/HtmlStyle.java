@@ -23,6 +23,18 @@ final class HtmlStyle {
                     color: var(--muted); }
             .meta dt { font-weight: 600; color: var(--ink); }
             .meta dd { margin: 0; }
+            table.signoff { margin: 6px 0 10px; min-width: 60%; }
+            table.signoff td.sign { min-width: 14em; height: 2.2em; border-bottom: 1px solid var(--ink); }
+            table.signoff td.sign.date { min-width: 8em; }
+            code.fingerprint { font-family: ui-monospace, "DejaVu Sans Mono", monospace; font-size: 11.5px;
+                               overflow-wrap: anywhere; }
+            td.file { overflow-wrap: anywhere; }
+            tr.changed th, tr.changed td { font-weight: 700; }
+            p.filter input { font: inherit; padding: 2px 6px; min-width: 22em; }
+            table.index { width: 100%; font-size: 12px; }
+            table.index td, table.index th { padding: 1px 6px; }
+            table.index .form { color: var(--muted); }
+            table.index tr[hidden] { display: none; }
             .cautions { border: 2px solid var(--ink); padding: 10px 14px; margin: 12px 0 18px; background: var(--tint); }
             .cautions h2 { font-size: 15px; margin-bottom: 4px; }
             .cautions p { margin: 4px 0; font-weight: 600; }
@@ -72,17 +84,51 @@ final class HtmlStyle {
             footer { margin-top: 28px; border-top: 1px solid var(--rule); padding-top: 8px; color: var(--muted);
                      font-size: 12px; }
             @media print {
-              @page { margin: 14mm 12mm; }
-              body { max-width: none; padding: 0; font-size: 10pt; }
+              body { max-width: none; padding: 0; font-size: 9pt; }
+              p.filter, #filter-count { display: none; }
+              table { font-size: 8pt; }
+              table.index { font-size: 7.5pt; }
+              table.index tr { break-inside: avoid; }
+              #index, #provenance { break-before: page; }
+              section.loop { margin-top: 6px; padding-top: 4px; break-inside: avoid-page; }
+              .cols { display: grid; grid-template-columns: 1fr 1fr; gap: 4px 14px; }
+              .cols > div { display: block; margin: 0; }
+              .panels figure { width: 32%; }
+              table.signoff td.sign { height: 2.6em; }
               a { color: inherit; text-decoration: none; }
               section.loop > header .top, details.plots > summary { display: none; }
               section.loop > header, h2, h3, caption { break-after: avoid; }
-              table, figure, .cautions, ul.findings li { break-inside: avoid; }
-              .cols { display: block; }
-              .cols > div { display: inline-block; vertical-align: top; margin-right: 18px; max-width: 100%; }
-              .panels figure { width: 48%; }
+              table:not(.index), figure, .cautions, ul.findings li { break-inside: avoid; }
               .panels svg { width: 100%; }
               .badge, .verdict-bar { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
             }
             """;
+
+    /**
+     * The printed page's margin boxes (CSS Paged Media Level 3, section 5): the report's title and
+     * its input fingerprint at the top of every page, "page N of M" at the bottom.
+     */
+    static String pageBoxes(AuditInfo info) {
+        return "@page { size: A4; margin: 16mm 11mm 14mm;\n"
+                + "  @top-left { content: \"" + cssString(info.title()) + "\"; font: 8pt sans-serif; color: #5a5a55; }\n"
+                + "  @top-right { content: \"inputs " + info.shortFingerprint()
+                + "\"; font: 8pt monospace; color: #5a5a55; }\n"
+                + "  @bottom-right { content: \"page \" counter(page) \" of \" counter(pages); font: 8pt sans-serif; }\n"
+                + "  @bottom-left { content: \"" + cssString(info.signOff().change().isEmpty() ? ""
+                : "change " + info.signOff().change() + (info.signOff().revision().isEmpty() ? ""
+                : ", revision " + info.signOff().revision())) + "\"; font: 8pt sans-serif; }\n}\n";
+    }
+
+    /** {@code s} safe inside a double-quoted CSS string and inside a style element. */
+    private static String cssString(String s) {
+        StringBuilder sb = new StringBuilder();
+        for (char c : s.toCharArray()) {
+            if (c == '"' || c == '\\' || c == '<' || c == '>' || c < 0x20) {
+                sb.append('\\').append(Integer.toHexString(c)).append(' ');
+            } else {
+                sb.append(c);
+            }
+        }
+        return sb.toString();
+    }
 }

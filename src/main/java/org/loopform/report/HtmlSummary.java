@@ -9,7 +9,12 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.loopform.audit.AuditSummary;
 import org.loopform.check.Verdict;
+import org.loopform.audit.InputFile;
+import org.loopform.audit.SignOff;
+import org.loopform.findings.CheckPolicy;
+import org.loopform.findings.PolicyKey;
 import org.loopform.findings.Severity;
+import org.loopform.units.Numbers;
 import org.loopform.findings.Topic;
 
 /**
@@ -27,12 +32,82 @@ final class HtmlSummary {
     private static final Pattern LOCATION = Pattern.compile("^(\\S+?:\\d+): (.*)$", Pattern.DOTALL);
 
     static void writeHeader(Writer w, AuditSummary s, AuditInfo info) throws IOException {
-        w.write("<header class=\"report\"><h1>" + Html.esc(info.title()) + "</h1>\n<dl class=\"meta\">"
-                + "<dt>input</dt><dd>" + Html.esc(info.input()) + "</dd>"
-                + "<dt>written</dt><dd>" + Html.esc(info.generatedAt()) + "</dd>"
-                + "<dt>settings</dt><dd>" + Html.esc(info.settings()) + "</dd>"
-                + "<dt>loops</dt><dd>" + s.loops() + " loops read: " + s.checked() + " checked, " + s.badRowCount()
-                + " not checked</dd></dl></header>\n");
+        SignOff so = info.signOff();
+        StringBuilder sb = new StringBuilder("<header class=\"report\"><h1>").append(Html.esc(info.title()))
+                .append("</h1>\n<dl class=\"meta\">");
+        meta(sb, "change", so.change().isEmpty() ? null : so.change());
+        meta(sb, "revision", so.revision().isEmpty() ? null : so.revision());
+        meta(sb, "loop list", info.input());
+        meta(sb, "written", info.generatedAt());
+        meta(sb, "loopform", info.version());
+        meta(sb, "settings", info.settings());
+        meta(sb, "loops", s.loops() + " loops read: " + s.checked() + " checked, " + s.badRowCount() + " not checked");
+        sb.append("<dt>input fingerprint</dt><dd><code class=\"fingerprint\">").append(info.fingerprint())
+                .append("</code> <span class=\"note\">(SHA-256 over the files listed under Provenance)</span></dd>");
+        sb.append("</dl>\n");
+        writeSignOff(sb, so);
+        sb.append("</header>\n");
+        w.write(sb.toString());
+    }
+
+    private static void meta(StringBuilder sb, String name, String value) {
+        if (value != null) {
+            sb.append("<dt>").append(Html.esc(name)).append("</dt><dd>").append(Html.esc(value)).append("</dd>");
+        }
+    }
+
+    /** Prepared, checked, approved: the names given, or blank lines to sign on paper; signature and date always by hand. */
+    private static void writeSignOff(StringBuilder sb, SignOff so) {
+        sb.append("<table id=\"signoff\" class=\"signoff\"><caption>Sign-off</caption>\n<thead><tr><th></th>"
+                + "<th>name</th><th>signature</th><th>date</th></tr></thead><tbody>\n");
+        signRow(sb, "prepared by", so.preparedBy());
+        signRow(sb, "checked by", so.checkedBy());
+        signRow(sb, "approved by", so.approvedBy());
+        sb.append("<tr><th>change</th><td class=\"sign\">").append(Html.esc(so.change()))
+                .append("</td><th>revision</th><td class=\"sign\">").append(Html.esc(so.revision()))
+                .append("</td></tr>\n</tbody></table>\n");
+    }
+
+    private static void signRow(StringBuilder sb, String role, String name) {
+        sb.append("<tr><th>").append(role).append("</th><td class=\"sign\">").append(Html.esc(name))
+                .append("</td><td class=\"sign\"></td><td class=\"sign date\"></td></tr>\n");
+    }
+
+    /** Every input file with its SHA-256, and the policy in force with each threshold's unit. */
+    static void writeProvenance(Writer w, AuditInfo info) throws IOException {
+        StringBuilder sb = new StringBuilder("<section id=\"provenance\"><h2>Provenance</h2>\n");
+        if (info.inputs().isEmpty()) {
+            sb.append("<p class=\"note\">No input files were listed for this report.</p>\n");
+        } else {
+            sb.append("<table id=\"inputs\" class=\"summary\"><caption>Input files, as read</caption><thead><tr>"
+                    + "<th>role</th><th>file</th><th>SHA-256</th></tr></thead><tbody>\n");
+            for (InputFile f : info.inputs()) {
+                sb.append("<tr><th>").append(Html.esc(f.role())).append("</th><td class=\"file\">")
+                        .append(Html.esc(f.name())).append("</td><td>").append(f.fingerprinted() ? "<code class=\"fingerprint\">"
+                        + f.sha256() + "</code>" : "not fingerprinted: not a regular file (a pipe is read once)")
+                        .append("</td></tr>\n");
+            }
+            sb.append("</tbody></table>\n");
+        }
+        sb.append("<details class=\"policy\"><summary>Policy in force (").append(policyWords(info.policy()))
+                .append(")</summary>\n<table id=\"policy\" class=\"summary\"><thead><tr><th>key</th>"
+                        + "<th class=\"num\">value</th><th>unit</th><th class=\"num\">default</th></tr></thead><tbody>\n");
+        for (PolicyKey k : PolicyKey.values()) {
+            double v = info.policy().get(k);
+            boolean changed = v != k.defaultValue();
+            sb.append("<tr").append(changed ? " class=\"changed\"" : "").append("><th>").append(k.id())
+                    .append("</th><td class=\"num\">").append(Numbers.plain(v)).append("</td><td class=\"unit\">")
+                    .append(Html.esc(k.unit())).append("</td><td class=\"num\">").append(Numbers.plain(k.defaultValue()))
+                    .append("</td></tr>\n");
+        }
+        sb.append("</tbody></table></details>\n</section>\n");
+        w.write(sb.toString());
+    }
+
+    private static String policyWords(CheckPolicy p) {
+        long changed = java.util.Arrays.stream(PolicyKey.values()).filter(k -> p.get(k) != k.defaultValue()).count();
+        return changed == 0 ? "the defaults" : changed + (changed == 1 ? " threshold differs" : " thresholds differ")
+                + " from the defaults";
     }
 
     static void writeCautions(Writer w) throws IOException {

@@ -36,10 +36,10 @@ public final class LoopPlots {
                     designSampled, size));
         }
         ControllerMismatch.Curve c = r.mismatchCurve();
-        panels.add(SvgPlot.panel("Controller as run vs design law: gain ratio", "frequency, rad/s", "gain ratio, dB",
+        panels.add(SvgPlot.panel("New controller as run vs old law: gain ratio", "frequency, rad/s", "gain ratio, dB",
                 List.of(new SvgPlot.Series("feedback path", c.omegas(), c.feedbackGainDb(), TARGET, false),
                         new SvgPlot.Series("setpoint path", c.omegas(), c.setpointGainDb(), DESIGN, true)), true, size));
-        panels.add(SvgPlot.panel("Controller as run vs design law: phase difference", "frequency, rad/s",
+        panels.add(SvgPlot.panel("New controller as run vs old law: phase difference", "frequency, rad/s",
                 "phase difference, deg",
                 List.of(new SvgPlot.Series("feedback path", c.omegas(), c.feedbackPhaseDeg(), TARGET, false),
                         new SvgPlot.Series("setpoint path", c.omegas(), c.setpointPhaseDeg(), DESIGN, true)), true, size));
@@ -49,12 +49,12 @@ public final class LoopPlots {
     private static String response(String title, SampledResponse design, SampledResponse target, boolean output,
                                    boolean designSampled, SvgPlot.Size size) {
         SvgPlot.Series d = output
-                ? (designSampled ? held("design", design, DESIGN, true)
-                        : new SvgPlot.Series("design", design.timesSeconds(), design.controllerOutputsPercent(), DESIGN,
+                ? (designSampled ? held("as-found", design, DESIGN, true)
+                        : new SvgPlot.Series("as-found", design.timesSeconds(), design.controllerOutputsPercent(), DESIGN,
                                 true))
-                : new SvgPlot.Series("design", design.timesSeconds(), design.processValuesPercent(), DESIGN, true);
-        SvgPlot.Series t = output ? held("target", target, TARGET, false)
-                : new SvgPlot.Series("target", target.timesSeconds(), target.processValuesPercent(), TARGET, false);
+                : new SvgPlot.Series("as-found", design.timesSeconds(), design.processValuesPercent(), DESIGN, true);
+        SvgPlot.Series t = output ? held("as-left", target, TARGET, false)
+                : new SvgPlot.Series("as-left", target.timesSeconds(), target.processValuesPercent(), TARGET, false);
         return SvgPlot.panel(title, "time, s", output ? "output, %" : "PV, %", List.of(d, t), false, size);
     }
 

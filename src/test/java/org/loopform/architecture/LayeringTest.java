@@ -72,6 +72,6 @@ class LayeringTest {
     static final ArchRule file_formats_only_in_io_and_report = noClasses().that()
             .resideOutsideOfPackages("org.loopform.io..", "org.loopform.report..")
             .should().dependOnClassesThat().resideInAnyPackage("org.yaml.snakeyaml..", "org.apache.commons.csv..",
-                    "com.fasterxml.jackson..")
-            .because("SnakeYAML, Commons CSV and Jackson read and write files: io and report only");
+                    "com.fasterxml.jackson..", "org.dhatim.fastexcel..", "org.apache.poi..")
+            .because("SnakeYAML, Commons CSV, Jackson, FastExcel and Apache POI read and write files: io and report only");
 }

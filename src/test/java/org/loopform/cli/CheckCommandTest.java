@@ -71,7 +71,7 @@ class CheckCommandTest {
             assertThat(run.exitCode()).as(run.err()).isEqualTo(0);
             assertThat(run.err()).isEmpty();
             assertThat(run.out()).contains("TIC-7: ideal -> ideal-pb-repeats at a 0.5 s scan", "verdict: WARN",
-                    "figure", "design", "target", "phase margin", "gain margin", "max sensitivity Ms",
+                    "figure", "as-found", "as-left", "phase margin", "gain margin", "max sensitivity Ms",
                     "delay margin", "setpoint step IAE", "load step peak", "Findings:", "[warn] derivative");
         }
 

@@ -49,8 +49,10 @@ class HtmlReportTest {
         }
 
         @Test
-        void fetches_nothing_and_runs_no_script() {
-            assertThat(withPlots).doesNotContain("<script", " src=", "<link", "@import", "url(", "href=\"http");
+        void fetches_nothing_and_runs_only_the_inline_filter_script() {
+            assertThat(withPlots).doesNotContain(" src=", "<link", "@import", "url(", "href=\"http");
+            assertThat(withPlots.split("<script", -1)).hasSize(2);
+            assertThat(withPlots).contains("<script>\n" + HtmlIndex.FILTER_SCRIPT + "</script>");
         }
 
         @Test
@@ -136,8 +138,8 @@ class HtmlReportTest {
         void show_the_tuning_before_and_after_with_units() throws Exception {
             LoopOutcome o = outcome("TIC-104");
             String s = SampleAudit.section(o, false);
-            assertThat(s).contains("Tuning before and after", "source: " + o.result().conversion().from().id(),
-                    "target: " + o.result().conversion().to().id());
+            assertThat(s).contains("Tuning, as-found (old) and as-left (new)", "old: " + o.result().conversion().from().id(),
+                    "new: " + o.result().conversion().to().id());
             o.result().conversion().parameters().values().keySet().forEach(k -> assertThat(s)
                     .contains("<td class=\"sep\">" + k + "</td>")
                     .contains("<td class=\"unit\">" + Html.esc(org.loopform.form.FormUnits.of(
@@ -174,7 +176,7 @@ class HtmlReportTest {
         @Test
         void say_so_when_there_is_no_process_model() throws Exception {
             String s = SampleAudit.section(outcome("PIC-12"), false);
-            assertThat(s).contains("No process model").doesNotContain("Design loop and target loop");
+            assertThat(s).contains("No process model").doesNotContain("Loop as-found (old) and as-left (new)");
         }
 
         @Test

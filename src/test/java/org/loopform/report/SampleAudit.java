@@ -61,6 +61,7 @@ final class SampleAudit {
         Path sections = Files.createTempFile("loopform-sections", ".html");
         try {
             AuditSummary summary;
+            StringBuilder index = new StringBuilder();
             try (BufferedWriter w = Files.newBufferedWriter(sections, StandardCharsets.UTF_8)) {
                 int[] plotted = {0};
                 summary = Audit.run(rows().iterator(), CheckPolicy.DEFAULT, 1, o -> {
@@ -68,13 +69,14 @@ final class SampleAudit {
                     if (plots) {
                         plotted[0]++;
                     }
+                    index.append(HtmlReport.indexRow(o));
                     section(w, o, plots);
                 });
             }
             Files.createDirectories(target.toAbsolutePath().getParent());
             try (BufferedReader r = Files.newBufferedReader(sections, StandardCharsets.UTF_8);
                  BufferedWriter out = Files.newBufferedWriter(target, StandardCharsets.UTF_8)) {
-                HtmlReport.writeDocument(out, summary, INFO, r);
+                HtmlReport.writeDocument(out, summary, INFO, new java.io.StringReader(index.toString()), r);
             }
         } finally {
             Files.deleteIfExists(sections);
@@ -85,12 +87,15 @@ final class SampleAudit {
     static String document(List<LoopOutcome> outcomes, boolean plots) throws IOException {
         AuditSummary summary = new AuditSummary();
         StringWriter sections = new StringWriter();
+        StringBuilder index = new StringBuilder();
         for (LoopOutcome o : outcomes) {
             summary.add(o);
+            index.append(HtmlReport.indexRow(o));
             HtmlReport.writeLoopSection(sections, o, plots);
         }
         StringWriter out = new StringWriter();
-        HtmlReport.writeDocument(out, summary, INFO, new java.io.StringReader(sections.toString()));
+        HtmlReport.writeDocument(out, summary, INFO, new java.io.StringReader(index.toString()),
+                new java.io.StringReader(sections.toString()));
         return out.toString();
     }
 
