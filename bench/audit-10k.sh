@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Times a 10,000-loop CSV audit (FOPDT models, CSV and JSON outputs, no HTML), JVM start included.
 # Usage: bench/audit-10k.sh [LOOPS] [RUNS]   (defaults 10000 and 5). Prints each run and the median.
+# Runs the launcher ./loopform with its JVM options (LOOPFORM_JAVA_OPTS overrides them).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 loops=${1:-10000}
@@ -23,7 +24,7 @@ times=()
 for r in $(seq 1 "$runs"); do
   rm -rf "$work/out"
   start=$(date +%s.%N)
-  java -jar target/loopform.jar audit "$work/loops.csv" --to ideal-pb-repeats --scan 0.5s --out "$work/out" \
+  ./loopform audit "$work/loops.csv" --to ideal-pb-repeats --scan 0.5s --out "$work/out" \
     --no-report >/dev/null || [ $? -eq 1 ]
   end=$(date +%s.%N)
   t=$(echo "$end - $start" | bc -l)

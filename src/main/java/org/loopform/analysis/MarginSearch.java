@@ -40,6 +40,7 @@ final class MarginSearch {
     private static final int MAX_EVALUATIONS = 200;
     /** Most phase turn allowed between grid neighbours: 22.5 deg, well inside the half turn unwrapping needs. */
     static final double MAX_PHASE_STEP_RADIANS = Math.PI / 8;
+    private static final double TAN_MAX_PHASE_STEP = Math.tan(MAX_PHASE_STEP_RADIANS);
     /** Most change of |L| allowed between grid neighbours, up or down. */
     static final double MAX_MAGNITUDE_RATIO = 2.0;
     /** Relative frequency step of the one-sided difference that gives the phase slope at a base point. */
@@ -63,15 +64,14 @@ final class MarginSearch {
     private double[] w = new double[512];
     private double[] re = new double[512];
     private double[] im = new double[512];
-    /** Principal argument of each grid point, (-pi, pi]. */
-    private double[] arg = new double[512];
     /** Continuously unwrapped phase, anchored at the bottom of the band. */
     private double[] phase;
     private int n;
 
-    /** The crossing being refined: the unwrapped phase and principal argument of its left grid point, and its level. */
+    /** The crossing being refined: the unwrapped phase and value of L at its left grid point, and its level. */
     private double anchorPhase;
-    private double anchorArg;
+    private double anchorRe;
+    private double anchorIm;
     private double levelRadians;
 
     private final List<PhaseCrossover> phaseCrossovers = new ArrayList<>();
@@ -131,10 +131,9 @@ final class MarginSearch {
             loop.at(base[k], reIm);
             baseRe[k] = reIm[0];
             baseIm[k] = reIm[1];
-            double argHere = Math.atan2(reIm[1], reIm[0]);
             double step = base[k] * SLOPE_RELATIVE_STEP;
             loop.at(base[k] - step, reIm);
-            slope[k] = wrap(argHere - Math.atan2(reIm[1], reIm[0])) / step;
+            slope[k] = ArgumentWalk.turn(reIm[0], reIm[1], baseRe[k], baseIm[k]) / step;
         }
         append(base[0], baseRe[0], baseIm[0]);
         for (int k = 0; k < count - 1; k++) {
@@ -179,7 +178,10 @@ final class MarginSearch {
                 || ratioSquared * MAX_MAGNITUDE_RATIO * MAX_MAGNITUDE_RATIO < 1) {
             return true;
         }
-        return Math.abs(wrap(Math.atan2(xIm, xRe) - arg[k])) > MAX_PHASE_STEP_RADIANS;
+        // |arg(x / L_k)| > the step, without an arctangent: cos and sin of the turn are dot and cross
+        double dot = re[k] * xRe + im[k] * xIm;
+        double cross = re[k] * xIm - im[k] * xRe;
+        return !(dot > 0 && Math.abs(cross) <= TAN_MAX_PHASE_STEP * dot);
     }
 
     private void append(double x, double xRe, double xIm) {
@@ -188,12 +190,10 @@ final class MarginSearch {
             w = Arrays.copyOf(w, size);
             re = Arrays.copyOf(re, size);
             im = Arrays.copyOf(im, size);
-            arg = Arrays.copyOf(arg, size);
         }
         w[n] = x;
         re[n] = xRe;
         im[n] = xIm;
-        arg[n] = Math.atan2(xIm, xRe);
         n++;
     }
 
@@ -204,9 +204,11 @@ final class MarginSearch {
      */
     private void unwrap() {
         phase = new double[n];
-        phase[0] = arg[0] > Math.PI / 2 ? arg[0] - TWO_PI : arg[0];
+        double first = Math.atan2(im[0], re[0]);
+        phase[0] = first > Math.PI / 2 ? first - TWO_PI : first;
         for (int k = 1; k < n; k++) {
-            phase[k] = phase[k - 1] + wrap(arg[k] - arg[k - 1]);
+            // the principal turn from point k - 1 to point k (one arctangent of a small angle)
+            phase[k] = phase[k - 1] + ArgumentWalk.turn(re[k - 1], im[k - 1], re[k], im[k]);
         }
     }
 
@@ -215,7 +217,7 @@ final class MarginSearch {
     private void gainCrossover(int k) {
         double omega = solver.solve(MAX_EVALUATIONS, magnitudeSquaredMinusOne, w[k], w[k + 1]);
         loop.at(omega, reIm);
-        double phaseRadians = phase[k] + wrap(Math.atan2(reIm[1], reIm[0]) - arg[k]);
+        double phaseRadians = phase[k] + ArgumentWalk.turn(re[k], im[k], reIm[0], reIm[1]);
         double marginDegrees = 180 + Math.toDegrees(phaseRadians);
         double wrappedDegrees = marginDegrees - 360 * Math.ceil((marginDegrees - 180) / 360);
         if (wrappedDegrees <= -180) {
@@ -228,7 +230,8 @@ final class MarginSearch {
 
     private void phaseCrossover(int k, int level, boolean falling) {
         anchorPhase = phase[k];
-        anchorArg = arg[k];
+        anchorRe = re[k];
+        anchorIm = im[k];
         levelRadians = level(level);
         double omega;
         if (phase[k] == levelRadians) {
@@ -350,10 +353,6 @@ final class MarginSearch {
         return (int) Math.round((phaseRadians + Math.PI) / TWO_PI);
     }
 
-    /** An angle moved into (-pi, pi]. */
-    private static double wrap(double radians) {
-        return radians - TWO_PI * Math.ceil((radians - Math.PI) / TWO_PI);
-    }
 
     private double magnitudeSquared(int k) {
         return re[k] * re[k] + im[k] * im[k];
@@ -372,7 +371,7 @@ final class MarginSearch {
     /** The unwrapped phase, continued from the anchor grid point, less the level being crossed. */
     private double phaseFromLevel(double omegaRadPerSecond) {
         loop.at(omegaRadPerSecond, reIm);
-        return anchorPhase + wrap(Math.atan2(reIm[1], reIm[0]) - anchorArg) - levelRadians;
+        return anchorPhase + ArgumentWalk.turn(anchorRe, anchorIm, reIm[0], reIm[1]) - levelRadians;
     }
 
     private double returnDifferenceSquaredAt(double omegaRadPerSecond) {
