@@ -125,44 +125,16 @@ public final class SampledStateSpace {
      * {@link #newWorkspace}), so that it allocates nothing; the same numbers to the last bit.
      */
     public void responseAt(double omegaRadPerSecond, Workspace workspace, double[] out) {
-        int n = order;
-        if (workspace.order != n) {
-            throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
-                    + n + "; take it from this model's newWorkspace()");
-        }
         double theta = omegaRadPerSecond * scanSeconds;
-        double zRe = Math.cos(theta);
-        double zIm = Math.sin(theta);
-        // z^-1 = conj(z) on the unit circle
-        double invRe = zRe;
-        double invIm = -zIm;
-        double[] mRe = workspace.matrixRe;
-        double[] mIm = workspace.matrixIm;
-        double[] rRe = workspace.vectorRe;
-        double[] rIm = workspace.vectorIm;
-        java.util.Arrays.fill(mIm, 0.0);
-        for (int i = 0; i < n; i++) {
-            for (int j = 0; j < n; j++) {
-                mRe[i * n + j] = -stateRowMajor[i * n + j];
-            }
-            mRe[i * n + i] += zRe;
-            mIm[i * n + i] = zIm;
-            rRe[i] = inputNow[i] + inputPrevious[i] * invRe;
-            rIm[i] = inputPrevious[i] * invIm;
-        }
-        ComplexLinearSolve.solveInPlace(n, mRe, mIm, rRe, rIm);
-        double hRe = feedthrough * invRe;
-        double hIm = feedthrough * invIm;
-        for (int i = 0; i < n; i++) {
-            hRe += output[i] * rRe[i];
-            hIm += output[i] * rIm[i];
-        }
+        double cos = Math.cos(theta);
+        double sin = Math.sin(theta);
+        solve(0.0, cos, sin, cos > 0 ? sin * sin / (1 + cos) : 1 - cos, workspace);
         // z^-d = e^(-i d theta)
         double delayPhase = -delayScans * theta;
-        double cos = Math.cos(delayPhase);
-        double sin = Math.sin(delayPhase);
-        out[0] = hRe * cos - hIm * sin;
-        out[1] = hRe * sin + hIm * cos;
+        double dc = Math.cos(delayPhase);
+        double ds = Math.sin(delayPhase);
+        out[0] = workspace.hRe * dc - workspace.hIm * ds;
+        out[1] = workspace.hRe * ds + workspace.hIm * dc;
     }
 
     /**
@@ -173,11 +145,6 @@ public final class SampledStateSpace {
      * points a hair from a pole near z = 1 keep their precision. Allocates nothing with a workspace.
      */
     public void responseAtRadius(double radiusOffset, double theta, Workspace workspace, double[] out) {
-        int n = order;
-        if (workspace.order != n) {
-            throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
-                    + n + "; take it from this model's newWorkspace()");
-        }
         double cos = Math.cos(theta);
         double sin = Math.sin(theta);
         rationalAtPoint(radiusOffset, cos, sin, cos > 0 ? sin * sin / (1 + cos) : 1 - cos, workspace, out);
@@ -199,6 +166,17 @@ public final class SampledStateSpace {
      */
     public void rationalAtPoint(double radiusOffset, double cos, double sin, double oneMinusCos, Workspace workspace,
                                 double[] out) {
+        solve(radiusOffset, cos, sin, oneMinusCos, workspace);
+        out[2] = workspace.hRe;
+        out[3] = workspace.hIm;
+    }
+
+    /**
+     * {@code C (zI - A)^-1 (B0 + B1 z^-1) + D z^-1} at {@code z = (1 + radiusOffset) e^(i theta)} into the
+     * workspace's {@code hRe, hIm}; the diagonal of {@code zI - A} is {@code (1 - a) + (z - 1)} with
+     * {@code z - 1 = radiusOffset cos - (1 - cos) + i radius sin}, so points near z = 1 keep their precision.
+     */
+    private void solve(double radiusOffset, double cos, double sin, double oneMinusCos, Workspace workspace) {
         int n = order;
         if (workspace.order != n) {
             throw new IllegalArgumentException("workspace is for order " + workspace.order + ", the model has order "
@@ -232,8 +210,8 @@ public final class SampledStateSpace {
             hRe += output[i] * rRe[i];
             hIm += output[i] * rIm[i];
         }
-        out[2] = hRe;
-        out[3] = hIm;
+        workspace.hRe = hRe;
+        workspace.hIm = hIm;
     }
 
     /** The eigenvalues of A, the sampled process's poles other than the delay line's at z = 0, as {re, im} pairs. */
@@ -287,6 +265,9 @@ public final class SampledStateSpace {
         private final double[] matrixIm;
         private final double[] vectorRe;
         private final double[] vectorIm;
+        /** The last solve's result. */
+        private double hRe;
+        private double hIm;
 
         private Workspace(int order) {
             this.order = order;
