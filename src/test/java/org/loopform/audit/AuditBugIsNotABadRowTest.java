@@ -11,6 +11,7 @@ import org.loopform.io.LoopFileReader;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
+/** Only bad input becomes a bad row; a bug stops the run with exit 3: pure plumbing, no figure of the main job. */
 @DisplayName("an audit turns only bad input into a bad row")
 class AuditBugIsNotABadRowTest {
 

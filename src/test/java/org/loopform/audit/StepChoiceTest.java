@@ -19,7 +19,8 @@ import org.loopform.io.LoopFileReader;
  * The steps a check chooses and what it says when the controller output reaches a limit. The
  * form "ideal" has output limits 0..100 % and b = 1 (proportional action on the setpoint); the
  * operating point is 50 % PV and 50 % output; steps are cut to keep the linear loop within 80 %
- * of the room to each limit, never below 1 % (loopform policy, {@code simulate.StepTest}).
+ * of the room to each limit, never below 1 % (loopform policy, {@code simulate.StepTest}; small steps that
+ * keep a bump test linear are common practice). Expected outputs are worked out by hand beside each check.
  */
 @DisplayName("step choice and saturation")
 class StepChoiceTest {

@@ -6,7 +6,10 @@ import static org.assertj.core.api.Assertions.within;
 import org.junit.jupiter.api.Test;
 import org.loopform.identify.Records.Move;
 
-/** The fitted response drawn by {@code fit --plot} and used for its residuals, against analytic step responses. */
+/**
+ * The fitted response drawn by {@code fit --plot} and used for its residuals, against analytic step responses
+ * (inverse Laplace transforms of the first- and second-order models and the integrator: common practice).
+ */
 class FittedResponseTest {
 
     @Test

@@ -6,6 +6,13 @@ import static org.assertj.core.api.Assertions.within;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
+/**
+ * The process followed between scans under a zero-order hold, against closed-form step responses
+ * (first order K (1 - e^(-t/T)) after the dead time, the integrator's ramp: inverse Laplace
+ * transforms, common practice) and against the scan-sampled process (Astrom and Wittenmark,
+ * Computer-Controlled Systems, 3rd ed., 1997, ch. 2, sampling with a time delay - from memory for the
+ * chapter).
+ */
 @DisplayName("A process followed between scans")
 class HeldProcessTest {
 

@@ -7,6 +7,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.loopform.audit.LoopOutcome;
 
+/** The report's index of loops and its filter box: pure plumbing (markup), no figure of the main job. */
 class HtmlIndexTest {
 
     @Test
