@@ -72,6 +72,9 @@ public final class LoopCheck {
         FrequencyBand lawBand = TuningBand.implied(designLaw.terms(), h);
 
         List<Finding> findings = new ArrayList<>(ConversionRules.findings(conversion, policy));
+        if (!loop.hasProcess()) {
+            findings.add(StabilityRule.notJudged());
+        }
         Optional<Compared> compared = loop.hasProcess()
                 ? Optional.of(compare(loop, conversion, entered, targetPulse, lawBand, horizonSeconds, findings))
                 : Optional.empty();

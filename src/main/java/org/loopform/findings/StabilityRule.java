@@ -37,6 +37,17 @@ public final class StabilityRule {
         return out;
     }
 
+    /**
+     * Said for a loop checked without a process model: a verdict of pass then covers the conversion,
+     * the controller as run and the sampling rules only, never the loop's stability.
+     */
+    public static Finding notJudged() {
+        return new Finding(Topic.STABILITY, Severity.INFO, null, null, "", "common practice",
+                "No process model: the loop's stability, margins and step responses were not checked, only the"
+                        + " conversion, the controller as the target runs it and the sampling rules. Give the loop a"
+                        + " process (a step-test model, or one from loopform fit) to have them checked.");
+    }
+
     private static String lowerFirst(String s) {
         return s.isEmpty() ? s : Character.toLowerCase(s.charAt(0)) + s.substring(1);
     }

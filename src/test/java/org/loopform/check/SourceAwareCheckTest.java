@@ -81,4 +81,16 @@ class SourceAwareCheckTest {
         assertThat(r.conversion().loopBand().lowRadPerSecond()).isCloseTo(wc / 10, within(1e-3 * wc));
         assertThat(r.conversion().loopBand().highRadPerSecond()).isCloseTo(3 * wc, within(1e-3 * wc));
     }
+
+    /** Without a process model nothing says the loop is stable: the check must say it did not judge it. */
+    @Test
+    void a_loop_without_a_process_says_its_stability_was_not_checked() throws IOException {
+        Path file = Files.writeString(dir.resolve("bare.yaml"), "tag: FIC-900\n"
+                + "tuning: {form: ideal, kc: 1, ti: 60, td: 0}\ntarget: {form: ideal, scan: 1 s}\n");
+        CheckResult r = LoopCheck.run(LoopFileReader.readOne(file, file.toString()), CheckPolicy.DEFAULT);
+        assertThat(r.findings()).anySatisfy(f -> {
+            assertThat(f.topic()).isEqualTo(Topic.STABILITY);
+            assertThat(f.message()).contains("No process model").contains("were not checked");
+        });
+    }
 }
