@@ -37,6 +37,28 @@ final class AuditRunner {
     /** Date, time, offset and zone: {@code 2026-03-01 14:05:09 +01:00 (Europe/Berlin)}. */
     private static final DateTimeFormatter WRITTEN_AT = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm:ss xxx '('VV')'");
 
+    /**
+     * When the record was written: now, in the machine's zone; or, when the environment sets
+     * {@code SOURCE_DATE_EPOCH} (seconds since 1970-01-01 UTC, the reproducible-builds.org
+     * specification), that instant in UTC, so two runs on the same inputs write the same bytes.
+     */
+    static String writtenAt(String sourceDateEpoch) {
+        if (sourceDateEpoch == null || sourceDateEpoch.isBlank()) {
+            return ZonedDateTime.now().withNano(0).format(WRITTEN_AT);
+        }
+        long seconds;
+        try {
+            seconds = Long.parseLong(sourceDateEpoch.strip());
+        } catch (NumberFormatException e) {
+            seconds = -1;
+        }
+        if (seconds < 0 || seconds > 253_402_300_799L) {
+            throw new org.loopform.units.BadInput("the environment variable SOURCE_DATE_EPOCH is '" + sourceDateEpoch
+                    + "': it must be a whole number of seconds since 1970-01-01 00:00:00 UTC (unset it to use the clock)");
+        }
+        return java.time.Instant.ofEpochSecond(seconds).atZone(java.time.ZoneId.of("UTC")).format(WRITTEN_AT);
+    }
+
     private static void spec(PrintWriter err, String input) {
         err.println("loopform: " + input + ": no loops were found; a loop list needs a header row and one loop a row"
                 + " (CSV), or a 'loops:' list (YAML)");
@@ -66,6 +88,8 @@ final class AuditRunner {
     }
 
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
+        String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
+        writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
                 AuditRows.LOOP_COLUMNS, AuditRows.ENTRY_COLUMNS);
         Progress progress = s.progress();
@@ -104,7 +128,7 @@ final class AuditRunner {
                     }
                 }
                 AuditInfo info = new AuditInfo("loopform migration audit", s.inputName(),
-                        ZonedDateTime.now().withNano(0).format(WRITTEN_AT), s.settingsText(), s.signOff(),
+                        writtenAt(reproducibleTime), s.settingsText(), s.signOff(),
                         VersionProvider.version(), files, s.policy());
                 Map<String, ObjectNode> more = new LinkedHashMap<>();
                 more.put("signoff", AuditRows.signOffJson(info));

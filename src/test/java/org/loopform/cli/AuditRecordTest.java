@@ -108,4 +108,15 @@ class AuditRecordTest {
                 .digest(Files.readAllBytes(dir.resolve("k7.yaml"))));
         assertThat(inputs.findValuesAsText("sha256")).contains(expected);
     }
+
+    @Test
+    @DisplayName("SOURCE_DATE_EPOCH fixes the written time (reproducible-builds.org specification): "
+            + "1,700,000,000 s after 1970-01-01 UTC is 2023-11-14 22:13:20 UTC")
+    void a_reproducible_time_is_read_from_source_date_epoch_and_a_bad_one_refused() {
+        assertThat(AuditRunner.writtenAt("1700000000")).isEqualTo("2023-11-14 22:13:20 +00:00 (UTC)");
+        assertThat(AuditRunner.writtenAt(null)).matches("\\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d:\\d\\d [+-]\\d\\d:\\d\\d \\(.+\\)");
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> AuditRunner.writtenAt("yesterday"))
+                .isInstanceOf(org.loopform.units.BadInput.class).hasMessageContaining("SOURCE_DATE_EPOCH")
+                .hasMessageContaining("whole number of seconds");
+    }
 }
