@@ -57,7 +57,9 @@ final class HtmlLoopSection {
         writeFindings(w, r.findings());
         if (withPlots) {
             w.write("<details class=\"plots\" open><summary>Plots: responses, as-found (old) dashed and as-left (new)"
-                    + " solid; new controller as run, feedback path solid and setpoint path dashed</summary>"
+                    + " solid, each step until both have settled; output limits dotted, shaded with a bar at the top"
+                    + " where an output sits at a limit; new controller as run, feedback path solid and setpoint path"
+                    + " dashed</summary>"
                     + "<div class=\"panels\">\n");
             for (String panel : LoopPlots.panels(r, SvgPlot.Size.COMPACT)) {
                 w.write("<figure>");

@@ -22,6 +22,18 @@ final class PlotFrame {
     }
 
     static PlotFrame of(List<SvgPlot.Series> series, boolean logX, SvgPlot.Size size) {
+        return of(series, List.of(), logX, size);
+    }
+
+    /**
+     * How far outside the lines' range a level may lie and still be drawn, in multiples of that
+     * range: the frame then grows to include it, to at most three times the lines' range, so the
+     * lines keep most of the height. A level farther off is named in the legend only.
+     */
+    static final double LEVEL_REACH = 1.0;
+
+    /** The frame of {@code series}, grown to include the {@code levels} within {@link #LEVEL_REACH} of them. */
+    static PlotFrame of(List<SvgPlot.Series> series, List<SvgPlot.Level> levels, boolean logX, SvgPlot.Size size) {
         double x0 = Double.POSITIVE_INFINITY;
         double x1 = Double.NEGATIVE_INFINITY;
         double y0 = Double.POSITIVE_INFINITY;
@@ -50,6 +62,15 @@ final class PlotFrame {
         if (!(y1 > y0)) {
             y0 -= 1;
             y1 += 1;
+        }
+        double reach = LEVEL_REACH * (y1 - y0);
+        double low = y0;
+        double high = y1;
+        for (SvgPlot.Level l : levels) {
+            if (l.y() >= low - reach && l.y() <= high + reach) {
+                y0 = Math.min(y0, l.y());
+                y1 = Math.max(y1, l.y());
+            }
         }
         double pad = 0.05 * (y1 - y0);
         return new PlotFrame(x0, x1, y0 - pad, y1 + pad, logX, size);

@@ -9,8 +9,35 @@ import java.util.Locale;
  */
 public final class SvgPlot {
 
-    /** One line on a chart. {@code dashed} draws the reference (design) line. */
+    /** One line on a chart. {@code dashed} draws the reference (as-found) line. */
     public record Series(String label, double[] x, double[] y, String colour, boolean dashed) {
+    }
+
+    /**
+     * A horizontal line at {@code y} (an output limit), drawn dotted across the plot and named in
+     * the legend; those far outside the lines' range are named on one legend row, as off the
+     * scale, so that they do not squash the lines (see {@link PlotFrame#of}).
+     */
+    public record Level(String label, double y, String colour) {
+        public Level {
+            if (!Double.isFinite(y)) {
+                throw new IllegalArgumentException("a level must be finite (got " + y + ")");
+            }
+        }
+    }
+
+    /**
+     * A stretch of the x axis to mark, from {@code fromX} to {@code toX} (an output sitting at a
+     * limit): shaded lightly over the plot's height and drawn as a solid bar in row {@code row}
+     * (0, 1, ...) along the top edge, so that it shows on a grey-scale print too.
+     */
+    public record Stretch(double fromX, double toX, String colour, int row) {
+        public Stretch {
+            if (!Double.isFinite(fromX) || !(toX >= fromX) || !Double.isFinite(toX) || row < 0) {
+                throw new IllegalArgumentException("a stretch needs finite from <= to and a row >= 0 (got " + fromX
+                        + " to " + toX + ", row " + row + ")");
+            }
+        }
     }
 
     private SvgPlot() {
@@ -49,7 +76,19 @@ public final class SvgPlot {
     /** A panel as an {@code <svg>} element of the given size. */
     public static String panel(String title, String xLabel, String yLabel, List<Series> series, boolean logX,
                                Size size) {
-        PlotFrame f = PlotFrame.of(series, logX, size);
+        return panel(title, xLabel, yLabel, series, List.of(), List.of(), null, logX, size);
+    }
+
+    /** Height of a stretch's bar along the top edge of the plot, px. */
+    static final int STRETCH_BAR = 4;
+
+    /**
+     * A panel with horizontal {@code levels} and marked {@code stretches} as well as lines; the
+     * stretches are named {@code stretchLabel} in the legend.
+     */
+    public static String panel(String title, String xLabel, String yLabel, List<Series> series, List<Level> levels,
+                               List<Stretch> stretches, String stretchLabel, boolean logX, Size size) {
+        PlotFrame f = PlotFrame.of(series, levels, logX, size);
         int width = size.width();
         int height = size.height();
         StringBuilder sb = new StringBuilder();
@@ -77,6 +116,28 @@ public final class SvgPlot {
                 (LEFT + width - RIGHT) / 2, height - 8, esc(xLabel)));
         sb.append(String.format(Locale.ROOT, "<text transform=\"translate(14,%d) rotate(-90)\" text-anchor=\"middle\">"
                 + "%s</text>%n", (TOP + height - BOTTOM) / 2, esc(yLabel)));
+        for (Stretch st : stretches) {
+            double a = Math.max(f.px(st.fromX()), LEFT);
+            double b = Math.min(f.px(st.toX()), width - RIGHT);
+            if (!(b > a)) {
+                b = Math.min(a + 1, width - RIGHT);
+            }
+            sb.append(String.format(Locale.ROOT, "<rect class=\"at-limit\" x=\"%.1f\" y=\"%d\" width=\"%.1f\" "
+                    + "height=\"%d\" fill=\"%s\" fill-opacity=\"0.12\"/><rect x=\"%.1f\" y=\"%d\" width=\"%.1f\" "
+                    + "height=\"%d\" fill=\"%s\"/>%n", a, TOP, b - a, height - TOP - BOTTOM, st.colour(), a,
+                    TOP + 1 + st.row() * (STRETCH_BAR + 1), b - a, STRETCH_BAR, st.colour()));
+        }
+        List<Level> off = new java.util.ArrayList<>();
+        for (Level l : levels) {
+            if (l.y() < f.y0 || l.y() > f.y1) {
+                off.add(l);
+                continue;
+            }
+            double py = f.py(l.y());
+            sb.append(String.format(Locale.ROOT, "<line class=\"level\" x1=\"%d\" x2=\"%d\" y1=\"%.1f\" y2=\"%.1f\" "
+                    + "stroke=\"%s\" stroke-width=\"1.2\" stroke-dasharray=\"2 2\"/>%n", LEFT, width - RIGHT, py, py,
+                    l.colour()));
+        }
         List<double[]> lines = new java.util.ArrayList<>();
         for (Series s : series) {
             double[] pts = f.pixels(s, size.maxPoints());
@@ -89,7 +150,9 @@ public final class SvgPlot {
                     + "points=\"%s\"/>%n", s.colour(), s.dashed() ? " stroke-dasharray=\"6 3\"" : "",
                     text.toString().trim()));
         }
-        int[] corner = legendCorner(lines, series.size(), size);
+        int drawnLevels = levels.size() - off.size();
+        int rows = series.size() + drawnLevels + (off.isEmpty() ? 0 : 1) + (stretches.isEmpty() ? 0 : 1);
+        int[] corner = legendCorner(lines, rows, size);
         int legendX = corner[0];
         int legendY = corner[1];
         for (Series s : series) {
@@ -98,6 +161,27 @@ public final class SvgPlot {
                     legendX, legendY, legendY, s.colour(), s.dashed() ? " stroke-dasharray=\"6 3\"" : "",
                     legendX - 26, legendY + 4, esc(s.label())));
             legendY += LEGEND_ROW;
+        }
+        for (Level l : levels) {
+            if (off.contains(l)) {
+                continue;
+            }
+            sb.append(String.format(Locale.ROOT, "<line x1=\"%d\" x2=\"%d\" y1=\"%d\" y2=\"%d\" stroke=\"%s\" "
+                    + "stroke-width=\"1.2\" stroke-dasharray=\"2 2\"/><text x=\"%d\" y=\"%d\" text-anchor=\"end\">%s"
+                    + "</text>%n", legendX - 22, legendX, legendY, legendY, l.colour(), legendX - 26, legendY + 4,
+                    esc(l.label())));
+            legendY += LEGEND_ROW;
+        }
+        if (!off.isEmpty()) {
+            // levels far off the lines share one row, without a swatch: nothing of them is drawn
+            sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"%d\" text-anchor=\"end\">%s</text>%n", legendX,
+                    legendY + 4, esc("off the scale: " + String.join(", ", off.stream().map(Level::label).toList()))));
+            legendY += LEGEND_ROW;
+        }
+        if (!stretches.isEmpty()) {
+            sb.append(String.format(Locale.ROOT, "<rect x=\"%d\" y=\"%d\" width=\"22\" height=\"%d\" fill=\"#777\"/>"
+                    + "<text x=\"%d\" y=\"%d\" text-anchor=\"end\">%s</text>%n", legendX - 22, legendY - 2, STRETCH_BAR,
+                    legendX - 26, legendY + 4, esc(stretchLabel == null ? "marked" : stretchLabel)));
         }
         sb.append("</svg>\n");
         return sb.toString();

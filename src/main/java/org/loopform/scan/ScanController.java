@@ -97,7 +97,8 @@ public final class ScanController {
         this.previousWeight = rule.previous();
         this.trackingTimeSeconds = trackingTime(setting, algorithm.trackingTimeSeconds());
         this.trackingGain = ki == 0 ? 0.0 : scanSeconds / trackingTimeSeconds;
-        reset(0.0, 0.0, 0.0);
+        // at rest at 0 %, or at the nearer limit when the output range leaves 0 % out (say 48..52 %)
+        reset(limited ? limit(0.0) : 0.0, 0.0, 0.0);
     }
 
     /** The controller with the algorithm's output limits (and its anti-windup) in force. */
