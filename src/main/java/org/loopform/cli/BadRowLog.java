@@ -36,7 +36,7 @@ final class BadRowLog {
     void finish() {
         if (problems > SHOWN) {
             err.println("loopform: ... and " + (problems - SHOWN) + " more problems; " + rows + " bad rows in all"
-                    + " (each is listed in loops.csv with --out)");
+                    + " (with --out DIR, loops.csv lists each once at least one loop is checked)");
         } else if (rows > 0) {
             err.println("loopform: " + rows + (rows == 1 ? " bad row" : " bad rows") + " not checked");
         }

@@ -324,7 +324,11 @@ public final class AuditRows {
         return n;
     }
 
-    /** The stdout summary: counts, the worst loops, bad rows. */
+    /**
+     * The stdout summary: counts, the worst loops, bad rows. {@code outFolder} is the folder written,
+     * or null when nothing was (no {@code --out}, or no loop could be checked): the text then points
+     * to {@code --out DIR} rather than to files that do not exist.
+     */
     public static String summaryText(AuditSummary s, String outFolder) {
         String nl = System.lineSeparator();
         StringBuilder sb = new StringBuilder();
@@ -355,8 +359,9 @@ public final class AuditRows {
             sb.append(t.render(2));
             int notPassing = s.count(Verdict.FAIL) + s.count(Verdict.WARN);
             if (notPassing > shown) {
-                sb.append("  ... and ").append(notPassing - shown).append(" more that warn or fail; every loop is in"
-                        + " loops.csv and in the report's index").append(nl);
+                sb.append("  ... and ").append(notPassing - shown).append(" more that warn or fail; ")
+                        .append(outFolder != null ? "every loop is in loops.csv in " + outFolder
+                                : "give --out DIR to have every loop written to loops.csv and the report").append(nl);
             }
         }
         if (!s.assumptions().isEmpty()) {
@@ -368,7 +373,10 @@ public final class AuditRows {
             sb.append(nl).append("Bad rows (not checked):").append(nl);
             s.badRows().stream().limit(20).forEach(p -> sb.append("  ").append(p).append(nl));
             if (s.badRowProblemCount() > 20) {
-                sb.append("  ... and ").append(s.badRowProblemCount() - 20).append(" more in loops.csv").append(nl);
+                sb.append("  ... and ").append(s.badRowProblemCount() - 20).append(" more; ")
+                        .append(outFolder != null ? "every bad row is in loops.csv in " + outFolder
+                                : "stderr shows the first 100; with --out DIR, loops.csv lists every bad row once at"
+                                + " least one loop is checked").append(nl);
             }
         }
         if (outFolder != null) {

@@ -167,4 +167,24 @@ class AuditCommandTest {
         assertThat(r.err().lines().filter(l -> l.contains(": kc")).count()).isEqualTo(100);
         assertThat(r.err()).contains("... and 150 more problems; 250 bad rows in all");
     }
+
+    @Test
+    void without_out_the_summary_points_to_out_and_names_no_file_it_did_not_write() throws Exception {
+        StringBuilder sb = new StringBuilder("tag,form,kc,ti,td\n");
+        for (int k = 0; k < 30; k++) {
+            sb.append("T-").append(k).append(",ideal,x,60,0\n");
+        }
+        sb.append("FIC-1,ideal,0.5,10,0\n");
+        CliRun r = CliRun.of("audit", csv(sb.toString()).toString(), "--to", "ideal", "--scan", "1s");
+        assertThat(r.exitCode()).isEqualTo(2);
+        assertThat(r.out()).contains("... and 10 more; stderr shows the first 100; with --out DIR, loops.csv lists")
+                .doesNotContain("more in loops.csv").doesNotContain("Written to");
+        assertThat(r.err()).doesNotContain("listed in loops.csv");
+
+        Path out = dir.resolve("out");
+        CliRun written = CliRun.of("audit", dir.resolve("loops.csv").toString(), "--to", "ideal", "--scan", "1s",
+                "--out", out.toString());
+        assertThat(written.out()).contains("... and 10 more; every bad row is in loops.csv in " + out);
+        assertThat(Files.readString(out.resolve("loops.csv"))).contains("T-29");
+    }
 }
