@@ -199,7 +199,7 @@ public final class LoopCheck {
         return Optional.of(new Finding(Topic.ROBUSTNESS, Severity.INFO, simulatedSeconds, null, "s",
                 "common practice", "The controller has no integral action, so the loop holds a steady offset after a"
                 + " step: its IAE grows with the simulated time (" + Numbers.significant(simulatedSeconds, 4)
-                + " s here) and compares only between design and target, not with other loops."));
+                + " s here) and compares only between as-found and as-left, not with other loops."));
     }
 
     /**

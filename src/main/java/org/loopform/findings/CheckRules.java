@@ -139,10 +139,10 @@ public final class CheckRules {
                     p.derivativeNhTdWarn(), "ratio", SAMPLING_PRACTICE, "The scan is coarse for the derivative filter:"
                     + " N h / Td = " + Numbers.significant(f.nhOverTd(), 3) + ", so the filter time constant Td/N = "
                     + Numbers.significant(f.filterSeconds(), 3) + " s spans less than " + Numbers.significant(
-                    1 / f.nhOverTd(), 2) + " scans and the sampled derivative departs from the design's near and above"
+                    1 / f.nhOverTd(), 2) + " scans and the sampled derivative departs from the continuous one near and above"
                     + " its corner (" + Numbers.significant(corner, 3) + " rad/s). " + (shorterThanScan
                     ? "The filter is shorter than one scan: the derivative acts as one-scan spikes. Scan faster, or"
-                    + " expect less derivative action than designed." : matters
+                    + " expect less derivative action than the tuning asks for." : matters
                     ? "That is close enough to the loop's crossover to change what the derivative does: scan faster,"
                     + " or expect less derivative action than designed."
                     : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices."));
@@ -196,7 +196,7 @@ public final class CheckRules {
         LawDeviation d = in.mismatch();
         if (d != null && (d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
             out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
-                    "At this scan the controller as the target runs it departs from its own continuous law by up to "
+                    "At this scan the new controller as it will run departs from its own continuous law by up to "
                     + Numbers.significant(d.gainDb(), 3) + " dB and " + Numbers.significant(d.phaseDegrees(), 3)
                     + " deg over its band (to " + Numbers.significant(in.mismatchBandHighRadPerSecond(), 3)
                     + " rad/s, at most the Nyquist frequency)."));
@@ -218,7 +218,7 @@ public final class CheckRules {
         if (msSeverity != null) {
             boolean fail = msSeverity == Severity.FAIL;
             out.add(new Finding(Topic.ROBUSTNESS, msSeverity, ms, fail ? p.msFail() : p.msWarn(), "ratio",
-                    fail ? PolicyKey.MS_FAIL.source() : MS_SOURCE, "The target loop's maximum sensitivity Ms is "
+                    fail ? PolicyKey.MS_FAIL.source() : MS_SOURCE, "The as-left loop's maximum sensitivity Ms is "
                     + Numbers.significant(ms, 3) + ", above " + Numbers.plain(fail ? p.msFail() : p.msWarn())
                     + (fail ? " (the fail threshold)" : "") + ": it amplifies disturbances near "
                     + Numbers.significant(t.maximumSensitivityRadPerSecond(), 3) + " rad/s and "
@@ -230,7 +230,7 @@ public final class CheckRules {
             double rise = ms / d.maximumSensitivity() - 1;
             out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, 100 * rise, 100 * p.msIncreaseWarn(), "%", COMMON,
                     "Robustness is lost in the migration: Ms rises from " + Numbers.significant(d.maximumSensitivity(), 3)
-                            + " (design) to " + Numbers.significant(ms, 3) + " (target)."));
+                            + " (as-found) to " + Numbers.significant(ms, 3) + " (as-left)."));
         }
         if (t.phaseMarginDegrees().isPresent()) {
             double pm = t.phaseMarginDegrees().getAsDouble();
@@ -239,7 +239,7 @@ public final class CheckRules {
                 double limit = fail ? p.phaseMarginFailDegrees() : p.phaseMarginWarnDegrees();
                 out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, pm, limit, "deg",
                         (fail ? PolicyKey.PHASE_MARGIN_FAIL_DEG : PolicyKey.PHASE_MARGIN_WARN_DEG).source(),
-                        "The target loop's phase margin is " + Numbers.significant(pm, 3) + " deg, below "
+                        "The as-left loop's phase margin is " + Numbers.significant(pm, 3) + " deg, below "
                         + Numbers.plain(limit) + " deg" + (fail ? " (the fail threshold): it will ring badly and is at"
                         + " the edge of instability; do not deploy this tuning: retune or scan faster." : ".")));
             }
@@ -251,7 +251,7 @@ public final class CheckRules {
                 double limit = fail ? p.gainMarginFail() : p.gainMarginWarn();
                 out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, gm, limit, "ratio",
                         (fail ? PolicyKey.GAIN_MARGIN_FAIL : PolicyKey.GAIN_MARGIN_WARN).source(),
-                        "The target loop's gain margin is " + Numbers.significant(gm, 3) + ", below "
+                        "The as-left loop's gain margin is " + Numbers.significant(gm, 3) + ", below "
                         + Numbers.plain(limit) + (fail ? " (the fail threshold): a process gain " + Numbers.significant(
                         100 * (gm - 1), 2) + " % higher than modelled makes it unstable; do not deploy this tuning:"
                         + " retune or scan faster." : ".")));
@@ -279,7 +279,7 @@ public final class CheckRules {
         double limit = fail ? p.gainMarginFail() : p.gainMarginWarn();
         out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, lower, 1 / limit, "ratio",
                 (fail ? PolicyKey.GAIN_MARGIN_FAIL : PolicyKey.GAIN_MARGIN_WARN).source(),
-                "The target loop is conditionally stable: a loop gain " + Numbers.significant(100 * (1 - lower), 2)
+                "The as-left loop is conditionally stable: a loop gain " + Numbers.significant(100 * (1 - lower), 2)
                         + " % lower than modelled (lower gain margin " + Numbers.significant(lower, 3)
                         + ") makes it unstable, where the policy asks for room to shrink by a factor of "
                         + Numbers.plain(limit) + (fail ? " (the fail threshold); do not deploy this tuning: retune"
@@ -298,7 +298,7 @@ public final class CheckRules {
             double limit = fail ? p.delayMarginFailScans() : p.delayMarginWarnScans();
             out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, scans, limit, "scans",
                     (fail ? PolicyKey.DELAY_MARGIN_FAIL_SCANS : PolicyKey.DELAY_MARGIN_WARN_SCANS).source(),
-                    "The target loop's delay margin is " + Numbers.significant(dmSeconds, 3) + " s, "
+                    "The as-left loop's delay margin is " + Numbers.significant(dmSeconds, 3) + " s, "
                     + Numbers.significant(scans, 3) + " scans of " + Numbers.plain(in.scanSeconds()) + " s, below "
                     + Numbers.plain(limit) + " scans" + (fail ? " (the fail threshold): one scan of added latency (a"
                     + " late input or output update) makes it unstable; do not deploy this tuning: retune or scan"
@@ -310,7 +310,7 @@ public final class CheckRules {
     private static void windup(Inputs in, List<Finding> out) {
         var a = in.targetForm().algorithm();
         if (a.kind() == AlgorithmKind.POSITIONAL && a.antiWindup() == AntiWindup.NONE) {
-            out.add(new Finding(Topic.WINDUP, Severity.WARN, null, null, "", COMMON, "Target " + in.targetForm().id()
+            out.add(new Finding(Topic.WINDUP, Severity.WARN, null, null, "", COMMON, "The new form " + in.targetForm().id()
                     + " runs a positional algorithm without anti-windup: after the output saturates, the integral keeps"
                     + " growing and the loop overshoots when it comes off the limit."));
         }

@@ -95,7 +95,7 @@ public final class ConversionRules {
         if (n.complexZerosRatio().isPresent()) {
             double ratio = n.complexZerosRatio().getAsDouble();
             out.add(new Finding(Topic.REALIZABILITY, fitSeverity, ratio, SERIES_RATIO_LIMIT, "ratio", ASTROM_1995,
-                    "The source law has complex zeros (p^2/(d i), the ideal form's Ti/Td, is "
+                    "The old law has complex zeros (p^2/(d i), the ideal form's Ti/Td, is "
                             + Numbers.significant(ratio, 4) + ", below 4), so a series controller cannot write it."
                             + " The nearest series setting " + devText + "."));
             explained = true;
@@ -109,31 +109,31 @@ public final class ConversionRules {
             String what = switch (to.filter().kind()) {
                 case FIXED_RATIO -> "fixes its filter ratio at N = " + Numbers.plain(to.filter().ratio());
                 case NONE -> "has no derivative filter";
-                default -> "cannot hold the source's derivative filter";
+                default -> "cannot hold the old derivative filter";
             };
             if (sourceFiltered && targetFiltered) {
                 double changeDb = 20 * Math.log10(hfTarget / hfSource);
                 out.add(new Finding(Topic.FILTER, fitSeverity, changeDb, 0.0, "dB", POLICY,
-                        "Target " + to.id() + " " + what + ": the high-frequency derivative gain changes from "
+                        "The new form " + to.id() + " " + what + ": the high-frequency derivative gain changes from "
                                 + Numbers.significant(hfSource, 4) + " to " + Numbers.significant(hfTarget, 4)
                                 + " %/% (" + Numbers.significant(changeDb, 3) + " dB); the nearest setting "
                                 + devText + "."));
             } else if (targetFiltered) {
                 out.add(new Finding(Topic.FILTER, fitSeverity, hfTarget, null, "%/%", POLICY,
-                        "The source law has no derivative filter (derivative gain unlimited at high frequency); target "
+                        "The old law has no derivative filter (derivative gain unlimited at high frequency); the new form "
                                 + to.id() + " " + what + " and caps it at " + Numbers.significant(hfTarget, 4)
-                                + " %/%. The target law " + devText + "."));
+                                + " %/%. The new law " + devText + "."));
             } else {
                 out.add(new Finding(Topic.FILTER, fitSeverity, hfSource, null, "%/%", POLICY,
-                        "Target " + to.id() + " has no derivative filter: its derivative gain grows without bound "
-                                + "where the source law capped it at " + Numbers.significant(hfSource, 4)
-                                + " %/%. The target law " + devText + "."));
+                        "The new form " + to.id() + " has no derivative filter: its derivative gain grows without bound "
+                                + "where the old law capped it at " + Numbers.significant(hfSource, 4)
+                                + " %/%. The new law " + devText + "."));
             }
             explained = true;
         }
         if (!explained && !n.feedbackExact()) {
             out.add(new Finding(Topic.REALIZABILITY, fitSeverity, loopDeviation.gainDb(), p.get(PolicyKey.FIT_FAIL_DB),
-                    "dB", POLICY, "Target " + to.id() + " cannot write the source law exactly; the nearest setting "
+                    "dB", POLICY, "The new form " + to.id() + " cannot write the old law exactly; the nearest setting "
                     + devText + "."));
         }
         LawDeviation sp = n.setpoint();
@@ -146,8 +146,8 @@ public final class ConversionRules {
             boolean feedbackChanges = fitSeverity != Severity.INFO;
             out.add(new Finding(Topic.REALIZABILITY, feedbackChanges ? Severity.WARN : Severity.INFO, sp.gainDb(),
                     warnDb, "dB", POLICY,
-                    (n.feedbackExact() ? "The feedback path is exact, but t" : "T") + "arget " + to.id()
-                            + " cannot weight the setpoint as the source does (setpoint weights b, c"
+                    (n.feedbackExact() ? "The feedback path is exact, but the" : "The") + " new form " + to.id()
+                            + " cannot weight the setpoint as the old does (setpoint weights b, c"
                             + (to.c().adjustable() ? "" : "; its c is fixed at " + Numbers.plain(to.c().defaultValue()))
                             + "): the setpoint path deviates by up to " + Numbers.deviation(sp.gainDb()) + " dB and "
                             + Numbers.deviation(sp.phaseDegrees()) + " deg over " + bandText(lives)
@@ -170,8 +170,8 @@ public final class ConversionRules {
                     + " written in the other structure that same filter time is a different share of the derivative"
                     + " time. ");
         } else {
-            m.append("the source's filter time Tf = ").append(Numbers.significant(n.sourceFilterSeconds(), 4))
-                    .append(" s is a different share of the target's derivative time. ");
+            m.append("the old filter time Tf = ").append(Numbers.significant(n.sourceFilterSeconds(), 4))
+                    .append(" s is a different share of the new derivative time. ");
         }
         m.append("Entering the other values with ").append(defaultText).append(" would move the law by up to ")
                 .append(Numbers.deviation(cost.gainDb())).append(" dB and ").append(Numbers.deviation(cost.phaseDegrees()))
@@ -198,7 +198,7 @@ public final class ConversionRules {
         return new Finding(Topic.LIMITS, Severity.FAIL, n.value(), n.bound(), unit, "target form " + to.id(),
                 n.parameter() + " = " + Numbers.significant(n.value(), 6) + " " + unit + " is "
                         + (high ? "above" : "below") + " what " + to.id() + " accepts (" + (high ? "max " : "min ")
-                        + Numbers.plain(n.bound()) + " " + unit + "); the target cannot hold this tuning."
+                        + Numbers.plain(n.bound()) + " " + unit + "); the new form cannot hold this tuning."
                         + " Nothing was clipped: retune or pick another form.");
     }
 
@@ -218,7 +218,7 @@ public final class ConversionRules {
                             + Numbers.deviation(d.gainDb()) + " dB and " + Numbers.deviation(d.phaseDegrees())
                             + " deg" + (matters ? " (beyond " + Numbers.plain(warnDb) + " dB or "
                             + Numbers.plain(warnDeg) + " deg: use a form with a finer resolution,"
-                            + " or retune to values the target can hold)."
+                            + " or retune to values the new form can hold)."
                             : "; no value can be entered more precisely, and the move is within "
                             + Numbers.plain(warnDb) + " dB and " + Numbers.plain(warnDeg) + " deg.")));
         }

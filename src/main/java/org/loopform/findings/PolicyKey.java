@@ -8,53 +8,53 @@ package org.loopform.findings;
  * severity fail, for a {@code _warn} key severity warn.
  */
 public enum PolicyKey {
-    SAMPLING_WARN("sampling_warn", 0.5, "rad", "scan time x target crossover above which the scan is slow",
+    SAMPLING_WARN("sampling_warn", 0.5, "rad", "scan time x as-left crossover above which the scan is slow",
             CheckRules.SAMPLING_PRACTICE + ": h wc of about 0.15 to 0.5"),
-    SAMPLING_FAIL("sampling_fail", 1.0, "rad", "scan time x target crossover above which the scan fails",
+    SAMPLING_FAIL("sampling_fail", 1.0, "rad", "scan time x as-left crossover above which the scan fails",
             "at h wc = 1 the hold alone costs about 29 deg at crossover (its h/2 delay, "
                     + CheckRules.WITTENMARK_2002 + ")"),
     DERIVATIVE_NH_TD_WARN("derivative_nh_td_warn", 0.6, "ratio", "N h / Td above which the scan is coarse for the"
             + " derivative filter", CheckRules.SAMPLING_PRACTICE + ": N h / Td of about 0.2 to 0.6"),
     DERIVATIVE_LEAD_KEPT_WARN("derivative_lead_kept_warn", 0.5, "fraction", "share of the continuous derivative's"
             + " phase lead at crossover the sampled derivative must keep", CheckRules.COMMON),
-    MS_WARN("ms_warn", 2.0, "ratio", "target maximum sensitivity Ms above which the loop warns", CheckRules.MS_SOURCE),
-    MS_FAIL("ms_fail", 3.0, "ratio", "target Ms above which the loop fails (the Nyquist curve within 1/3 of -1)",
+    MS_WARN("ms_warn", 2.0, "ratio", "as-left maximum sensitivity Ms above which the loop warns", CheckRules.MS_SOURCE),
+    MS_FAIL("ms_fail", 3.0, "ratio", "as-left Ms above which the loop fails (the Nyquist curve within 1/3 of -1)",
             "loopform policy (common practice): Ms 3 still guarantees GM >= 1.5 and PM >= 19.2 deg by "
                     + CheckRules.MS_BOUNDS),
-    MS_INCREASE_WARN("ms_increase_warn", 0.1, "fraction", "rise of Ms from design to target above which robustness is"
+    MS_INCREASE_WARN("ms_increase_warn", 0.1, "fraction", "rise of Ms from as-found to as-left above which robustness is"
             + " lost in the migration", CheckRules.COMMON),
-    PHASE_MARGIN_WARN_DEG("phase_margin_warn_deg", 30, "deg", "target phase margin below which the loop warns",
+    PHASE_MARGIN_WARN_DEG("phase_margin_warn_deg", 30, "deg", "as-left phase margin below which the loop warns",
             "common practice: PM 30 to 60 deg; ControlSystems.jl docs, analysis example: 'above 30-45 deg'"),
-    PHASE_MARGIN_FAIL_DEG("phase_margin_fail_deg", 20, "deg", "target phase margin below which the loop fails",
+    PHASE_MARGIN_FAIL_DEG("phase_margin_fail_deg", 20, "deg", "as-left phase margin below which the loop fails",
             "loopform policy (common practice): the phase margin Ms 3 guarantees, 2 arcsin(1/6) = 19.2 deg, by "
                     + CheckRules.MS_BOUNDS),
-    GAIN_MARGIN_WARN("gain_margin_warn", 2, "ratio", "target gain margin below which the loop warns",
+    GAIN_MARGIN_WARN("gain_margin_warn", 2, "ratio", "as-left gain margin below which the loop warns",
             "common practice: GM 2 to 5"),
-    GAIN_MARGIN_FAIL("gain_margin_fail", 1.5, "ratio", "target gain margin below which the loop fails",
+    GAIN_MARGIN_FAIL("gain_margin_fail", 1.5, "ratio", "as-left gain margin below which the loop fails",
             "ControlSystems.jl docs, analysis example: 'we usually aim for a gain margin of > 1.5'; also the GM"
                     + " Ms 3 guarantees, 3/(3-1), by " + CheckRules.MS_BOUNDS),
-    DELAY_MARGIN_WARN_SCANS("delay_margin_warn_scans", 2, "scans", "target delay margin, in target scans, below which"
+    DELAY_MARGIN_WARN_SCANS("delay_margin_warn_scans", 2, "scans", "as-left delay margin, in new scans, below which"
             + " the loop warns", "loopform policy (common practice): two scans of added latency must not make the"
             + " loop unstable"),
-    DELAY_MARGIN_FAIL_SCANS("delay_margin_fail_scans", 1, "scans", "target delay margin, in target scans, below which"
+    DELAY_MARGIN_FAIL_SCANS("delay_margin_fail_scans", 1, "scans", "as-left delay margin, in new scans, below which"
             + " the loop fails", "loopform policy (common practice): one late I/O update (one scan of added"
             + " latency) must not make the loop unstable"),
     MISMATCH_WARN_DB("mismatch_warn_db", 1, "dB", "gain departure of the controller as run from its own law over"
             + " its band above which the discretization warns", "loopform policy (common practice)"),
     MISMATCH_WARN_DEG("mismatch_warn_deg", 5, "deg", "phase departure of the controller as run from its own law"
             + " above which the discretization warns", "loopform policy (common practice)"),
-    OVERSHOOT_RISE_WARN("overshoot_rise_warn", 0.5, "fraction", "setpoint overshoot worse than the design's by more"
+    OVERSHOOT_RISE_WARN("overshoot_rise_warn", 0.5, "fraction", "setpoint overshoot worse than the as-found's by more"
             + " than this share AND by more than overshoot_rise_warn_pct warns", CheckRules.COMMON),
     OVERSHOOT_RISE_WARN_PCT("overshoot_rise_warn_pct", 2, "% of step", "the absolute part of the overshoot rule,"
             + " in percentage points of the setpoint step", CheckRules.COMMON),
     SETTLING_RISE_WARN("settling_rise_warn", 0.5, "fraction", "setpoint settling time (2 % band) longer than the"
-            + " design's by more than this share AND by more than settling_rise_warn_scans warns; a target that"
-            + " does not settle where the design does warns too", CheckRules.COMMON),
+            + " as-found's by more than this share AND by more than settling_rise_warn_scans warns; an as-left loop that"
+            + " does not settle where the as-found does warns too", CheckRules.COMMON),
     SETTLING_RISE_WARN_SCANS("settling_rise_warn_scans", 2, "scans", "the absolute part of the settling rule, in"
-            + " target scans (the resolution of the target's settling time)", CheckRules.COMMON),
-    IAE_RISE_WARN("iae_rise_warn", 0.25, "fraction", "setpoint-step or load-step IAE above the design's by more than"
+            + " new scans (the resolution of the as-left settling time)", CheckRules.COMMON),
+    IAE_RISE_WARN("iae_rise_warn", 0.25, "fraction", "setpoint-step or load-step IAE above the as-found's by more than"
             + " this share warns", CheckRules.COMMON),
-    LOAD_PEAK_RISE_WARN("load_peak_rise_warn", 0.25, "fraction", "load-step peak deviation above the design's by more"
+    LOAD_PEAK_RISE_WARN("load_peak_rise_warn", 0.25, "fraction", "load-step peak deviation above the as-found's by more"
             + " than this share AND by more than load_peak_rise_warn_pct warns", CheckRules.COMMON),
     LOAD_PEAK_RISE_WARN_PCT("load_peak_rise_warn_pct", 1, "% of step", "the absolute part of the load peak rule, in"
             + " percent of the load step", CheckRules.COMMON),
@@ -72,10 +72,10 @@ public enum PolicyKey {
             + " output in automatic below which the record moves too little to confirm a controller", CheckRules.REPLAY_POLICY),
     REPLAY_LOG_INTERVAL_WARN_SCANS("replay_log_interval_warn_scans", 2, "scans", "replay: median interval between"
             + " logged points, in controller scans, above which the record is too coarse for the scan", CheckRules.REPLAY_POLICY),
-    REPLAY_AS_LEFT_RMS_WARN_PCT("replay_as_left_rms_warn_pct", 1, "% of span", "replay: RMS difference of the target's"
-            + " output from the source's on the record above which the as-left preview warns", CheckRules.REPLAY_POLICY),
+    REPLAY_AS_LEFT_RMS_WARN_PCT("replay_as_left_rms_warn_pct", 1, "% of span", "replay: RMS difference of the new controller's"
+            + " output from the old one's on the record above which the as-left preview warns", CheckRules.REPLAY_POLICY),
     REPLAY_AS_LEFT_RMS_FAIL_PCT("replay_as_left_rms_fail_pct", 5, "% of span", "replay: RMS difference of the"
-            + " target's output from the source's above which the as-left preview fails", CheckRules.REPLAY_POLICY),
+            + " new controller's output from the old one's above which the as-left preview fails", CheckRules.REPLAY_POLICY),
     FIT_WARN_DB("fit_warn_db", 0.25, "dB", "feedback-path gain deviation of a nearest fit, where the loop lives, above"
             + " which the conversion warns (and by which the setpoint path must exceed it to be reported)",
             "loopform policy (common practice): 0.25 dB is 3 % of gain, within what a loop's model is known to"),
@@ -87,8 +87,8 @@ public enum PolicyKey {
     FIT_FAIL_DEG("fit_fail_deg", 20, "deg", "feedback-path phase deviation of a nearest fit, where the loop lives,"
             + " above which the conversion fails (anywhere in the band: warns)", "loopform policy (common practice)"),
     FILTER_CHANGE_DB("filter_change_db", 0.1, "dB", "change of the high-frequency derivative gain above which a"
-            + " target that cannot hold the source's filter is reported", "loopform policy (common practice)"),
-    ROUNDING_INFO_DB("rounding_info_db", 0.1, "dB", "gain move of the law by rounding to the target's resolution"
+            + " new form that cannot hold the old filter is reported", "loopform policy (common practice)"),
+    ROUNDING_INFO_DB("rounding_info_db", 0.1, "dB", "gain move of the law by rounding to the new form's resolution"
             + " above which it is reported", "loopform policy (common practice)"),
     ROUNDING_INFO_DEG("rounding_info_deg", 1, "deg", "phase move of the law by rounding above which it is reported",
             "loopform policy (common practice)"),

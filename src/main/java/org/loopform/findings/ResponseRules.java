@@ -44,9 +44,9 @@ public final class ResponseRules {
         }
         overshoot(in, p, out);
         settling(in, p, out);
-        iae(in.designSetpoint(), in.targetSetpoint(), "setpoint step", "the target follows the setpoint less"
+        iae(in.designSetpoint(), in.targetSetpoint(), "setpoint step", "the as-left loop follows the setpoint less"
                 + " closely", p, out);
-        iae(in.designLoad(), in.targetLoad(), "load step", "the target rejects the load less well", p, out);
+        iae(in.designLoad(), in.targetLoad(), "load step", "the as-left loop rejects the load less well", p, out);
         loadPeak(in, p, out);
         return out;
     }
@@ -71,9 +71,9 @@ public final class ResponseRules {
         if (t > d * (1 + rel) && t - d > abs) {
             out.add(new Finding(Topic.RESPONSE, Severity.WARN, t, Math.max(d * (1 + rel), d + abs), "% of step",
                     PolicyKey.OVERSHOOT_RISE_WARN.source(), "The setpoint step overshoots more: "
-                    + Numbers.significant(d, 3) + " % of the step in the design loop, " + Numbers.significant(t, 3)
-                    + " % in the target loop (the policy flags more than " + percent(rel) + " and "
-                    + Numbers.plain(abs) + " points of the step above the design)."));
+                    + Numbers.significant(d, 3) + " % of the step as found, " + Numbers.significant(t, 3)
+                    + " % as left (the policy flags more than " + percent(rel) + " and "
+                    + Numbers.plain(abs) + " points of the step above the as-found)."));
         }
     }
 
@@ -87,17 +87,17 @@ public final class ResponseRules {
         String band = Numbers.plain(StepMetrics.SETTLING_BAND_PERCENT_OF_STEP) + " %";
         if (in.targetSetpoint().settlingTimeSeconds().isEmpty()) {
             out.add(new Finding(Topic.RESPONSE, Severity.WARN, null, d * (1 + rel), "s",
-                    PolicyKey.SETTLING_RISE_WARN.source(), "The target loop does not settle within " + band
+                    PolicyKey.SETTLING_RISE_WARN.source(), "The as-left loop does not settle within " + band
                     + " of the setpoint step in the " + Numbers.significant(in.runSeconds(), 4) + " s simulated,"
-                    + " where the design loop settles in " + Numbers.significant(d, 4) + " s."));
+                    + " where the as-found loop settles in " + Numbers.significant(d, 4) + " s."));
             return;
         }
         double t = in.targetSetpoint().settlingTimeSeconds().getAsDouble();
         if (t > d * (1 + rel) && t - d > absSeconds) {
             out.add(new Finding(Topic.RESPONSE, Severity.WARN, t, Math.max(d * (1 + rel), d + absSeconds), "s",
                     PolicyKey.SETTLING_RISE_WARN.source(), "The setpoint step settles more slowly: within " + band
-                    + " of the step after " + Numbers.significant(d, 4) + " s in the design loop, "
-                    + Numbers.significant(t, 4) + " s in the target loop (" + rise(t, d, "longer") + ")."));
+                    + " of the step after " + Numbers.significant(d, 4) + " s as found, "
+                    + Numbers.significant(t, 4) + " s as left (" + rise(t, d, "longer") + ")."));
         }
     }
 
@@ -109,7 +109,7 @@ public final class ResponseRules {
         if (t > d * (1 + rel)) {
             out.add(new Finding(Topic.RESPONSE, Severity.WARN, t, d * (1 + rel), "%*s", PolicyKey.IAE_RISE_WARN.source(),
                     "The " + what + "'s integrated absolute error (IAE) rises from " + Numbers.significant(d, 4)
-                    + " %*s in the design loop to " + Numbers.significant(t, 4) + " %*s in the target loop ("
+                    + " %*s as found to " + Numbers.significant(t, 4) + " %*s as left ("
                     + rise(t, d, "more") + "): " + meaning + "."));
         }
     }
@@ -122,8 +122,8 @@ public final class ResponseRules {
         if (t > d * (1 + rel) && t - d > abs) {
             out.add(new Finding(Topic.RESPONSE, Severity.WARN, t, Math.max(d * (1 + rel), d + abs), "%",
                     PolicyKey.LOAD_PEAK_RISE_WARN.source(), "The load step pushes the PV further from its setpoint: a"
-                    + " peak deviation of " + Numbers.significant(d, 3) + " % of span in the design loop, "
-                    + Numbers.significant(t, 3) + " % in the target loop (" + rise(t, d, "more") + ")."));
+                    + " peak deviation of " + Numbers.significant(d, 3) + " % of span as found, "
+                    + Numbers.significant(t, 3) + " % as left (" + rise(t, d, "more") + ")."));
         }
     }
 }

@@ -50,7 +50,7 @@ public final class SaturationRules {
                     && Math.abs(used) <= StepTest.SMALLEST_STEP_PERCENT;
             out.add(new Finding(Topic.LIMITS, Severity.WARN, limit, null, "%", CheckRules.COMMON, "The "
                     + Numbers.significant(Math.abs(used), 3) + " % " + name + " step saturates the controller output"
-                    + " at " + Numbers.plain(limit) + " % (the target's output range is " + range + "): "
+                    + " at " + Numbers.plain(limit) + " % (the new controller's output range is " + range + "): "
                     + (setpoint ? setpointOutcome(in, run) : loadOutcome(in, run))
                     + (smallest ? " The step is already the smallest loopform tries ("
                     + Numbers.plain(StepTest.SMALLEST_STEP_PERCENT) + " %)." : "")

@@ -25,14 +25,14 @@ public final class StabilityRule {
         if (target.verdict() != Stability.STABLE) {
             Double figure = target.largestPoleMagnitude().isPresent() ? target.largestPoleMagnitude().getAsDouble() : null;
             out.add(new Finding(Topic.STABILITY, Severity.FAIL, figure, figure != null ? 1.0 : null,
-                    figure != null ? "|z|" : "", SOURCE, "The target loop is " + target.verdict().word()
+                    figure != null ? "|z|" : "", SOURCE, "The as-left loop is " + target.verdict().word()
                     + " as it will run: " + lowerFirst(target.explanation()) + " Do not deploy this tuning."));
         }
         if (design.verdict() != Stability.STABLE) {
             out.add(new Finding(Topic.STABILITY, target.verdict() == Stability.STABLE ? Severity.WARN : Severity.INFO,
-                    null, null, "", SOURCE, "The design loop (the tuning as it was) is " + design.verdict().word()
+                    null, null, "", SOURCE, "The as-found loop (the old tuning as it ran) is " + design.verdict().word()
                     + " with this process model: " + lowerFirst(design.explanation())
-                    + " Check the process model and the source tuning."));
+                    + " Check the process model and the old tuning."));
         }
         return out;
     }
@@ -44,7 +44,7 @@ public final class StabilityRule {
     public static Finding notJudged() {
         return new Finding(Topic.STABILITY, Severity.INFO, null, null, "", "common practice",
                 "No process model: the loop's stability, margins and step responses were not checked, only the"
-                        + " conversion, the controller as the target runs it and the sampling rules. Give the loop a"
+                        + " conversion, the new controller as it will run and the sampling rules. Give the loop a"
                         + " process (a step-test model, or one from loopform fit) to have them checked.");
     }
 

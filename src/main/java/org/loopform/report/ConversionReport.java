@@ -58,14 +58,14 @@ public final class ConversionReport {
                 .append(nl));
         if (tb != null) {
             sb.append("  textbook: the relations for laws without a derivative filter (").append(TEXTBOOK_SOURCE)
-                    .append(c.exact() ? "). They differ from the exact values because the source's derivative filter"
+                    .append(c.exact() ? "). They differ from the exact values because the old derivative filter"
                             + " enters the conversion; see the filter finding."
-                            : "), that is the values kept. The nearest setting differs from them because the target"
-                            + " cannot write the source law exactly; it is closer where the loop lives.").append(nl);
+                            : "), that is the values kept. The nearest setting differs from them because the new form"
+                            + " cannot write the old law exactly; it is closer where the loop lives.").append(nl);
         }
         sb.append(nl);
         if (c.exact()) {
-            sb.append("Exact: the target writes the same control law (both paths compared as rational functions).")
+            sb.append("Exact: the new form writes the same control law (both paths compared as rational functions).")
                     .append(nl);
         } else {
             boolean feedbackExact = c.targetLaw().sameFeedbackAs(c.sourceLaw(), ControlLaw.SAME_LAW_TOLERANCE);

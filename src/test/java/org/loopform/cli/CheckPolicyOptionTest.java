@@ -101,6 +101,6 @@ class CheckPolicyOptionTest {
             assertThat(help).contains(k.id() + " = " + org.loopform.units.Numbers.plain(k.defaultValue()) + " "
                     + k.unit() + ": ");
         }
-        assertThat(help).contains("gain_margin_fail = 1.5 ratio: target gain margin below which the loop fails");
+        assertThat(help).contains("gain_margin_fail = 1.5 ratio: as-left gain margin below which the loop fails");
     }
 }

@@ -67,7 +67,7 @@ class ResponseRulesTest {
             assertThat(f.severity()).isEqualTo(Severity.WARN);
             assertThat(f.figure()).isEqualTo(3.8);
             assertThat(f.threshold()).isEqualTo(3.0); // max(1 x 1.5, 1 + 2)
-            assertThat(f.message()).contains("1 % of the step in the design loop, 3.8 % in the target loop");
+            assertThat(f.message()).contains("1 % of the step as found, 3.8 % as left");
         });
     }
 
@@ -83,7 +83,7 @@ class ResponseRulesTest {
         assertThat(setpointOnly(setpoint(1, 238.0), setpoint(1, 481.0))).singleElement().satisfies(f -> {
             assertThat(f.topic()).isEqualTo(Topic.RESPONSE);
             assertThat(f.unit()).isEqualTo("s");
-            assertThat(f.message()).contains("after 238 s in the design loop, 481 s in the target loop (102 % longer)");
+            assertThat(f.message()).contains("after 238 s as found, 481 s as left (102 % longer)");
         });
     }
 
@@ -104,7 +104,7 @@ class ResponseRulesTest {
     void a_target_that_never_settles_where_the_design_does_is_flagged() {
         assertThat(setpointOnly(setpoint(1, 238.0), setpoint(1, null))).singleElement().satisfies(f ->
                 assertThat(f.message()).contains("does not settle within 2 % of the setpoint step in the 1000 s",
-                        "design loop settles in 238 s"));
+                        "as-found loop settles in 238 s"));
     }
 
     @Test
@@ -113,7 +113,7 @@ class ResponseRulesTest {
         assertThat(setpointOnly(setpoint(800, 1, 238.0), setpoint(990, 1, 238.0))).isEmpty();
         assertThat(setpointOnly(setpoint(800, 1, 238.0), setpoint(1010, 1, 238.0))).singleElement()
                 .satisfies(f -> assertThat(f.message()).contains("setpoint step's integrated absolute error (IAE)"
-                        + " rises from 800 %*s in the design loop to 1010 %*s"));
+                        + " rises from 800 %*s as found to 1010 %*s"));
         // load 700 -> 900 %*s: 28.6 % more
         assertThat(compare(setpoint(1, 238.0), setpoint(1, 238.0), load(700, 2.6), load(900, 2.6),
                 CheckPolicy.DEFAULT)).singleElement().satisfies(f -> assertThat(f.message())
@@ -125,8 +125,8 @@ class ResponseRulesTest {
         StepMetrics sp = setpoint(1, 238.0);
         // 2.6 -> 3.3 % of span: 26.9 % more (> 25 %) and 0.7 points (> 1 % of a 10 % step = 0.1)
         assertThat(compare(sp, sp, load(700, 2.6), load(700, 3.3), CheckPolicy.DEFAULT)).singleElement()
-                .satisfies(f -> assertThat(f.message()).contains("peak deviation of 2.6 % of span in the design loop,"
-                        + " 3.3 % in the target loop"));
+                .satisfies(f -> assertThat(f.message()).contains("peak deviation of 2.6 % of span as found,"
+                        + " 3.3 % as left"));
         // 0.04 -> 0.08 %: 100 % more but 0.04 points, under 0.1
         assertThat(compare(sp, sp, load(700, 0.04), load(700, 0.08), CheckPolicy.DEFAULT)).isEmpty();
     }
