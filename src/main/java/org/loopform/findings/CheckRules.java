@@ -144,7 +144,7 @@ public final class CheckRules {
                     ? "The filter is shorter than one scan: the derivative acts as one-scan spikes. Scan faster, or"
                     + " expect less derivative action than the tuning asks for." : matters
                     ? "That is close enough to the loop's crossover to change what the derivative does: scan faster,"
-                    + " or expect less derivative action than designed."
+                    + " or expect less derivative action than the tuning asks for."
                     : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices."));
             java.util.Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() > 0
                     && s.nhOverTd() > p.derivativeNhTdWarn());
