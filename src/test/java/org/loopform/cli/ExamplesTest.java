@@ -75,7 +75,10 @@ class ExamplesTest {
     @DisplayName("every ./loopform command shown in README.md and examples/README.md runs as written (exit 0 or 1)")
     void documented_commands_run_as_written() throws IOException {
         List<String> lines = new ArrayList<>(commands(Path.of("README.md")));
-        lines.addAll(commands(Path.of("examples", "README.md")));
+        List<String> examples = commands(Path.of("examples", "README.md"));
+        assertThat(examples).as("examples/README.md's commands, the audit of its loop list among them")
+                .anyMatch(l -> l.startsWith("audit examples/plant-k7-loops.csv"));
+        lines.addAll(examples);
         // the demo writes ./loopform-demo and is run by AuditCommandTest into a temporary folder
         lines.removeIf(l -> l.equals("demo"));
         assertThat(lines).as("commands found in the READMEs").hasSizeGreaterThanOrEqualTo(6);
