@@ -62,8 +62,8 @@ final class CheckCommand implements Callable<Integer> {
             + " (e.g. 0.1s..5s) and name the longest that keeps the loop within the policy.")
     String sweep;
 
-    @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the design and target loops'"
-            + " responses and of the controller mismatch.")
+    @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the as-found and as-left"
+            + " loops' responses (PV and controller output, with the output limits) and of the controller mismatch.")
     Path plot;
 
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds overriding the defaults,"

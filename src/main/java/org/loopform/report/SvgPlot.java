@@ -100,17 +100,19 @@ public final class SvgPlot {
                 + "stroke=\"#888\"/>%n", LEFT, TOP, width - LEFT - RIGHT, height - TOP - BOTTOM));
         sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"16\" font-size=\"12\" font-weight=\"bold\">%s</text>%n",
                 LEFT, esc(title)));
-        for (double t : ticks(f.y0, f.y1)) {
+        double[] yTicks = ticks(f.y0, f.y1);
+        for (double t : yTicks) {
             double py = f.py(t);
             sb.append(String.format(Locale.ROOT, "<line x1=\"%d\" x2=\"%d\" y1=\"%.1f\" y2=\"%.1f\" stroke=\"#ddd\"/>"
                     + "<text x=\"%d\" y=\"%.1f\" text-anchor=\"end\">%s</text>%n", LEFT, width - RIGHT, py, py,
-                    LEFT - 4, py + 4, label(t)));
+                    LEFT - 4, py + 4, label(t, yTicks)));
         }
-        for (double t : logX ? logTicks(f.x0, f.x1) : ticks(f.x0, f.x1)) {
+        double[] xTicks = logX ? logTicks(f.x0, f.x1) : ticks(f.x0, f.x1);
+        for (double t : xTicks) {
             double px = f.px(t);
             sb.append(String.format(Locale.ROOT, "<line x1=\"%.1f\" x2=\"%.1f\" y1=\"%d\" y2=\"%d\" stroke=\"#ddd\"/>"
                     + "<text x=\"%.1f\" y=\"%d\" text-anchor=\"middle\">%s</text>%n", px, px, TOP, height - BOTTOM,
-                    px, height - BOTTOM + 14, logX ? label(Math.pow(10, t)) : label(t)));
+                    px, height - BOTTOM + 14, logX ? label(Math.pow(10, t)) : label(t, xTicks)));
         }
         sb.append(String.format(Locale.ROOT, "<text x=\"%d\" y=\"%d\" text-anchor=\"middle\">%s</text>%n",
                 (LEFT + width - RIGHT) / 2, height - 8, esc(xLabel)));
@@ -250,6 +252,20 @@ public final class SvgPlot {
             t[k] = lo + k;
         }
         return t;
+    }
+
+    /**
+     * A tick's label with as many decimals as the step between {@code ticks} needs, so that
+     * neighbouring ticks never read the same (50.05 and 50.1, not 50.1 twice).
+     */
+    static String label(double v, double[] ticks) {
+        if (ticks.length < 2 || Math.abs(v) < 1e-12 * Math.abs(ticks[1] - ticks[0])) {
+            return ticks.length < 2 ? label(v) : "0";
+        }
+        double step = Math.abs(ticks[1] - ticks[0]);
+        int decimals = Math.max(0, (int) Math.ceil(-Math.log10(step) - 1e-9));
+        return new java.math.BigDecimal(v).setScale(decimals, java.math.RoundingMode.HALF_EVEN).stripTrailingZeros()
+                .toPlainString();
     }
 
     private static String label(double v) {

@@ -70,4 +70,16 @@ class SvgPlotTest {
         int[] corner = SvgPlot.legendCorner(List.of(px), 2, size);
         assertThat(corner[1]).isGreaterThan(size.height() / 2);
     }
+
+    @Test
+    void neighbouring_ticks_never_read_the_same() {
+        double[] t = SvgPlot.ticks(49.99, 50.24);
+        java.util.Set<String> labels = new java.util.HashSet<>();
+        for (double v : t) {
+            labels.add(SvgPlot.label(v, t));
+        }
+        assertThat(labels).hasSize(t.length).contains("50.05", "50.1", "50.2");
+        double[] big = SvgPlot.ticks(0, 1000);
+        assertThat(SvgPlot.label(big[1], big)).isEqualTo("200");
+    }
 }
