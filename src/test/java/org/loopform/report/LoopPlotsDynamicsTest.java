@@ -25,8 +25,10 @@ import org.loopform.simulate.SampledResponse;
  * first order without dead time, G(s) = K / (T s + 1) with K = 1 and T = 10 s; the PI controller's
  * integral time equals T, so it cancels the process pole and the loop transfer is
  * L(s) = Kc K / (T s): the closed loop is first order with time constant tau = T / (Kc K)
- * (pole cancellation by a PI controller, common practice; Skogestad, J. Process Control 13 (2003),
- * section 3, chooses Ti = tau1 for the same reason; docs/references.md section 7).
+ * (pole cancellation by a PI controller, common practice; Skogestad, "Simple analytic rules for model
+ * reduction and PID controller tuning", J. Process Control 13 (2003), chooses Ti = tau1 for the same
+ * reason, from memory for the section). The 2 % settling of a first-order response is
+ * docs/references.md section 8.
  */
 @DisplayName("Loop plots that show the dynamics")
 class LoopPlotsDynamicsTest {
