@@ -175,7 +175,8 @@ public final class LoopCheck {
         double horizon = Double.isNaN(horizonSeconds)
                 ? horizon(design.margins(), target.margins(), designLaw, p) : horizonSeconds;
         horizon = Math.min(horizon, MAX_TARGET_STEPS * h);
-        TargetLoop.Evaluated t = target.evaluate(StepTest.standard(horizon));
+        TargetLoop.Evaluated t = target.evaluate(StepTest.standard(horizon,
+                loop.targetForm().algorithm().outputLowPercent(), loop.targetForm().algorithm().outputHighPercent()));
         StepTest steps = t.choice().steps();
         DesignLoop.Evaluated d = design.evaluate(steps, horizon);
         return new Compared(new LoopComparison(d.evaluation(), t.evaluation(), steps, d.referenceStepSeconds(),

@@ -75,7 +75,7 @@ public final class CheckReport {
             sb.append(t.render(2));
             var sp = r.targetRun().setpoint();
             sb.append("  Steps of ").append(fmt(r.steps().setpointStepPercent(), 3)).append(" % (setpoint) and ")
-                    .append(fmt(r.steps().loadStepPercent(), 3)).append(" % at the process input (load) about 50 %, over ")
+                    .append(fmt(r.steps().loadStepPercent(), 3)).append(" % at the process input (load) ").append(aboutOperatingPoint(r.steps())).append(", over ")
                     .append(fmt(sp.timeSeconds(sp.size() - 1), 4)).append(" s; ");
             if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
                 sb.append("no scan was given for the old controller, so the as-found loop runs its law continuously: simulated on ").append(fmt(r.referenceStepSeconds(), 3))
@@ -209,5 +209,13 @@ public final class CheckReport {
 
     public static String json(CheckResult r) {
         return Json.write(node(r));
+    }
+
+    /** Where the steps start: "about 50 %" (PV and output), or the output named when it is not 50 %. */
+    static String aboutOperatingPoint(org.loopform.simulate.StepTest steps) {
+        return steps.operatingOutputPercent() == steps.operatingPvPercent()
+                ? "about " + fmt(steps.operatingPvPercent(), 3) + " %"
+                : "about " + fmt(steps.operatingPvPercent(), 3) + " % PV and " + fmt(steps.operatingOutputPercent(), 3)
+                        + " % output (the middle of the new form's output limits)";
     }
 }

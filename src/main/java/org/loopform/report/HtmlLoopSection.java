@@ -196,7 +196,7 @@ final class HtmlLoopSection {
         var sp = r.targetRun().setpoint();
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of ").append(Html.fig(r.steps().setpointStepPercent(), 3))
                 .append(" % and load step of ").append(Html.fig(r.steps().loadStepPercent(), 3)).append(" % at the process"
-                + " input, about 50 %, over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
+                + " input, ").append(Html.esc(CheckReport.aboutOperatingPoint(r.steps()))).append(", over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
         boolean designUnstable = !r.designStability().isStable();
         sb.append(" Stability from the closed-loop poles: as-found ").append(r.designStability().verdict().word())
                 .append(", as-left ").append(r.targetStability().verdict().word()).append(" (")

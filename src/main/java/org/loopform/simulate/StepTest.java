@@ -39,6 +39,21 @@ public record StepTest(double operatingPvPercent, double operatingOutputPercent,
         return new StepTest(50.0, 50.0, STANDARD_STEP_PERCENT, STANDARD_STEP_PERCENT, horizonSeconds);
     }
 
+    /**
+     * The standard steps for a controller whose output is limited to {@code lowPercent..highPercent}:
+     * about 50 % output when that lies inside the limits with room for a step either way, otherwise
+     * about the middle of the limits (a loop cannot rest at an output it cannot reach).
+     */
+    public static StepTest standard(double horizonSeconds, double lowPercent, double highPercent) {
+        if (!(highPercent > lowPercent)) {
+            throw new IllegalArgumentException("output limits need low < high (got " + lowPercent + " %, "
+                    + highPercent + " %)");
+        }
+        double room = STANDARD_STEP_PERCENT;
+        double u0 = lowPercent + room <= 50.0 && 50.0 <= highPercent - room ? 50.0 : (lowPercent + highPercent) / 2;
+        return new StepTest(50.0, u0, STANDARD_STEP_PERCENT, STANDARD_STEP_PERCENT, horizonSeconds);
+    }
+
     /** The lowest and highest controller output of one run, %. */
     public record OutputExtremes(double lowestPercent, double highestPercent) {
 

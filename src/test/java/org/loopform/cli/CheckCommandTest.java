@@ -105,6 +105,30 @@ class CheckCommandTest {
             assertThat(finding.get("topic").asText()).isEqualTo("derivative");
         }
 
+        /**
+         * A new form whose output cannot reach 50 % (limits 60..100 %) is tested about the middle of its
+         * limits, (60 + 100) / 2 = 80 %, instead of failing to start (common practice: a bump test about
+         * an output the controller can hold).
+         */
+        @Test
+        void a_form_whose_output_limits_leave_out_50_percent_is_tested_about_their_middle() throws IOException {
+            Path form = Files.writeString(dir.resolve("high.yaml"), """
+                    id: ideal-high-output
+                    title: Ideal PID with its output limited to 60..100 % (invented)
+                    structure: ideal
+                    gain: {as: gain, basis: percent, sign: signed}
+                    integral: {as: time, unit: s, off: 0}
+                    derivative: {as: time, unit: s}
+                    filter: {kind: ratio, ratio: 10, placement: derivative}
+                    algorithm: {output: 60..100}
+                    """);
+            CliRun run = check(loopFile(LOOP.replace("form: ideal-pb-repeats", "form: " + form)));
+
+            assertThat(run.exitCode()).as(run.err()).isIn(0, 1);
+            assertThat(run.err()).doesNotContain("internal error");
+            assertThat(run.out()).contains("about 50 % PV and 80 % output");
+        }
+
         /** Without dead time a first-order loop under PI never reaches -180 deg: no phase crossover, no gain margin. */
         @Test
         void a_missing_figure_as_json_null() throws IOException {

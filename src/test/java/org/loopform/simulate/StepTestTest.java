@@ -56,4 +56,21 @@ class StepTestTest {
     void output_extremes_reach_a_limit_when_they_touch_it(double lowest, double highest, boolean expected) {
         assertThat(new OutputExtremes(lowest, highest).reaches(0, 100)).isEqualTo(expected);
     }
+
+    @ParameterizedTest(name = "limits {0}..{1} % -> operating output {2} %")
+    @CsvSource({
+            // 50 % with 10 points of room either way: kept (common practice: a bump test about mid-range)
+            "0, 100, 50",
+            "40, 60, 50",
+            // 50 % outside the limits, or without room for a step: the middle of the limits, (lo + hi) / 2
+            "60, 100, 80",
+            "0, 40, 20",
+            "45, 100, 72.5"
+    })
+    void the_operating_output_lies_inside_the_output_limits(double low, double high, double expected) {
+        StepTest t = StepTest.standard(100, low, high);
+        assertThat(t.operatingOutputPercent()).isEqualTo(expected);
+        assertThat(t.operatingPvPercent()).isEqualTo(50);
+        assertThat(t.setpointStepPercent()).isEqualTo(10);
+    }
 }
