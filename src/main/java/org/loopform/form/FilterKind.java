@@ -11,7 +11,7 @@ import org.loopform.units.UnitText;
  */
 public enum FilterKind {
     /** No derivative filter. */
-    NONE(null) {
+    NONE(null, null) {
         @Override
         double filterSeconds(FilterSpec spec, double derivativeTimeSeconds, Written written) {
             return 0.0;
@@ -23,7 +23,7 @@ public enum FilterKind {
         }
     },
     /** A ratio N fixed by the vendor: Tf = Td / N. */
-    FIXED_RATIO(null) {
+    FIXED_RATIO(null, null) {
         @Override
         double filterSeconds(FilterSpec spec, double derivativeTimeSeconds, Written written) {
             return derivativeTimeSeconds / spec.ratio();
@@ -35,7 +35,17 @@ public enum FilterKind {
         }
     },
     /** An adjustable ratio N (parameter {@code n}) with a default: Tf = Td / N. */
-    RATIO("n") {
+    RATIO("n", "derivative filter ratio, Tf = Td/N") {
+        @Override
+        String unit(FilterSpec spec) {
+            return "ratio";
+        }
+
+        @Override
+        double defaultValue(FilterSpec spec) {
+            return spec.ratio();
+        }
+
         @Override
         double filterSeconds(FilterSpec spec, double derivativeTimeSeconds, Written written) {
             if (written.given() && written.off()) {
@@ -59,7 +69,17 @@ public enum FilterKind {
         }
     },
     /** An adjustable filter time constant Tf (parameter {@code tf}), in the form's unit with a default. */
-    TIME_CONSTANT("tf") {
+    TIME_CONSTANT("tf", "derivative filter time constant") {
+        @Override
+        String unit(FilterSpec spec) {
+            return spec.unit().symbol();
+        }
+
+        @Override
+        double defaultValue(FilterSpec spec) {
+            return spec.defaultTime();
+        }
+
         @Override
         double filterSeconds(FilterSpec spec, double derivativeTimeSeconds, Written written) {
             double t = written.given() ? (written.off() ? 0.0 : written.number((u, x) -> UnitText.time(u).map(
@@ -78,14 +98,31 @@ public enum FilterKind {
     };
 
     private final String parameter;
+    private final String meaning;
 
-    FilterKind(String parameter) {
+    FilterKind(String parameter, String meaning) {
         this.parameter = parameter;
+        this.meaning = meaning;
     }
 
     /** The parameter a person writes the filter with ({@code n}, {@code tf}); empty when the form fixes the filter. */
     public Optional<String> parameter() {
         return Optional.ofNullable(parameter);
+    }
+
+    /** The optional parameter a form with filter {@code spec} lists for it; empty when the form fixes the filter. */
+    Optional<FormParameter> formParameter(FilterSpec spec) {
+        return parameter().map(name -> new FormParameter(name, unit(spec), meaning, false, defaultValue(spec)));
+    }
+
+    /** The unit text of the filter parameter (only asked of a kind that has one). */
+    String unit(FilterSpec spec) {
+        throw new IllegalStateException(this + " has no filter parameter");
+    }
+
+    /** The filter parameter's default, in its unit (only asked of a kind that has one). */
+    double defaultValue(FilterSpec spec) {
+        throw new IllegalStateException(this + " has no filter parameter");
     }
 
     /**

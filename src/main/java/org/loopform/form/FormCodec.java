@@ -178,7 +178,7 @@ public final class FormCodec {
 
     /** True when {@code name = value} in a written tuning means "no derivative filter". */
     public static boolean isFilterOff(String name, double value) {
-        return name.equals("n") && value == FILTER_OFF;
+        return FilterKind.RATIO.parameter().orElseThrow().equals(name) && value == FILTER_OFF;
     }
 
     private static boolean isOff(String text) {
