@@ -119,6 +119,44 @@ class LoopFigureCatalogueTest {
         }
     }
 
+    /**
+     * loops.csv's columns as published before the catalogue existed: readers find them by name or
+     * by place, so each keeps its place relative to the others, and a figure added to the
+     * catalogue only inserts its columns (after {@code target_delay_margin_scans}).
+     */
+    private static final List<String> PUBLISHED_COLUMNS = List.of("tag", "verdict", "where", "source_form",
+            "source_values", "target_form", "scan_s", "exact", "converted", "entered", "deviation_gain_db",
+            "deviation_phase_deg", "design_pm_deg", "target_pm_deg", "design_gm", "target_gm", "design_crossover_rad_s",
+            "target_crossover_rad_s", "design_ms", "target_ms", "design_delay_margin_s", "target_delay_margin_s",
+            "design_sp_iae_pct_s", "target_sp_iae_pct_s", "design_sp_overshoot_pct", "target_sp_overshoot_pct",
+            "design_load_iae_pct_s", "target_load_iae_pct_s", "design_load_peak_pct", "target_load_peak_pct",
+            "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "design_lower_gm", "target_lower_gm",
+            "target_delay_margin_scans", "design_margin_notes", "target_margin_notes", "problems");
+
+    /** A loop's JSON keys in the order README.md's "check" section publishes them. */
+    private static final List<String> PUBLISHED_KEYS = List.of("phase_margin_deg", "gain_margin", "crossover_rad_s",
+            "ms", "delay_margin_s", "lower_gain_margin", "delay_margin_scans", "gain_margin_note", "phase_margin_note",
+            "delay_margin_note", "stability", "stability_test", "unstable_poles", "largest_pole_magnitude", "setpoint",
+            "load");
+
+    @Test
+    void published_csv_columns_keep_their_order_and_problems_stays_last() {
+        List<String> columns = AuditRows.LOOP_COLUMNS;
+        assertThat(columns).containsSubsequence(PUBLISHED_COLUMNS);
+        assertThat(columns.get(columns.size() - 1)).isEqualTo("problems");
+        List<String> added = columns.stream().filter(c -> !PUBLISHED_COLUMNS.contains(c)).toList();
+        if (!added.isEmpty()) {
+            assertThat(columns.indexOf(added.get(0))).isGreaterThan(columns.indexOf("target_delay_margin_scans"));
+        }
+    }
+
+    @Test
+    void published_json_keys_keep_their_order() {
+        List<String> keys = new java.util.ArrayList<>();
+        CheckReport.node(RESULT).get("target").fieldNames().forEachRemaining(keys::add);
+        assertThat(keys).containsSubsequence(PUBLISHED_KEYS);
+    }
+
     @Test
     void keys_are_unique_within_each_output() {
         assertThat(AuditRows.LOOP_COLUMNS).doesNotHaveDuplicates();
