@@ -174,7 +174,11 @@ enum LoopFigure {
 
     /** The figure as printed in a table: its digits, "none (why)", or "-" where it does not apply. */
     String text(LoopSide side) {
-        Reading r = read(side);
+        return text(read(side), digits);
+    }
+
+    /** A reading as printed: {@code digits} significant digits, "none (why)", or "-" where it does not apply. */
+    static String text(Reading r, int digits) {
         if (r instanceof Reading.Number n) {
             return Numbers.significant(n.value(), digits);
         }

@@ -5,11 +5,12 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.MarginNote;
-import org.loopform.units.Numbers;
 
 /**
- * How a loop's margins are written, once for text, HTML, CSV and JSON: a margin that does not
- * exist is "none" followed by the reason, never a bare blank that could read as infinite.
+ * A loop's margins written alone, for tables other than the check's (a tuning's design loop, a
+ * scan sweep), the way the figure catalogue ({@link LoopFigure}) writes them: a margin that does
+ * not exist is "none" followed by the reason, never a bare blank that could read as infinite; and
+ * the notes beside the margins in JSON.
  */
 final class MarginFigures {
 
@@ -47,10 +48,7 @@ final class MarginFigures {
     }
 
     private static String orNone(OptionalDouble v, Optional<MarginNote> why, int digits) {
-        if (v.isPresent()) {
-            return Numbers.significant(v.getAsDouble(), digits);
-        }
-        return why.map(w -> "none (" + w.text() + ")").orElse("none");
+        return LoopFigure.text(LoopFigure.Reading.orNone(v, why), digits);
     }
 
     private static void note(ObjectNode n, String key, Optional<MarginNote> why) {
