@@ -117,7 +117,7 @@ public final class CheckReport {
             if (!g.response()) {
                 continue;
             }
-            ObjectNode o = n.putObject(LoopFigure.jsonObject(g));
+            ObjectNode o = n.putObject(g.jsonObject());
             for (LoopFigure f : LoopFigure.inGroup(g)) {
                 if (st.isStable()) {
                     f.putJson(o, side);

@@ -22,6 +22,12 @@ import org.loopform.units.Numbers;
  * figure is declared last (its CSV columns then come after the finding counts, with the other
  * figures added since the first edition). Where a figure stands in the text and HTML tables is its
  * {@code row}.
+ *
+ * <p>Each constant: table row (order), label, unit, digits in the tables, JSON object and key,
+ * loops.csv column stem ({@code design_STEM}, {@code target_STEM}) and which sides have one, then
+ * optionally "a row only where a loop has it", and the reader. The setpoint settling time and the
+ * load step's output travel have no loops.csv column: its columns were kept as published when the
+ * catalogue was built; adding them is a change of the CSV contract, to be made on purpose.
  */
 enum LoopFigure {
     PHASE_MARGIN(10, "phase margin", "deg", 3, Group.MARGINS, "phase_margin_deg", "pm_deg", Csv.BOTH,
@@ -72,6 +78,11 @@ enum LoopFigure {
 
         Group(String jsonObject) {
             this.jsonObject = jsonObject;
+        }
+
+        /** The name of this group's object within a loop's JSON object; null for the loop's own keys. */
+        String jsonObject() {
+            return jsonObject;
         }
 
         /** The figures of a step response, left null in JSON for an unstable loop. */
@@ -202,11 +213,6 @@ enum LoopFigure {
     /** The figures of one JSON object of a loop, in order. */
     static List<LoopFigure> inGroup(Group g) {
         return Arrays.stream(values()).filter(f -> f.group == g).toList();
-    }
-
-    /** The name of the JSON object of {@code g} within a loop's object; null for the loop's own keys. */
-    static String jsonObject(Group g) {
-        return g.jsonObject;
     }
 
     /** Whether the figure has loops.csv columns on the side {@code target} (else the design side). */

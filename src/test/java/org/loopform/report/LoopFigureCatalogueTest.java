@@ -94,7 +94,7 @@ class LoopFigureCatalogueTest {
             ObjectNode n = CheckReport.node(RESULT);
             for (String side : List.of("design", "target")) {
                 for (LoopFigure f : LoopFigure.values()) {
-                    String object = LoopFigure.jsonObject(f.group());
+                    String object = f.group().jsonObject();
                     JsonNode holder = object == null ? n.get(side) : n.get(side).get(object);
                     assertThat(holder.has(f.jsonKey())).as(side + " " + f.name()).isTrue();
                 }
