@@ -88,8 +88,8 @@ public final class LoopCheck {
         ControllerMismatch.Curve curve = ControllerMismatch.curve(designLaw, targetPulse, lawBand, 120);
         findings.addAll(CheckRules.evaluate(new CheckRules.Inputs(target, h,
                 ScanFacts.of(entered, target.algorithm().derivative(), h),
-                comparison.map(c -> c.design().margins()).orElse(null),
-                comparison.map(c -> c.target().margins()).orElse(null), discretization,
+                comparison.map(c -> c.design().margins()), comparison.map(c -> c.target().margins()),
+                Optional.of(discretization),
                 mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true),
                 sourceFacts(loop, conversion)), policy));
         compared.ifPresent(c -> {

@@ -1,6 +1,7 @@
 package org.loopform.check;
 
 import java.util.List;
+import java.util.Optional;
 import org.loopform.findings.Finding;
 import org.loopform.findings.SaturationRules;
 import org.loopform.form.FormDefinition;
@@ -40,14 +41,14 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
         }
         double low = target.algorithm().outputLowPercent();
         double high = target.algorithm().outputHighPercent();
-        OutputExtremes linearSetpoint = null;
-        OutputExtremes linearLoad = null;
+        Optional<SaturationRules.LinearOutput> linearOutput = Optional.empty();
         StepTest steps = standard;
         if (OutputExtremes.of(run.setpoint()).reaches(low, high) || OutputExtremes.of(run.load()).reaches(low, high)) {
             ClosedLoopRun linear = LoopSimulator.run(ScanController.unlimited(entered, target.filter().placement(),
                     target.algorithm(), scanSeconds), process, standard);
-            linearSetpoint = OutputExtremes.of(linear.setpoint());
-            linearLoad = OutputExtremes.of(linear.load());
+            OutputExtremes linearSetpoint = OutputExtremes.of(linear.setpoint());
+            OutputExtremes linearLoad = OutputExtremes.of(linear.load());
+            linearOutput = Optional.of(new SaturationRules.LinearOutput(linearSetpoint, linearLoad));
             steps = standard.scaledToStayWithin(linearSetpoint, linearLoad, low, high);
             if (!steps.equals(standard)) {
                 run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g, deadTimeSeconds,
@@ -55,7 +56,7 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
             }
         }
         List<Finding> findings = SaturationRules.evaluate(new SaturationRules.Inputs(standard, steps, run.setpoint(),
-                run.load(), linearSetpoint, linearLoad, low, high));
+                run.load(), linearOutput, low, high));
         return new StepChoice(steps, run, findings);
     }
 }

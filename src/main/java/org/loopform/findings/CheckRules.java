@@ -2,6 +2,8 @@ package org.loopform.findings;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.form.AlgorithmKind;
 import org.loopform.form.AntiWindup;
@@ -39,17 +41,39 @@ public final class CheckRules {
     private CheckRules() {
     }
 
-    /** What the rules look at. {@code design} and {@code target} are null without a process model. */
-    public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
-                         LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
-                         boolean targetStable, java.util.Optional<ScanFacts> sourceFacts) {
+    /**
+     * What the rules look at. The loops' margins are there only with a process model (absent without
+     * one); {@code mismatch} is the controller as run against its own continuous law, absent where
+     * it was not computed.
+     */
+    public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts,
+                         Optional<LoopMargins> designLoop, Optional<LoopMargins> targetLoop,
+                         Optional<LawDeviation> mismatch, double mismatchBandHighRadPerSecond,
+                         boolean targetStable, Optional<ScanFacts> sourceFacts) {
 
-        /** Inputs without the old controller's scan facts (a continuous design, or none to compare). */
+        public Inputs {
+            Objects.requireNonNull(targetForm, "targetForm");
+            Objects.requireNonNull(facts, "facts");
+            Objects.requireNonNull(designLoop, "designLoop (Optional.empty() without a process model)");
+            Objects.requireNonNull(targetLoop, "targetLoop (Optional.empty() without a process model)");
+            Objects.requireNonNull(mismatch, "mismatch (Optional.empty() when not computed)");
+            Objects.requireNonNull(sourceFacts, "sourceFacts (Optional.empty() for a continuous design)");
+        }
+
+        /**
+         * Inputs from plain figures, without the old controller's scan facts (a continuous design, or
+         * none to compare): a null margins or mismatch reads as absent.
+         */
         public Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts, LoopMargins designLoop,
                       LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
                       boolean targetStable) {
-            this(targetForm, scanSeconds, facts, designLoop, targetLoop, mismatch, mismatchBandHighRadPerSecond,
-                    targetStable, java.util.Optional.empty());
+            this(targetForm, scanSeconds, facts, Optional.ofNullable(designLoop), Optional.ofNullable(targetLoop),
+                    Optional.ofNullable(mismatch), mismatchBandHighRadPerSecond, targetStable, Optional.empty());
+        }
+
+        /** The loop whose crossover the sampling rules read: the target's, else the design's; absent without a process. */
+        Optional<LoopMargins> loopSeen() {
+            return targetLoop.or(() -> designLoop);
         }
     }
 
@@ -92,11 +116,11 @@ public final class CheckRules {
     }
 
     private static void sampling(Inputs in, CheckPolicy p, List<Finding> out) {
-        LoopMargins m = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
-        if (m == null || m.crossoverRadPerSecond().isEmpty()) {
+        Optional<LoopMargins> m = in.loopSeen();
+        if (m.isEmpty() || m.get().crossoverRadPerSecond().isEmpty()) {
             return;
         }
-        double wc = m.crossoverRadPerSecond().getAsDouble();
+        double wc = m.get().crossoverRadPerSecond().getAsDouble();
         double hwc = in.scanSeconds() * wc;
         double lostDeg = Math.toDegrees(hwc / 2);
         Severity s = hwc > p.samplingFail() ? Severity.FAIL : hwc > p.samplingWarn() ? Severity.WARN : null;
@@ -130,11 +154,11 @@ public final class CheckRules {
         if (f.filterSeconds() > 0 && f.nhOverTd() > p.derivativeNhTdWarn()) {
             // the rule is about resolving the filter; it matters to the loop only when the filter
             // corner is near the crossover (within a decade), where the derivative does its work
-            LoopMargins lm = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
+            Optional<LoopMargins> lm = in.loopSeen();
             double corner = 1 / f.filterSeconds();
             boolean shorterThanScan = f.nhOverTd() > 1;
-            boolean matters = shorterThanScan || lm == null || lm.crossoverRadPerSecond().isEmpty()
-                    || corner < 10 * lm.crossoverRadPerSecond().getAsDouble();
+            boolean matters = shorterThanScan || lm.isEmpty() || lm.get().crossoverRadPerSecond().isEmpty()
+                    || corner < 10 * lm.get().crossoverRadPerSecond().getAsDouble();
             Finding coarse = new Finding(Topic.DERIVATIVE, matters ? Severity.WARN : Severity.INFO, f.nhOverTd(),
                     p.derivativeNhTdWarn(), "ratio", SAMPLING_PRACTICE, "The scan is coarse for the derivative filter:"
                     + " N h / Td = " + Numbers.significant(f.nhOverTd(), 3) + ", so the filter time constant Td/N = "
@@ -146,7 +170,7 @@ public final class CheckRules {
                     ? "That is close enough to the loop's crossover to change what the derivative does: scan faster,"
                     + " or expect less derivative action than the tuning asks for."
                     : "The corner lies more than a decade above the loop's crossover, so the loop hardly notices."));
-            java.util.Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() > 0
+            Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() > 0
                     && s.nhOverTd() > p.derivativeNhTdWarn());
             out.add(old.isPresent() ? againstSource(coarse, old.get().nhOverTd(), old.get().scanSeconds(), "N h / Td")
                     : coarse);
@@ -154,14 +178,14 @@ public final class CheckRules {
             Finding spikes = new Finding(Topic.DERIVATIVE, Severity.WARN, in.scanSeconds() / f.derivativeTimeSeconds(),
                     1.0, "ratio", COMMON, "The scan time is longer than the derivative time, so the unfiltered derivative"
                     + " acts as one-scan spikes.");
-            java.util.Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() == 0
+            Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.hasDerivative() && s.filterSeconds() == 0
                     && s.scanSeconds() > s.derivativeTimeSeconds());
             out.add(old.isPresent() ? againstSource(spikes, old.get().scanSeconds() / old.get().derivativeTimeSeconds(),
                     old.get().scanSeconds(), "h / Td") : spikes);
         }
-        LoopMargins m = in.targetLoop() != null ? in.targetLoop() : in.designLoop();
-        if (m != null && m.crossoverRadPerSecond().isPresent()) {
-            double wc = m.crossoverRadPerSecond().getAsDouble();
+        Optional<LoopMargins> m = in.loopSeen();
+        if (m.isPresent() && m.get().crossoverRadPerSecond().isPresent()) {
+            double wc = m.get().crossoverRadPerSecond().getAsDouble();
             if (wc < Math.PI / in.scanSeconds()) {
                 double cont = f.continuousPhaseLeadDegrees(wc);
                 double kept = f.phaseLeadDegrees(wc);
@@ -193,8 +217,11 @@ public final class CheckRules {
                     + " puts the filter pole at " + Numbers.significant(f.filterPole(), 3) + " (negative), so the"
                     + " derivative term alternates in sign every scan."));
         }
-        LawDeviation d = in.mismatch();
-        if (d != null && (d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
+        if (in.mismatch().isEmpty()) {
+            return;
+        }
+        LawDeviation d = in.mismatch().get();
+        if ((d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
             out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
                     "At this scan the new controller as it will run departs from its own continuous law by up to "
                     + Numbers.significant(d.gainDb(), 3) + " dB and " + Numbers.significant(d.phaseDegrees(), 3)
@@ -204,10 +231,10 @@ public final class CheckRules {
     }
 
     private static void robustness(Inputs in, CheckPolicy p, List<Finding> out) {
-        LoopMargins t = in.targetLoop();
-        if (t == null) {
+        if (in.targetLoop().isEmpty()) {
             return;
         }
+        LoopMargins t = in.targetLoop().get();
         if (!in.targetStable()) {
             // StabilityRule fails it from the closed-loop poles, whatever the policy; its margins describe
             // nothing to hold against thresholds
@@ -225,8 +252,9 @@ public final class CheckRules {
                     + (fail ? "is at the edge of instability; do not deploy this tuning: retune or scan faster."
                     : "is close to instability.")));
         }
-        LoopMargins d = in.designLoop();
-        if (d != null && ms > d.maximumSensitivity() * (1 + p.msIncreaseWarn())) {
+        Optional<LoopMargins> design = in.designLoop();
+        if (design.isPresent() && ms > design.get().maximumSensitivity() * (1 + p.msIncreaseWarn())) {
+            LoopMargins d = design.get();
             double rise = ms / d.maximumSensitivity() - 1;
             out.add(new Finding(Topic.ROBUSTNESS, Severity.WARN, 100 * rise, 100 * p.msIncreaseWarn(), "%", COMMON,
                     "Robustness is lost in the migration: Ms rises from " + Numbers.significant(d.maximumSensitivity(), 3)

@@ -2,6 +2,8 @@ package org.loopform.findings;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
 import org.loopform.simulate.SampledResponse;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.simulate.StepTest;
@@ -21,13 +23,45 @@ public final class SaturationRules {
 
     /**
      * {@code standard}: the steps a check starts from; {@code used}: the steps the target loop ran
-     * ({@code targetRun}); {@code linearSetpoint}/{@code linearLoad}: the unlimited loop's output
-     * under the standard steps, null when they were not needed (the standard steps stayed off the
-     * limits); {@code lowPercent..highPercent}: the target's output limits.
+     * ({@code targetRun}); {@code linear}: the unlimited loop's output under the standard steps,
+     * absent when it was not needed (the standard steps stayed off the limits);
+     * {@code lowPercent..highPercent}: the target's output limits.
      */
     public record Inputs(StepTest standard, StepTest used, SampledResponse targetSetpoint, SampledResponse targetLoad,
-                         OutputExtremes linearSetpoint, OutputExtremes linearLoad, double lowPercent,
-                         double highPercent) {
+                         Optional<LinearOutput> linear, double lowPercent, double highPercent) {
+
+        public Inputs {
+            Objects.requireNonNull(linear, "linear (Optional.empty() when the standard steps stayed off the limits)");
+        }
+
+        /**
+         * Inputs from plain figures: {@code linearSetpoint} and {@code linearLoad} both given, or
+         * both null when the unlimited loop was not run.
+         */
+        public Inputs(StepTest standard, StepTest used, SampledResponse targetSetpoint, SampledResponse targetLoad,
+                      OutputExtremes linearSetpoint, OutputExtremes linearLoad, double lowPercent,
+                      double highPercent) {
+            this(standard, used, targetSetpoint, targetLoad, LinearOutput.ofNullable(linearSetpoint, linearLoad),
+                    lowPercent, highPercent);
+        }
+    }
+
+    /** The unlimited loop's output extremes under the standard setpoint and load steps. */
+    public record LinearOutput(OutputExtremes setpoint, OutputExtremes load) {
+
+        public LinearOutput {
+            Objects.requireNonNull(setpoint, "setpoint");
+            Objects.requireNonNull(load, "load");
+        }
+
+        /** Both runs' extremes, or empty when neither was run; one without the other is a bug of the caller. */
+        static Optional<LinearOutput> ofNullable(OutputExtremes setpoint, OutputExtremes load) {
+            if ((setpoint == null) != (load == null)) {
+                throw new IllegalArgumentException("the unlimited loop's setpoint and load extremes come together"
+                        + " (got " + setpoint + " and " + load + ")");
+            }
+            return setpoint == null ? Optional.empty() : Optional.of(new LinearOutput(setpoint, load));
+        }
     }
 
     public static List<Finding> evaluate(Inputs in) {
@@ -57,9 +91,10 @@ public final class SaturationRules {
                     + " The loop's figures describe it off the limits only; check the output range and the"
                     + " operating point before trusting its response to larger upsets."));
         } else if (Math.abs(used) < Math.abs(standard)) {
-            OutputExtremes linear = setpoint ? in.linearSetpoint() : in.linearLoad();
+            Optional<OutputExtremes> unlimited = in.linear().map(x -> setpoint ? x.setpoint() : x.load());
             String needed = "";
-            if (linear != null) {
+            if (unlimited.isPresent()) {
+                OutputExtremes linear = unlimited.get();
                 double u0 = in.standard().operatingOutputPercent();
                 boolean up = linear.highestPercent() - u0 >= u0 - linear.lowestPercent();
                 needed = " (without limits the output would reach " + Numbers.significant(up

@@ -114,30 +114,8 @@ public final class FormCodec {
 
         // filter
         double td = parallel ? derivative / gain : derivative;
-        double tf = switch (form.filter().kind()) {
-            case NONE -> 0.0;
-            case FIXED_RATIO -> td / form.filter().ratio();
-            case RATIO -> {
-                if (values.containsKey("n") && isOff(values.get("n"))) {
-                    yield 0.0;
-                }
-                double n = values.containsKey("n") ? number(form, values, "n", NO_UNIT, PLAIN_HINT) : form.filter().ratio();
-                if (!(n > 0)) {
-                    throw new FormException("n: the derivative filter ratio must be > 0 (got " + n + "); typical values"
-                            + " are 8 to 20, or write n=off for a derivative without a filter");
-                }
-                yield td / n;
-            }
-            case TIME_CONSTANT -> {
-                double t = values.containsKey("tf") ? (isOff(values.get("tf")) ? 0.0
-                        : number(form, values, "tf", (u, x) -> UnitText.time(u).map(
-                        tu -> form.filter().unit().fromSeconds(tu.toSeconds(x))), DerivativeWriting.TIME.unitHint())) : form.filter().defaultTime();
-                if (t < 0) {
-                    throw new FormException("tf: the filter time constant must be >= 0 (got " + t + ")");
-                }
-                yield form.filter().unit().toSeconds(t);
-            }
-        };
+        FilterKind filter = form.filter().kind();
+        double tf = filter.filterSeconds(form.filter(), td, written(form, values, filter.parameter()));
         double b = weight(form, values, "b", form.b());
         double c = weight(form, values, "c", form.c());
         plausible(form, values, gain, parallel ? (integral == 0 ? Double.POSITIVE_INFINITY : gain / integral)
@@ -170,13 +148,9 @@ public final class FormCodec {
         DerivativeSpec ds = form.derivative();
         v.put(form.derivativeName(), ds.writing().fromCoordinate(Math.abs(s.derivative()), ds.unit(), eu, scan));
         double td = s.derivativeTimeSeconds();
-        switch (form.filter().kind()) {
-            // n = 0 stands for "off" (no filter) in a written tuning; it is printed and read back as "off"
-            case RATIO -> v.put("n", s.filterSeconds() > 0 && td > 0 ? td / s.filterSeconds()
-                    : td > 0 ? FILTER_OFF : form.filter().ratio());
-            case TIME_CONSTANT -> v.put("tf", form.filter().unit().fromSeconds(s.filterSeconds()));
-            default -> { }
-        }
+        FilterKind filter = form.filter().kind();
+        filter.write(form.filter(), td, s.filterSeconds())
+                .ifPresent(x -> v.put(filter.parameter().orElseThrow(), x));
         if (form.b().adjustable()) {
             v.put("b", s.b());
         }
@@ -204,7 +178,7 @@ public final class FormCodec {
 
     /** True when {@code name = value} in a written tuning means "no derivative filter". */
     public static boolean isFilterOff(String name, double value) {
-        return name.equals("n") && value == FILTER_OFF;
+        return FilterKind.RATIO.parameter().orElseThrow().equals(name) && value == FILTER_OFF;
     }
 
     private static boolean isOff(String text) {
@@ -286,14 +260,29 @@ public final class FormCodec {
         return v;
     }
 
-    /** Reads an explicit unit into a parameter's own unit; empty when the unit does not fit. */
-    @FunctionalInterface
-    private interface OwnUnit {
-        Optional<Double> convert(String unit, double value);
-    }
-
     private static final OwnUnit NO_UNIT = (u, x) -> Optional.empty();
     private static final String PLAIN_HINT = "; write a bare number";
+
+    /** The filter parameter {@code name} as written in {@code values} (absent when the form has none). */
+    private static FilterKind.Written written(FormDefinition form, Map<String, String> values, Optional<String> name) {
+        boolean given = name.isPresent() && values.containsKey(name.get());
+        return new FilterKind.Written() {
+            @Override
+            public boolean given() {
+                return given;
+            }
+
+            @Override
+            public boolean off() {
+                return given && isOff(values.get(name.get()));
+            }
+
+            @Override
+            public double number(OwnUnit own, String unitHint) {
+                return FormCodec.number(form, values, name.orElseThrow(), own, unitHint);
+            }
+        };
+    }
 
     /** Reads a value, converting an explicit unit to the form's unit for that parameter. */
     private static double number(FormDefinition form, Map<String, String> values, String name, OwnUnit own,

@@ -123,13 +123,7 @@ public record FormDefinition(String id, String title, String description, Struct
         DerivativeWriting d = derivative.writing();
         list.add(new FormParameter(d.parameter(), d.unit(gain.basis(), derivative.unit()), d.meaning() + " (0: off)",
                 true, null));
-        switch (filter.kind()) {
-            case RATIO -> list.add(new FormParameter("n", "ratio", "derivative filter ratio, Tf = Td/N",
-                    false, filter.ratio()));
-            case TIME_CONSTANT -> list.add(new FormParameter("tf", filter.unit().symbol(),
-                    "derivative filter time constant", false, filter.defaultTime()));
-            default -> { }
-        }
+        filter.kind().formParameter(filter).ifPresent(list::add);
         if (b.adjustable()) {
             list.add(new FormParameter("b", "ratio", "setpoint weight on proportional action", false, b.defaultValue()));
         }

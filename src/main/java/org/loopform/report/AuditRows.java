@@ -5,10 +5,9 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
-import java.util.OptionalDouble;
+import java.util.Optional;
 import java.util.stream.Collectors;
 import org.loopform.analysis.LoopMargins;
-import org.loopform.analysis.StepMetrics;
 import org.loopform.audit.AuditSummary;
 import org.loopform.audit.InputFile;
 import org.loopform.check.CheckResult;
@@ -27,15 +26,31 @@ public final class AuditRows {
     private AuditRows() {
     }
 
-    /** loops.csv columns; figures carry their unit in the column name. */
-    public static final List<String> LOOP_COLUMNS = List.of("tag", "verdict", "where", "source_form", "source_values",
-            "target_form", "scan_s", "exact", "converted", "entered", "deviation_gain_db", "deviation_phase_deg",
-            "design_pm_deg", "target_pm_deg", "design_gm", "target_gm", "design_crossover_rad_s",
-            "target_crossover_rad_s", "design_ms", "target_ms", "design_delay_margin_s", "target_delay_margin_s",
-            "design_sp_iae_pct_s", "target_sp_iae_pct_s", "design_sp_overshoot_pct", "target_sp_overshoot_pct",
-            "design_load_iae_pct_s", "target_load_iae_pct_s", "design_load_peak_pct", "target_load_peak_pct",
-            "mismatch_gain_db", "mismatch_phase_deg", "fails", "warns", "findings", "design_lower_gm", "target_lower_gm",
-            "target_delay_margin_scans", "design_margin_notes", "target_margin_notes", "problems");
+    /** loops.csv's columns before the first edition's figures. */
+    private static final List<String> HEAD_COLUMNS = List.of("tag", "verdict", "where", "source_form", "source_values",
+            "target_form", "scan_s", "exact", "converted", "entered", "deviation_gain_db", "deviation_phase_deg");
+    /** loops.csv's columns between the first edition's figures and those added since. */
+    private static final List<String> CHECK_COLUMNS = List.of("mismatch_gain_db", "mismatch_phase_deg", "fails",
+            "warns", "findings");
+    /** loops.csv's columns after the figures. */
+    private static final List<String> TAIL_COLUMNS = List.of("design_margin_notes", "target_margin_notes", "problems");
+
+    /**
+     * loops.csv columns; figures ({@link LoopFigure}) carry their unit in the column name. The
+     * first edition's figures come before the finding counts, those added since after them.
+     */
+    public static final List<String> LOOP_COLUMNS = concat(HEAD_COLUMNS,
+            LoopFigure.csvColumns(LoopFigure.csvFigures(false)), CHECK_COLUMNS,
+            LoopFigure.csvColumns(LoopFigure.csvFigures(true)), TAIL_COLUMNS);
+
+    @SafeVarargs
+    private static List<String> concat(List<String>... parts) {
+        List<String> all = new ArrayList<>();
+        for (List<String> p : parts) {
+            all.addAll(p);
+        }
+        return List.copyOf(all);
+    }
 
     /**
      * Entry-sheet columns (entry-sheet.csv and .xlsx): one row per value to type in. The first five
@@ -52,10 +67,6 @@ public final class AuditRows {
 
     private static String num(double v) {
         return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
-    }
-
-    private static String num(OptionalDouble v) {
-        return v.isPresent() ? num(v.getAsDouble()) : "";
     }
 
     static String values(Map<String, String> given) {
@@ -99,42 +110,19 @@ public final class AuditRows {
         r.add(written(v.entered(), v, true));
         r.add(num(v.deviation().gainDb()));
         r.add(num(v.deviation().phaseDegrees()));
-        LoopMargins d = c.designMargins();
-        LoopMargins t = c.targetMargins();
         boolean p = c.hasProcess();
-        r.add(p ? num(d.phaseMarginDegrees()) : "");
-        r.add(p ? num(t.phaseMarginDegrees()) : "");
-        r.add(p ? num(d.gainMargin()) : "");
-        r.add(p ? num(t.gainMargin()) : "");
-        r.add(p ? num(d.crossoverRadPerSecond()) : "");
-        r.add(p ? num(t.crossoverRadPerSecond()) : "");
-        r.add(p ? num(d.maximumSensitivity()) : "");
-        r.add(p ? num(t.maximumSensitivity()) : "");
-        r.add(p ? num(d.delayMarginSeconds()) : "");
-        r.add(p ? num(t.delayMarginSeconds()) : "");
-        StepMetrics ds = c.designSetpoint();
-        StepMetrics ts = c.targetSetpoint();
-        StepMetrics dl = c.designLoad();
-        StepMetrics tl = c.targetLoad();
-        r.add(p ? num(ds.integralAbsoluteErrorPercentSeconds()) : "");
-        r.add(p ? num(ts.integralAbsoluteErrorPercentSeconds()) : "");
-        r.add(p ? num(ds.overshootPercent()) : "");
-        r.add(p ? num(ts.overshootPercent()) : "");
-        r.add(p ? num(dl.integralAbsoluteErrorPercentSeconds()) : "");
-        r.add(p ? num(tl.integralAbsoluteErrorPercentSeconds()) : "");
-        r.add(p ? num(dl.peakDeviationPercent()) : "");
-        r.add(p ? num(tl.peakDeviationPercent()) : "");
+        Optional<LoopSide> design = p ? Optional.of(LoopSide.design(c)) : Optional.empty();
+        Optional<LoopSide> target = p ? Optional.of(LoopSide.target(c)) : Optional.empty();
+        r.addAll(LoopFigure.csvCells(LoopFigure.csvFigures(false), design, target));
         r.add(num(c.mismatch().gainDb()));
         r.add(num(c.mismatch().phaseDegrees()));
         r.add(Long.toString(c.findings().stream().filter(f -> f.severity() == Severity.FAIL).count()));
         r.add(Long.toString(c.findings().stream().filter(f -> f.severity() == Severity.WARN).count()));
         r.add(c.findings().stream().filter(f -> f.severity() != Severity.INFO)
                 .map(f -> f.topic().id() + " (" + f.severity().id() + ")").collect(Collectors.joining("; ")));
-        r.add(p ? num(d.lowerGainMargin()) : "");
-        r.add(p ? num(t.lowerGainMargin()) : "");
-        r.add(p ? num(t.delayMarginScans(c.scanSeconds())) : "");
-        r.add(p ? notes(d) : "");
-        r.add(p ? notes(t) : "");
+        r.addAll(LoopFigure.csvCells(LoopFigure.csvFigures(true), design, target));
+        r.add(design.map(x -> notes(x.margins())).orElse(""));
+        r.add(target.map(x -> notes(x.margins())).orElse(""));
         r.add("");
         return spreadsheetRow(r);
     }

@@ -1,7 +1,6 @@
 package org.loopform.report;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.util.OptionalDouble;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.StepMetrics;
 import org.loopform.check.CheckResult;
@@ -14,10 +13,6 @@ import org.loopform.units.Numbers;
 public final class CheckReport {
 
     private CheckReport() {
-    }
-
-    private static String fmt(OptionalDouble v, int digits) {
-        return v.isPresent() ? Numbers.significant(v.getAsDouble(), digits) : "none";
     }
 
     private static String fmt(double v, int digits) {
@@ -47,31 +42,13 @@ public final class CheckReport {
                 .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
             TextTable t = new TextTable("figure", "as-found", "as-left", "unit");
-            LoopMargins d = r.designMargins();
-            LoopMargins g = r.targetMargins();
-            t.row("phase margin", MarginFigures.phaseMargin(d, 3), MarginFigures.phaseMargin(g, 3), "deg");
-            t.row("gain margin", MarginFigures.gainMargin(d, 3), MarginFigures.gainMargin(g, 3), "ratio");
-            if (MarginFigures.hasLowerGainMargin(d, g)) {
-                t.row("lower gain margin", MarginFigures.lowerGainMargin(d, 3), MarginFigures.lowerGainMargin(g, 3),
-                        "ratio");
+            LoopSide d = LoopSide.design(r);
+            LoopSide g = LoopSide.target(r);
+            for (LoopFigure f : LoopFigure.tableOrder()) {
+                if (f.shown(d, g)) {
+                    t.row(f.label(), f.text(d), f.text(g), f.unit());
+                }
             }
-            t.row("crossover", MarginFigures.crossover(d, 3), MarginFigures.crossover(g, 3), "rad/s");
-            t.row("max sensitivity Ms", fmt(d.maximumSensitivity(), 3), fmt(g.maximumSensitivity(), 3), "ratio");
-            t.row("delay margin", MarginFigures.delayMargin(d, 3), MarginFigures.delayMargin(g, 3), "s");
-            t.row("delay margin in scans", MarginFigures.delayMarginScans(d, designScanSeconds(r), 3),
-                    MarginFigures.delayMarginScans(g, r.scanSeconds(), 3), "scans");
-            StepMetrics ds = r.designSetpoint();
-            StepMetrics ts = r.targetSetpoint();
-            t.row("setpoint step IAE", fmt(ds.integralAbsoluteErrorPercentSeconds(), 4),
-                    fmt(ts.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
-            t.row("setpoint overshoot", fmt(ds.overshootPercent(), 3), fmt(ts.overshootPercent(), 3), "% of step");
-            t.row("setpoint settling (2 %)", fmt(ds.settlingTimeSeconds(), 4), fmt(ts.settlingTimeSeconds(), 4), "s");
-            StepMetrics dl = r.designLoad();
-            StepMetrics tl = r.targetLoad();
-            t.row("load step IAE", fmt(dl.integralAbsoluteErrorPercentSeconds(), 4),
-                    fmt(tl.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
-            t.row("load step peak", fmt(dl.peakDeviationPercent(), 4), fmt(tl.peakDeviationPercent(), 4), "%");
-            t.row("output travel (load)", fmt(dl.outputTravelPercent(), 4), fmt(tl.outputTravelPercent(), 4), "%");
             sb.append(t.render(2));
             var sp = r.targetRun().setpoint();
             sb.append("  Steps of ").append(fmt(r.steps().setpointStepPercent(), 3)).append(" % (setpoint) and ")
@@ -107,25 +84,26 @@ public final class CheckReport {
         return sb.toString();
     }
 
-    private static void put(ObjectNode n, String key, OptionalDouble v) {
-        Json.putNumber(n, key, v.isPresent() ? v.getAsDouble() : null);
-    }
-
     /** The scan of the design loop when it runs the source's own algorithm; NaN for the continuous design. */
     static double designScanSeconds(CheckResult r) {
-        Double s = r.loop().sourceScanSeconds();
-        return s != null ? s : Double.NaN;
+        return LoopSide.designScanSeconds(r);
     }
 
+    /** One loop's figures as JSON (continuous: {@code scanSeconds} NaN); see {@link #figures(LoopSide)}. */
     static ObjectNode figures(LoopMargins m, org.loopform.analysis.LoopStability st, StepMetrics sp,
                               StepMetrics load, double scanSeconds) {
+        return figures(new LoopSide(m, st, sp, load, scanSeconds));
+    }
+
+    /**
+     * One loop's figures as JSON: the catalogue's margins ({@link LoopFigure}), the margins' notes,
+     * the stability, and the step figures in their objects, left null for a loop that is not stable.
+     */
+    static ObjectNode figures(LoopSide side) {
         ObjectNode n = Json.object();
-        put(n, "phase_margin_deg", m.phaseMarginDegrees());
-        put(n, "gain_margin", m.gainMargin());
-        put(n, "crossover_rad_s", m.crossoverRadPerSecond());
-        Json.putNumber(n, "ms", m.maximumSensitivity());
-        put(n, "delay_margin_s", m.delayMarginSeconds());
-        MarginFigures.putJson(n, m, scanSeconds);
+        LoopFigure.inGroup(LoopFigure.Group.MARGINS).forEach(f -> f.putJson(n, side));
+        MarginFigures.putNotes(n, side.margins());
+        org.loopform.analysis.LoopStability st = side.stability();
         n.put("stability", st.verdict().word());
         n.put("stability_test", st.test().describe());
         if (st.unstablePoles() == Integer.MAX_VALUE) {
@@ -133,27 +111,22 @@ public final class CheckReport {
         } else {
             n.put("unstable_poles", st.unstablePoles());
         }
-        put(n, "largest_pole_magnitude", st.largestPoleMagnitude());
-        if (!st.isStable()) {
-            // the responses of an unstable loop (held only by its output limits) describe nothing to compare
-            ObjectNode s = n.putObject("setpoint");
-            s.putNull("iae");
-            s.putNull("overshoot_pct");
-            s.putNull("settling_s");
-            ObjectNode l = n.putObject("load");
-            l.putNull("iae");
-            l.putNull("peak");
-            l.putNull("output_travel");
-            return n;
+        Json.putNumber(n, "largest_pole_magnitude", st.largestPoleMagnitude().isPresent()
+                ? st.largestPoleMagnitude().getAsDouble() : null);
+        for (LoopFigure.Group g : LoopFigure.Group.values()) {
+            if (!g.response()) {
+                continue;
+            }
+            ObjectNode o = n.putObject(g.jsonObject());
+            for (LoopFigure f : LoopFigure.inGroup(g)) {
+                if (st.isStable()) {
+                    f.putJson(o, side);
+                } else {
+                    // the responses of an unstable loop (held only by its output limits) describe nothing to compare
+                    o.putNull(f.jsonKey());
+                }
+            }
         }
-        ObjectNode s = n.putObject("setpoint");
-        Json.putNumber(s, "iae", sp.integralAbsoluteErrorPercentSeconds());
-        put(s, "overshoot_pct", sp.overshootPercent());
-        put(s, "settling_s", sp.settlingTimeSeconds());
-        ObjectNode l = n.putObject("load");
-        Json.putNumber(l, "iae", load.integralAbsoluteErrorPercentSeconds());
-        Json.putNumber(l, "peak", load.peakDeviationPercent());
-        Json.putNumber(l, "output_travel", load.outputTravelPercent());
         return n;
     }
 
@@ -182,10 +155,8 @@ public final class CheckReport {
         dev.put("gain_db", c.deviation().gainDb());
         dev.put("phase_deg", c.deviation().phaseDegrees());
         if (r.hasProcess()) {
-            n.set("design", figures(r.designMargins(), r.designStability(), r.designSetpoint(), r.designLoad(),
-                    designScanSeconds(r)));
-            n.set("target", figures(r.targetMargins(), r.targetStability(), r.targetSetpoint(), r.targetLoad(),
-                    r.scanSeconds()));
+            n.set("design", figures(LoopSide.design(r)));
+            n.set("target", figures(LoopSide.target(r)));
         } else {
             n.putNull("design");
             n.putNull("target");

@@ -6,8 +6,6 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
-import org.loopform.analysis.LoopMargins;
-import org.loopform.analysis.StepMetrics;
 import org.loopform.check.CheckResult;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.audit.LoopRow;
@@ -156,43 +154,17 @@ final class HtmlLoopSection {
     }
 
     private static void writeFigures(Writer w, CheckResult r) throws IOException {
-        LoopMargins d = r.designMargins();
-        LoopMargins g = r.targetMargins();
-        StepMetrics ds = r.designSetpoint();
-        StepMetrics ts = r.targetSetpoint();
-        StepMetrics dl = r.designLoad();
-        StepMetrics tl = r.targetLoad();
+        LoopSide d = LoopSide.design(r);
+        LoopSide g = LoopSide.target(r);
         StringBuilder sb = new StringBuilder();
         sb.append("<div><table class=\"figures\"><caption>Loop as-found (old) and as-left (new)</caption>\n<thead><tr>"
                 + "<th>figure</th><th class=\"num\">as-found</th><th class=\"num\">as-left</th><th>unit</th></tr></thead>"
                 + "\n<tbody>\n");
-        row(sb, "phase margin", Html.esc(MarginFigures.phaseMargin(d, 3)), Html.esc(MarginFigures.phaseMargin(g, 3)),
-                "deg");
-        row(sb, "gain margin", Html.esc(MarginFigures.gainMargin(d, 3)), Html.esc(MarginFigures.gainMargin(g, 3)),
-                "ratio");
-        if (MarginFigures.hasLowerGainMargin(d, g)) {
-            row(sb, "lower gain margin", Html.esc(MarginFigures.lowerGainMargin(d, 3)),
-                    Html.esc(MarginFigures.lowerGainMargin(g, 3)), "ratio");
+        for (LoopFigure f : LoopFigure.tableOrder()) {
+            if (f.shown(d, g)) {
+                row(sb, f.label(), Html.esc(f.text(d)), Html.esc(f.text(g)), f.unit());
+            }
         }
-        row(sb, "crossover", Html.esc(MarginFigures.crossover(d, 3)), Html.esc(MarginFigures.crossover(g, 3)),
-                "rad/s");
-        row(sb, "max sensitivity Ms", Html.fig(d.maximumSensitivity(), 3), Html.fig(g.maximumSensitivity(), 3),
-                "ratio");
-        row(sb, "delay margin", Html.esc(MarginFigures.delayMargin(d, 3)), Html.esc(MarginFigures.delayMargin(g, 3)),
-                "s");
-        row(sb, "delay margin in scans", Html.esc(MarginFigures.delayMarginScans(d, CheckReport.designScanSeconds(r), 3)),
-                Html.esc(MarginFigures.delayMarginScans(g, r.scanSeconds(), 3)), "scans");
-        row(sb, "setpoint step IAE", Html.fig(ds.integralAbsoluteErrorPercentSeconds(), 4),
-                Html.fig(ts.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
-        row(sb, "setpoint overshoot", Html.fig(ds.overshootPercent(), 3), Html.fig(ts.overshootPercent(), 3),
-                "% of step");
-        row(sb, "setpoint settling (2 %)", Html.fig(ds.settlingTimeSeconds(), 4), Html.fig(ts.settlingTimeSeconds(), 4),
-                "s");
-        row(sb, "load step IAE", Html.fig(dl.integralAbsoluteErrorPercentSeconds(), 4),
-                Html.fig(tl.integralAbsoluteErrorPercentSeconds(), 4), "%*s");
-        row(sb, "load step peak", Html.fig(dl.peakDeviationPercent(), 4), Html.fig(tl.peakDeviationPercent(), 4), "%");
-        row(sb, "output travel (load)", Html.fig(dl.outputTravelPercent(), 4), Html.fig(tl.outputTravelPercent(), 4),
-                "%");
         var sp = r.targetRun().setpoint();
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of ").append(Html.fig(r.steps().setpointStepPercent(), 3))
                 .append(" % and load step of ").append(Html.fig(r.steps().loadStepPercent(), 3)).append(" % at the process"

@@ -5,11 +5,12 @@ import java.util.Optional;
 import java.util.OptionalDouble;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.MarginNote;
-import org.loopform.units.Numbers;
 
 /**
- * How a loop's margins are written, once for text, HTML, CSV and JSON: a margin that does not
- * exist is "none" followed by the reason, never a bare blank that could read as infinite.
+ * A loop's margins written alone, for tables other than the check's (a tuning's design loop, a
+ * scan sweep), the way the figure catalogue ({@link LoopFigure}) writes them: a margin that does
+ * not exist is "none" followed by the reason, never a bare blank that could read as infinite; and
+ * the notes beside the margins in JSON.
  */
 final class MarginFigures {
 
@@ -21,11 +22,6 @@ final class MarginFigures {
 
     static String gainMargin(LoopMargins m, int digits) {
         return orNone(m.gainMargin(), m.gainMarginNote(), digits);
-    }
-
-    static String lowerGainMargin(LoopMargins m, int digits) {
-        return m.lowerGainMargin().isPresent() ? Numbers.significant(m.lowerGainMargin().getAsDouble(), digits)
-                : "none (" + NO_LOWER_GAIN_MARGIN + ")";
     }
 
     static String phaseMargin(LoopMargins m, int digits) {
@@ -41,46 +37,18 @@ final class MarginFigures {
         return orNone(m.delayMarginSeconds(), m.delayMarginNote(), digits);
     }
 
-    /** The delay margin in scans of a sampled loop; "-" for a continuous one (NaN scan). */
-    static String delayMarginScans(LoopMargins m, double scanSeconds, int digits) {
-        if (!(scanSeconds > 0)) {
-            return "-";
-        }
-        return orNone(m.delayMarginScans(scanSeconds), m.delayMarginNote(), digits);
-    }
-
-    /** True when the loop can lose gain and reach the limit, so its lower gain margin is worth a row. */
-    static boolean hasLowerGainMargin(LoopMargins... loops) {
-        for (LoopMargins m : loops) {
-            if (m != null && m.lowerGainMargin().isPresent()) {
-                return true;
-            }
-        }
-        return false;
-    }
-
     /**
-     * The margin keys beside the existing ones: {@code lower_gain_margin}, {@code delay_margin_scans}
-     * (null for a continuous loop, {@code scanSeconds} NaN) and the notes {@code gain_margin_note},
-     * {@code phase_margin_note}, {@code delay_margin_note} (null where the margin exists).
+     * The notes beside a loop's margin keys: {@code gain_margin_note}, {@code phase_margin_note},
+     * {@code delay_margin_note} (null where the margin exists).
      */
-    static void putJson(ObjectNode n, LoopMargins m, double scanSeconds) {
-        put(n, "lower_gain_margin", m.lowerGainMargin());
-        put(n, "delay_margin_scans", scanSeconds > 0 ? m.delayMarginScans(scanSeconds) : OptionalDouble.empty());
+    static void putNotes(ObjectNode n, LoopMargins m) {
         note(n, "gain_margin_note", m.gainMarginNote());
         note(n, "phase_margin_note", m.phaseMarginNote());
         note(n, "delay_margin_note", m.delayMarginNote());
     }
 
     private static String orNone(OptionalDouble v, Optional<MarginNote> why, int digits) {
-        if (v.isPresent()) {
-            return Numbers.significant(v.getAsDouble(), digits);
-        }
-        return why.map(w -> "none (" + w.text() + ")").orElse("none");
-    }
-
-    private static void put(ObjectNode n, String key, OptionalDouble v) {
-        Json.putNumber(n, key, v.isPresent() ? v.getAsDouble() : null);
+        return LoopFigure.text(LoopFigure.Reading.orNone(v, why), digits);
     }
 
     private static void note(ObjectNode n, String key, Optional<MarginNote> why) {
