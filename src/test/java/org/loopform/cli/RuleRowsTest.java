@@ -243,6 +243,35 @@ class RuleRowsTest {
     }
 
     @Test
+    void the_example_list_of_new_loops_gives_each_rules_published_values() throws Exception {
+        Path out = dir.resolve("out");
+        JsonNode loops = loops(CliRun.of("audit", "examples/new-loops.csv", "--to", "examples/plant-k7-target.yaml",
+                "--out", out.toString()), out);
+        double[][] expected = {
+            // TIC-104, SIMC PI (Skogestad 2003) by hand: K = 1.998, T = 59.71 s, L = 10.27 s, tau_c = L:
+            // Kc = T/(K 2L), tauI = min(T, 8L) = T
+            {59.71 / (1.998 * 2 * 10.27), 59.71},
+            // FIC-110, AMIGO PI (Astrom & Hagglund 2004) by hand: K = 0.9, T = 4 s, L = 1 s:
+            // Kc = 0.15/K + (0.35 - LT/(L+T)^2) T/(K L) = 1.0111, Ti = 0.35 L + 13 L T^2/(T^2 + 12 L T + 7 L^2) = 3.2796 s
+            {0.15 / 0.9 + (0.35 - 4.0 / 25) * 4 / 0.9, 0.35 + 13 * 16.0 / (16 + 48 + 7)},
+            // LIC-210, SIMC PI for an integrating process (Skogestad 2003, Table 3): k' = 0.01 %/s per %, theta = 8 s,
+            // tau_c = 40 s: Kc = 1/(k' (tau_c + theta)) = 2.0833, tauI = 4 (tau_c + theta) = 192 s
+            {1 / (0.01 * 48), 192},
+            // TIC-320, lambda PI (Astrom & Hagglund 2006 ch. 7, from memory): K = 1.4, T = 360 s, L = 40 s,
+            // lambda = 300 s: Kc = T/(K (lambda + L)) = 0.7563, Ti = T = 360 s
+            {360 / (1.4 * 340), 360}};
+        for (int k = 0; k < expected.length; k++) {
+            JsonNode published = loops.get(k).get("tuning_rule").get("published");
+            assertThat(published.get("kc").asDouble()).as(loops.get(k).get("tag").asText())
+                    .isCloseTo(expected[k][0], within(1e-6 * expected[k][0]));
+            assertThat(published.get("ti_s").asDouble()).as(loops.get(k).get("tag").asText())
+                    .isCloseTo(expected[k][1], within(1e-6 * expected[k][1]));
+        }
+        // FIC-110: 3.2796 s is stored to the new controller's 0.01 min as 0.05 min (3 s), which the check reports
+        assertThat(loops.get(1).get("verdict").asText()).isEqualTo("warn");
+    }
+
+    @Test
     void a_list_of_new_loops_needs_no_form_column() throws Exception {
         // plumbing: the header may give rule instead of form
         Path csv = dir.resolve("new.csv");
