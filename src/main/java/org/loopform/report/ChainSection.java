@@ -43,7 +43,8 @@ public final class ChainSection {
      * @param tuning the rule's tuning of the recommended model
      * @param loop the loop checked: the rule's tuning in its published form, the target form and scan
      * @param check the check of {@code loop}
-     * @param robust the target loop checked at every corner of the fit's 95 % box
+     * @param robust the target loop checked at every corner of the fit's 95 % box, or null when the fit left
+     *               an interval undetermined
      */
     public record Chain(String recordName, String origin, PlantRecord record, StepTestResult fit,
                         PublishedTuning tuning, LoopSpec loop, CheckResult check, RobustResult robust) {
@@ -128,6 +129,10 @@ public final class ChainSection {
     }
 
     private static String robust(RobustResult r) {
+        if (r == null) {
+            return "<p>The fit left an interval undetermined, so there is no box whose corners could be checked;"
+                    + " a longer or less noisy record would give one.</p>\n";
+        }
         StringBuilder sb = new StringBuilder("<p>The target loop checked at each of the ").append(r.corners().size())
                 .append(" corners of the fit's 95 % box (the converted values and the scan kept): ")
                 .append(r.unstableCorners() == 0 ? "stable at every corner" : "<b>unstable at " + r.unstableCorners()
@@ -157,7 +162,8 @@ public final class ChainSection {
                 .append(RuleTuningText.title(t)).append(" (").append(sourceShort(t)).append("): ")
                 .append(RuleTuningText.values(t)).append("; in ").append(c.check().conversion().to().id()).append(" at ")
                 .append(Numbers.plain(c.check().scanSeconds())).append(" s: ").append(c.check().verdict().id())
-                .append(", worst Ms over the fit's 95 % box ").append(Numbers.significant(c.robust().worstMs(), 3))
+                .append(c.robust() == null ? "" : ", worst Ms over the fit's 95 % box "
+                        + Numbers.significant(c.robust().worstMs(), 3))
                 .append(nl).append("  (report.html, section \"").append(c.loop().tag())
                 .append(", a new loop: from a bump test to a checked tuning\")").append(nl);
         return sb.toString();

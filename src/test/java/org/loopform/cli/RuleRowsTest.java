@@ -138,7 +138,8 @@ class RuleRowsTest {
                     .contains("no as-found value");
             String html = Files.readString(out.resolve("report.html"));
             assertThat(html).contains("New loop, tuned by rule <b>simc PI</b>").contains("Skogestad")
-                    .contains("kc = 1.5 %/%, ti = 60 s, td = 0 s");
+                    .contains("kc = 1.5 %/%, ti = 60 s, td = 0 s")
+                    .contains("<span class=\"form\">rule simc PI</span> kc = 1.5 %/%, ti = 60 s");
         }
     }
 
