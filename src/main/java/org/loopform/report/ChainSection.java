@@ -29,6 +29,18 @@ public final class ChainSection {
     /** The section's anchor in the report. */
     public static final String ANCHOR = "chain";
     private static final int DIGITS = 4;
+    /** The chained loop's section looks like an audited loop's ({@code section.loop} in {@link HtmlStyle}). */
+    private static final String STYLE = """
+            <style>
+            section.chain { border-top: 3px double var(--ink); margin-top: 18px; padding-top: 6px; }
+            section.chained { border-top: 2px solid var(--ink); padding: 8px 0 6px; margin-top: 14px; }
+            section.chained > header { display: flex; flex-wrap: wrap; align-items: baseline; gap: 4px 12px; }
+            section.chained > header .where { color: var(--muted); font-size: 13px; }
+            section.chained > header .top { margin-left: auto; font-size: 12px; }
+            section.chained p { margin: 4px 0; }
+            @media print { section.chained > header .top { display: none; } }
+            </style>
+            """;
 
     private ChainSection() {
     }
@@ -53,7 +65,7 @@ public final class ChainSection {
     /** The section as HTML. */
     public static String html(Chain c) {
         ModelFit f = c.fit().recommendedFit();
-        StringBuilder sb = new StringBuilder("<section id=\"" + ANCHOR + "\" class=\"chain\">\n<h2>"
+        StringBuilder sb = new StringBuilder("<section id=\"" + ANCHOR + "\" class=\"chain\">\n" + STYLE + "<h2>"
                 + Html.esc(c.loop().tag()) + ", a new loop: from a bump test to a checked tuning</h2>\n");
         sb.append("<p class=\"note\">").append(Html.esc(c.origin())).append(" One chain, each step's output the next"
                 + " one's input: the record fitted, the model tuned by a published rule, the tuning carried into the"
@@ -92,7 +104,8 @@ public final class ChainSection {
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
-        sb.append(w);
+        // the audited loops' sections are "section.loop" (the index lists each); this one is not an audited loop
+        sb.append(w.toString().replaceFirst("^<section class=\"loop ", "<section class=\"chained "));
         sb.append("<h3>4. Over the fit's uncertainty</h3>\n").append(robust(c.robust()));
         sb.append("</section>\n");
         return sb.toString();
