@@ -34,6 +34,9 @@ class DemoChainTest {
         int start = html.indexOf("<section id=\"chain\"");
         assertThat(start).as("the chain's section").isNotNegative();
         section = html.substring(start, html.indexOf("<h3>4.", start) + 2000);
+        // plumbing: the 33 audited loops keep their sections and index lines; the chained loop is apart from them
+        assertThat(Pattern.compile("<section class=\"loop ").matcher(html).results().count()).isEqualTo(33);
+        assertThat(section).contains("<section class=\"chained pass\" id=\"loop-TIC-104\">");
         CliRun fit = CliRun.of("fit", "examples/records/tic-104-bump.csv", "--pv-range", "0..150", "--out-range",
                 "0..100", "--format", "json");
         assertThat(fit.exitCode()).as(fit.err()).isEqualTo(0);
