@@ -88,6 +88,11 @@ final class AuditRunner {
     }
 
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
+        return run(rows, s, out, err, "");
+    }
+
+    /** As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the report's summary. */
+    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain) {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
@@ -134,7 +139,7 @@ final class AuditRunner {
                 more.put("signoff", AuditRows.signOffJson(info));
                 more.put("provenance", AuditRows.provenanceJson(info));
                 output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
-                        HtmlReport.writeDocument(doc, summary, info, index, sections));
+                        HtmlReport.writeDocument(doc, summary, info, index, sections, chain));
             }
         } finally {
             if (bar != null) {

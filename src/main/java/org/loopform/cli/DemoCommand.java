@@ -15,6 +15,7 @@ import org.loopform.form.FormDefinition;
 import org.loopform.io.FormFileReader;
 import org.loopform.io.LoopCsvReader;
 import org.loopform.report.Cautions;
+import org.loopform.report.ChainSection;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -25,7 +26,9 @@ import picocli.CommandLine.Spec;
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = {"Audits the bundled example (an invented plant's migration, examples/plant-k7-loops.csv, into"
                 + " the invented target form examples/plant-k7-target.yaml) and writes the report into"
-                + " ./loopform-demo/ (or --out)."},
+                + " ./loopform-demo/ (or --out). The report also takes one new loop, TIC-104, from its invented bump test"
+                + " (examples/records/tic-104-bump.csv) through fit, a published tuning rule (SIMC PI), the target form"
+                + " and the check."},
         footer = {"", Cautions.SHORT})
 final class DemoCommand implements Callable<Integer> {
 
@@ -52,7 +55,11 @@ final class DemoCommand implements Callable<Integer> {
         FormDefinition target = FormFileReader.parse(targetText, TARGET);
         List<InputFile> files = List.of(
                 new InputFile("loop list", LOOPS + " (bundled)", Fingerprint.sha256(resourceBytes(LOOPS))),
-                new InputFile("form", TARGET + " (bundled)", Fingerprint.sha256(resourceBytes(TARGET))));
+                new InputFile("form", TARGET + " (bundled)", Fingerprint.sha256(resourceBytes(TARGET))),
+                new InputFile("record", DemoChain.RECORD + " (bundled, invented)",
+                        Fingerprint.sha256(resourceBytes(DemoChain.RECORD))));
+        // the new loop TIC-104, from its invented bump test to a checked tuning, in a section of its own
+        ChainSection.Chain chain = DemoChain.run(target);
         try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(LOOPS);
              LoopCsvReader rows = LoopCsvReader.of(in, LOOPS, null,
                      new LoopDefaults(target, null))) {
@@ -60,8 +67,10 @@ final class DemoCommand implements Callable<Integer> {
             int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, true, true,
                     CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
                     List.of(), "target " + target.id() + " (invented), scans from the list, default policy",
-                    AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark()), spec.commandLine().getOut(), spec.commandLine().getErr());
+                    AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark()), spec.commandLine().getOut(), spec.commandLine().getErr(),
+                    ChainSection.html(chain));
             if (format.format == OutputFormat.text) {
+                spec.commandLine().getOut().print(System.lineSeparator() + ChainSection.summaryText(chain));
                 spec.commandLine().getOut().println("Open " + out.resolve("report.html").toAbsolutePath()
                         + " in a browser. The plant and its loops are invented for this demonstration.");
                 spec.commandLine().getOut().flush();

@@ -1,6 +1,5 @@
 package org.loopform.cli;
 
-import java.util.LinkedHashMap;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -18,6 +17,7 @@ import org.loopform.form.WritingContext;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.ConfidenceBoxReader;
 import org.loopform.io.ProcessReader;
+import org.loopform.io.PublishedForm;
 import org.loopform.process.ProcessModel;
 import org.loopform.report.Cautions;
 import org.loopform.report.RobustReport;
@@ -32,7 +32,6 @@ import org.loopform.tuning.RuleOptions;
 import org.loopform.tuning.TuningRules;
 import org.loopform.units.BadInput;
 import org.loopform.units.Measure;
-import org.loopform.units.Numbers;
 import org.loopform.units.Span;
 import org.loopform.units.TimeUnit;
 import picocli.CommandLine.Command;
@@ -150,15 +149,9 @@ final class TuneCommand implements Callable<Integer> {
             double[] ku = ultimate(ultimate);
             t = TuningRules.fromUltimate(r, c, ku[0], ku[1]);
         }
-        boolean series = TuneReport.series(t);
-        FormDefinition source = CatalogLoader.resolve(series ? "series" : "ideal-unfiltered", "--rule");
-        Map<String, String> values = new LinkedHashMap<>();
-        values.put("kc", Numbers.significant(t.gain(), 12));
-        values.put("ti", Numbers.significant(t.integralTimeSeconds(), 12));
-        values.put("td", Numbers.significant(t.derivativeTimeSeconds(), 12));
-        if (series) {
-            values.put("n", "off");
-        }
+        // the audit's rows tuned by rule convert from the same form and values (io.PublishedForm)
+        FormDefinition source = PublishedForm.form(t, "--rule");
+        Map<String, String> values = PublishedForm.values(t);
         Conversion conv = Converter.convert(source, values, target, new WritingContext(pvRange, outRange, scanSeconds));
         CheckResult design = null;
         CheckResult check = null;

@@ -1,5 +1,10 @@
 package org.loopform.identify;
 
+import org.loopform.process.FirstOrderPlusDeadTime;
+import org.loopform.process.IntegratingPlusDeadTime;
+import org.loopform.process.ProcessModel;
+import org.loopform.process.SecondOrderPlusDeadTime;
+
 /**
  * One model fitted to a record, with 95 % intervals. Gains %/% (integrating: %/s per %), times s.
  * The gain's and time constants' intervals come from the Jacobian at the optimum, the dead time among its
@@ -35,5 +40,17 @@ public record ModelFit(ModelKind kind, double gain, double gainLow, double gainH
         if (!Double.isFinite(gain) || !Double.isFinite(deadTimeSeconds) || !Double.isFinite(rmsErrorPercent)) {
             throw new IllegalArgumentException("a fit must be finite");
         }
+    }
+
+    /**
+     * The fitted model at its best estimates, as a process model: what {@code fit --write-process} writes
+     * and a loop file's process block reads back (gains %/% of the spans, times s).
+     */
+    public ProcessModel toProcessModel() {
+        return switch (kind) {
+            case FOPDT -> new FirstOrderPlusDeadTime(gain, lagSeconds, deadTimeSeconds);
+            case SOPDT -> SecondOrderPlusDeadTime.ofTimeConstants(gain, lagSeconds, secondLagSeconds, deadTimeSeconds);
+            case IPDT -> new IntegratingPlusDeadTime(gain, deadTimeSeconds);
+        };
     }
 }

@@ -25,6 +25,7 @@ import org.loopform.audit.LoopRow;
 import org.loopform.check.LoopSpec;
 import org.loopform.form.FormDefinition;
 import org.loopform.process.ProcessModel;
+import org.loopform.tuning.PublishedTuning;
 import org.loopform.units.BadInput;
 import org.loopform.units.Span;
 
@@ -48,11 +49,11 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     static final Set<String> PROCESS = Set.of("model", "process_gain", "time_constant", "time_constant_2",
             "dead_time", "lag", "process_gain_units");
     static final Set<String> OTHER = Set.of("tag", "form", "scan", "pv_range", "output_range", "target_form",
-            "target_scan");
+            "target_scan", RuleCells.RULE, RuleCells.CONTROLLER, RuleCells.TAU_C, RuleCells.LAMBDA);
     /** Columns that hold numbers (with an optional unit), where a decimal comma is a problem. */
     static final Set<String> NUMERIC = Set.of("kc", "pb", "kp", "ti", "reset", "ki", "td", "kd", "n", "tf", "b", "c",
             "scan", "target_scan", "pv_range", "output_range", "process_gain", "time_constant", "time_constant_2",
-            "dead_time", "lag");
+            "dead_time", "lag", RuleCells.TAU_C, RuleCells.LAMBDA);
     private static final Pattern DECIMAL_COMMA = Pattern.compile("\\d,\\d");
     private static final char[] SEPARATORS = {',', ';', '\t'};
 
@@ -125,13 +126,16 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
                         + " column: separate column names with ',' or ';')" : "") + "; columns are tag, form, the"
                         + " parameters (" + String.join(", ", PARAMETERS.stream().sorted().toList()) + "), scan,"
                         + " pv_range, output_range, process columns (" + String.join(", ", PROCESS.stream().sorted()
-                        .toList()) + "), target_form, target_scan");
+                        .toList()) + "), target_form, target_scan, and for a new loop tuned by rule: rule,"
+                        + " controller, tau_c, lambda");
             }
         }
-        for (String need : List.of("tag", "form")) {
-            if (!firstColumn.containsKey(need)) {
-                problems.add(name + ":1: " + need + ": required column is missing from the header");
-            }
+        if (!firstColumn.containsKey("tag")) {
+            problems.add(name + ":1: tag: required column is missing from the header");
+        }
+        if (!firstColumn.containsKey("form") && !firstColumn.containsKey(RuleCells.RULE)) {
+            problems.add(name + ":1: form: required column is missing from the header (a list of new loops tuned"
+                    + " by rule may give a rule column instead)");
         }
         if (!problems.isEmpty()) {
             throw new InputException(problems);
@@ -291,13 +295,15 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             return LoopRow.bad(i, tag, where, problems);
         }
         try {
-            LoopSpec spec = row(cells, where);
+            Read read = row(cells, where);
+            LoopSpec spec = read.spec();
             int previous = firstSeen.putIfAbsent(spec.tag(), (int) Math.min(Integer.MAX_VALUE, pendingLine));
             if (previous >= 0) {
                 return LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag " + tag + " (first at "
                         + name + ":" + previous + "); every loop needs its own tag"));
             }
-            return LoopRow.of(i, defaults.apply(spec));
+            return read.byRule() == null ? LoopRow.of(i, defaults.apply(spec))
+                    : LoopRow.byRule(i, defaults.apply(spec), read.byRule());
         } catch (BadInput e) {
             // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
             return LoopRow.bad(i, tag, where, e.problems().stream()
@@ -330,16 +336,22 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         return separator == '\t' ? "tab" : String.valueOf(separator);
     }
 
-    private LoopSpec row(Map<String, String> c, String where) {
+    /** A row read: its loop, and the rule's tuning when the row names a rule (else null). */
+    private record Read(LoopSpec spec, PublishedTuning byRule) {
+    }
+
+    private Read row(Map<String, String> c, String where) {
         String tag = c.get("tag");
         if (tag == null) {
             throw new InputException(where + ": tag: required; every loop needs a tag");
         }
+        boolean byRule = RuleCells.any(c.keySet());
         String formId = c.get("form");
-        if (formId == null) {
-            throw new InputException(where + ": form: required; the source form (a catalog id or a form file)");
+        if (formId == null && !byRule) {
+            throw new InputException(where + ": form: required; the source form (a catalog id or a form file), or for"
+                    + " a new loop a rule (" + org.loopform.tuning.Rule.ids() + ") with its process model");
         }
-        FormDefinition from = form(formId, where, "form");
+        FormDefinition from = byRule ? null : form(formId, where, "form");
         FormDefinition to = null;
         if (defaults.targetForm() == null && c.containsKey("target_form")) {
             to = form(c.get("target_form"), where, "target_form");
@@ -374,7 +386,17 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
                     : key.equals("gain_units") ? "process_gain_units" : key) + ": ");
         }
         FormDefinition target = to != null ? to : defaults.targetForm();
-        return new LoopSpec(tag, process, from, ordered, scan, target, targetScan, pv, out, where);
+        if (byRule) {
+            Map<String, String> ruleCells = new LinkedHashMap<>();
+            RuleCells.KEYS.stream().filter(c::containsKey).forEach(k -> ruleCells.put(k, c.get(k)));
+            PublishedTuning t = RuleCells.tuning(ruleCells, ordered.keySet(), formId != null, process,
+                    key -> where + ": " + key + ": ", "form", "the model columns model, process_gain, time_constant and"
+                            + " dead_time");
+            // a new loop has no old controller: scan, if given, is the new controller's scan
+            return new Read(new LoopSpec(tag, process, PublishedForm.form(t, RuleCells.RULE), PublishedForm.values(t),
+                    null, target, targetScan, pv, out, where), t);
+        }
+        return new Read(new LoopSpec(tag, process, from, ordered, scan, target, targetScan, pv, out, where), null);
     }
 
     private static void copy(Map<String, String> from, Map<String, String> to, String key, String as) {

@@ -12,6 +12,7 @@ import org.loopform.form.FormDefinition;
 import org.loopform.form.FormException;
 import org.loopform.form.WritingContext;
 import org.loopform.process.ProcessModel;
+import org.loopform.tuning.PublishedTuning;
 import org.loopform.units.Span;
 
 /**
@@ -82,10 +83,21 @@ public final class LoopFileReader {
 
     /** Reads one loop block. */
     public static LoopSpec loop(YamlNode n) {
-        return loop(n, false);
+        Read read = read(n, false);
+        if (read.byRule() != null) {
+            YamlNode at = n.get("tuning").flatMap(t -> t.get(RuleCells.RULE)).orElse(n);
+            throw new InputException(at.where() + "a tuning by rule is read in audit loop lists; for one loop run"
+                    + " 'loopform tune --process FILE --rule " + read.byRule().rule().id() + " --scan DURATION --to"
+                    + " FORM', or give the tuning values here");
+        }
+        return read.spec();
     }
 
-    static LoopSpec loop(YamlNode n, boolean targetOptional) {
+    /** A loop block read: its loop, and the rule's tuning when its tuning block names a rule (else null). */
+    record Read(LoopSpec spec, org.loopform.tuning.PublishedTuning byRule) {
+    }
+
+    static Read read(YamlNode n, boolean targetOptional) {
         List<String> problems = new ArrayList<>(n.unknownKeys(LOOP_KEYS));
         if (!problems.isEmpty()) {
             throw new InputException(problems);
@@ -105,6 +117,9 @@ public final class LoopFileReader {
         }
         YamlNode tuning = required(n, e, "tuning");
         Map<String, String> t = scalars(tuning);
+        if (RuleCells.any(t.keySet())) {
+            return byRule(n, e, tuning, t, tag, pv, out, targetOptional);
+        }
         String fromId = t.remove("form");
         if (fromId == null) {
             throw new InputException(tuning.where() + "form: required; a catalog id or a form file path");
@@ -113,10 +128,18 @@ public final class LoopFileReader {
         Double sourceScan = t.containsKey("scan") ? seconds(tuning, "scan", t.remove("scan")) : null;
         if (targetOptional && !e.containsKey("target")) {
             checkTuning(tuning, from, t, new WritingContext(pv, out, sourceScan));
-            return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, from, null, pv, out,
-                    n.file() + ":" + n.line());
+            return new Read(new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, from, null, pv, out,
+                    n.file() + ":" + n.line()), null);
         }
         YamlNode target = required(n, e, "target");
+        FormDefinition to = targetForm(target);
+        Double targetScan = targetScan(target);
+        checkTuning(tuning, from, t, new WritingContext(pv, out, sourceScan != null ? sourceScan : targetScan));
+        return new Read(new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, to, targetScan, pv, out,
+                n.file() + ":" + n.line()), null);
+    }
+
+    private static FormDefinition targetForm(YamlNode target) {
         Map<String, String> tg = scalars(target);
         List<String> badTarget = target.unknownKeys(Set.of("form", "scan"));
         if (!badTarget.isEmpty()) {
@@ -125,11 +148,40 @@ public final class LoopFileReader {
         if (!tg.containsKey("form")) {
             throw new InputException(target.where() + "form: required; a catalog id or a form file path");
         }
-        FormDefinition to = resolveForm(target, "form", tg.get("form"));
-        Double targetScan = tg.containsKey("scan") ? seconds(target, "scan", tg.get("scan")) : null;
-        checkTuning(tuning, from, t, new WritingContext(pv, out, sourceScan != null ? sourceScan : targetScan));
-        return new LoopSpec(tag, process(n, e, pv, out), from, t, sourceScan, to, targetScan, pv, out,
-                n.file() + ":" + n.line());
+        return resolveForm(target, "form", tg.get("form"));
+    }
+
+    private static Double targetScan(YamlNode target) {
+        Map<String, String> tg = scalars(target);
+        return tg.containsKey("scan") ? seconds(target, "scan", tg.get("scan")) : null;
+    }
+
+    /**
+     * A new loop whose tuning block names a rule ({@code tuning: {rule: simc, controller: pi, tau_c: 10 s}}):
+     * the rule's tuning of the loop's process, in the form the rule publishes it.
+     */
+    private static Read byRule(YamlNode n, Map<String, YamlNode> e, YamlNode tuning, Map<String, String> t, String tag,
+                               Span pv, Span out, boolean targetOptional) {
+        Map<String, String> ruleKeys = new LinkedHashMap<>();
+        RuleCells.KEYS.stream().filter(t::containsKey).forEach(k -> ruleKeys.put(k, t.remove(k)));
+        boolean formGiven = t.remove("form") != null;
+        ProcessModel process = process(n, e, pv, out);
+        PublishedTuning published = RuleCells.tuning(ruleKeys, t.keySet(), formGiven, process,
+                key -> key.equals("model") ? e.getOrDefault("process", n).where()
+                        : tuning.get(key.replaceFirst("^tuning\\.", "")).map(YamlNode::where)
+                        .orElse(tuning.where() + key + ": "),
+                "tuning.form", "a process block, such as process: {model: fopdt, gain: 2, time_constant: 60 s,"
+                        + " dead_time: 10 s}");
+        FormDefinition from = PublishedForm.form(published, "tuning.rule");
+        FormDefinition to = from;
+        Double targetScan = null;
+        if (!targetOptional || e.containsKey("target")) {
+            YamlNode target = required(n, e, "target");
+            to = targetForm(target);
+            targetScan = targetScan(target);
+        }
+        return new Read(new LoopSpec(tag, process, from, PublishedForm.values(published), null, to, targetScan, pv,
+                out, n.file() + ":" + n.line()), published);
     }
 
     private static ProcessModel process(YamlNode n, Map<String, YamlNode> e, Span pv, Span out) {

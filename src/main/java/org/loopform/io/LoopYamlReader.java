@@ -154,13 +154,15 @@ public final class LoopYamlReader implements Iterator<LoopRow>, AutoCloseable {
             if (!duplicates.isEmpty()) {
                 return LoopRow.bad(i, tag, where, duplicates);
             }
-            LoopSpec spec = LoopFileReader.loop(item, defaults.targetForm() != null);
+            LoopFileReader.Read read = LoopFileReader.read(item, defaults.targetForm() != null);
+            LoopSpec spec = read.spec();
             int first = seen.putIfAbsent(spec.tag(), item.line());
             if (first >= 0) {
                 return LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag " + tag + " (first at "
                         + name + ":" + first + "); every loop needs its own tag"));
             }
-            return LoopRow.of(i, defaults.apply(spec));
+            return read.byRule() == null ? LoopRow.of(i, defaults.apply(spec))
+                    : LoopRow.byRule(i, defaults.apply(spec), read.byRule());
         } catch (BadInput e) {
             // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
             return LoopRow.bad(i, tag, where, e instanceof InputException ? e.problems()

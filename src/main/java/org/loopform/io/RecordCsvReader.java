@@ -34,10 +34,21 @@ public final class RecordCsvReader {
 
     public static PlantRecord read(Path file, String name, String timeColumn, String outputColumn, String pvColumn,
                                    Span outRange, Span pvRange) {
+        return read(() -> TextInput.open(file, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange);
+    }
+
+    /** As {@link #read(Path, String, String, String, String, Span, Span)}, from a stream (a record bundled in the jar). */
+    public static PlantRecord read(java.io.InputStream stream, String name, String timeColumn, String outputColumn,
+                                   String pvColumn, Span outRange, Span pvRange) {
+        return read(() -> new Utf8Reader(stream, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange);
+    }
+
+    private static PlantRecord read(java.util.function.Supplier<Utf8Reader> open, String name, String timeColumn,
+                                    String outputColumn, String pvColumn, Span outRange, Span pvRange) {
         List<Double> t = new ArrayList<>();
         List<Double> u = new ArrayList<>();
         List<Double> y = new ArrayList<>();
-        try (Utf8Reader raw = TextInput.open(file, name); BufferedReader in = new BufferedReader(raw, 1 << 16)) {
+        try (Utf8Reader raw = open.get(); BufferedReader in = new BufferedReader(raw, 1 << 16)) {
             String first = in.readLine();
             if (first != null && first.startsWith("\uFEFF")) {
                 first = first.substring(1);

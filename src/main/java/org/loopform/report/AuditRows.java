@@ -19,6 +19,7 @@ import org.loopform.form.Conversion;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormUnits;
 import org.loopform.form.WrittenTuning;
+import org.loopform.tuning.PublishedTuning;
 import org.loopform.units.Numbers;
 
 /** An audit's per-loop rows (loops.csv, entry-sheet.csv, loops.json) and its summary JSON. */
@@ -33,7 +34,8 @@ public final class AuditRows {
     private static final List<String> CHECK_COLUMNS = List.of("mismatch_gain_db", "mismatch_phase_deg", "fails",
             "warns", "findings");
     /** loops.csv's columns after the figures. */
-    private static final List<String> TAIL_COLUMNS = List.of("design_margin_notes", "target_margin_notes", "problems");
+    private static final List<String> TAIL_COLUMNS = List.of("design_margin_notes", "target_margin_notes",
+            "tuning_rule", "tuning_rule_source", "problems");
 
     /**
      * loops.csv columns; figures ({@link LoopFigure}) carry their unit in the column name. The
@@ -101,8 +103,10 @@ public final class AuditRows {
         r.add(c.loop().tag());
         r.add(c.verdict().id());
         r.add(c.loop().where());
+        PublishedTuning rule = o.row().ruleTuning();
         r.add(v.from().id());
-        r.add(values(c.loop().tuning()));
+        // a new loop tuned by rule: its source values are the rule's, as published, with their units
+        r.add(rule == null ? values(c.loop().tuning()) : RuleTuningText.values(rule));
         r.add(v.to().id());
         r.add(Numbers.plain(c.scanSeconds()));
         r.add(Boolean.toString(v.exact()));
@@ -123,6 +127,8 @@ public final class AuditRows {
         r.addAll(LoopFigure.csvCells(LoopFigure.csvFigures(true), design, target));
         r.add(design.map(x -> notes(x.margins())).orElse(""));
         r.add(target.map(x -> notes(x.margins())).orElse(""));
+        r.add(rule == null ? "" : RuleTuningText.title(rule));
+        r.add(rule == null ? "" : rule.rule().source());
         r.add("");
         return spreadsheetRow(r);
     }
@@ -161,18 +167,26 @@ public final class AuditRows {
             }
         }
         // a value the target refuses is never listed as if it could be typed in
+        PublishedTuning rule = o.row().ruleTuning();
+        // a new loop has no as-found value: its old_* cells hold the rule's published values, and the note says so
+        String oldForm = rule == null ? v.from().id() : "rule " + RuleTuningText.title(rule) + " (" + v.from().id() + ")";
+        String ruleNote = rule == null ? "" : "new loop, no as-found value: old_* are rule " + RuleTuningText.title(rule)
+                + "'s values as published (" + rule.rule().source() + ")";
         v.entered().values().forEach((k, x) -> {
             String src = oldFor.get(k);
-            String[] oldValue = src == null ? new String[] {"", ""} : valueAndUnit(old.get(src), v, src);
+            String[] oldValue = src == null ? new String[] {"", ""} : rule != null
+                    ? RuleTuningText.valueAndUnit(rule, src) : valueAndUnit(old.get(src), v, src);
             boolean refused = v.refusal(k) != null;
+            String note = refused ? "do not enter: " + v.refusal(k) + (ruleNote.isEmpty() ? "" : "; " + ruleNote)
+                    : ruleNote;
             rows.add(List.of(c.loop().tag(), v.to().id(), k, refused ? "" : FormCodec.show(v.to(), k, x, 6),
-                    FormUnits.of(v.to(), k), c.verdict().id(), refused ? "do not enter: " + v.refusal(k) : "",
-                    v.from().id(), src == null ? "" : src, oldValue[0], oldValue[1], refused ? "yes" : "", "", "", ""));
+                    FormUnits.of(v.to(), k), c.verdict().id(), note,
+                    oldForm, src == null ? "" : src, oldValue[0], oldValue[1], refused ? "yes" : "", "", "", ""));
         });
         if (v.entered().action() != null) {
             String oldAction = old.getOrDefault("action", "");
             rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
-                    "", v.from().id(), oldAction.isEmpty() ? "" : "action", oldAction.trim(), "", "", "", "", ""));
+                    ruleNote, oldForm, oldAction.isEmpty() ? "" : "action", oldAction.trim(), "", "", "", "", ""));
         }
         return rows;
     }
@@ -216,6 +230,9 @@ public final class AuditRows {
         if (o.ok()) {
             ObjectNode n = CheckReport.node(o.result());
             n.put("where", o.result().loop().where());
+            if (o.row().tunedByRule()) {
+                n.set("tuning_rule", RuleTuningText.json(o.row().ruleTuning()));
+            }
             Json.tidied(n);
             return n;
         }

@@ -42,7 +42,10 @@ final class HtmlIndex {
         CheckResult r = o.result();
         Conversion c = r.conversion();
         String v = r.verdict().id();
-        String oldValues = r.loop().tuning().entrySet().stream().map(e -> e.getKey() + " " + e.getValue().trim()
+        // a new loop tuned by rule: the rule and its values as published stand where the old tuning would
+        String oldForm = o.row().tunedByRule() ? "rule " + RuleTuningText.title(o.row().ruleTuning()) : c.from().id();
+        String oldValues = o.row().tunedByRule() ? RuleTuningText.values(o.row().ruleTuning())
+                : r.loop().tuning().entrySet().stream().map(e -> e.getKey() + " " + e.getValue().trim()
                 + unitOf(c, e)).collect(Collectors.joining(", "));
         StringBuilder newValues = new StringBuilder();
         c.entered().values().forEach((k, x) -> {
@@ -61,7 +64,7 @@ final class HtmlIndex {
         sb.append("<tr class=\"").append(v).append("\"><th><a href=\"#").append(Html.loopAnchor(r.loop().tag()))
                 .append("\">").append(Html.esc(r.loop().tag())).append("</a></th><td><span class=\"badge ").append(v)
                 .append("\">").append(v.toUpperCase(Locale.ROOT)).append("</span></td><td><span class=\"form\">")
-                .append(Html.esc(c.from().id())).append("</span> ").append(Html.esc(oldValues))
+                .append(Html.esc(oldForm)).append("</span> ").append(Html.esc(oldValues))
                 .append("</td><td><span class=\"form\">").append(Html.esc(c.to().id())).append("</span> ")
                 .append(Html.esc(newValues.toString())).append("</td><td>").append(Html.esc(shorten(worst)))
                 .append("</td></tr>\n");

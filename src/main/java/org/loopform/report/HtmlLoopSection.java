@@ -45,8 +45,11 @@ final class HtmlLoopSection {
                 + (r.loop().hasProcess() ? "; process " + Html.esc(ProcessText.of(r.loop().process())) : "")
                 + (r.loop().where().isEmpty() ? "" : "; " + Html.esc(r.loop().where()))
                 + "</span><a class=\"top\" href=\"#summary\">back to summary</a></header>\n");
+        if (o.row().tunedByRule()) {
+            writeRule(w, o.row().ruleTuning());
+        }
         w.write("<div class=\"cols\">\n");
-        writeTuning(w, r);
+        writeTuning(w, r, o.row().tunedByRule());
         if (r.hasProcess()) {
             writeFigures(w, r);
         }
@@ -83,7 +86,23 @@ final class HtmlLoopSection {
     }
 
     /** Before/after: the source values as written, the target's computed and entered values, each with its unit. */
-    private static void writeTuning(Writer w, CheckResult r) throws IOException {
+    /**
+     * A new loop tuned by rule: which rule, its source, the model it read and its values as published;
+     * the "old" column of the tuning table then holds the rule's values (there is no as-found controller).
+     */
+    private static void writeRule(Writer w, org.loopform.tuning.PublishedTuning t) throws IOException {
+        StringBuilder sb = new StringBuilder("<p class=\"rule\">New loop, tuned by rule <b>")
+                .append(Html.esc(RuleTuningText.title(t))).append("</b> (").append(Html.esc(t.rule().source()))
+                .append("). As published: ").append(Html.esc(RuleTuningText.values(t))).append('.');
+        if (t.model() != null) {
+            sb.append(" Model read: ").append(Html.esc(TuneReport.modelText(t.model()))).append('.');
+        }
+        t.notes().forEach(n -> sb.append(' ').append(Html.esc(RuleTuningText.listWording(n))));
+        sb.append(" There is no as-found controller: the old column below holds the rule's values.</p>\n");
+        w.write(sb.toString());
+    }
+
+    private static void writeTuning(Writer w, CheckResult r, boolean byRule) throws IOException {
         Conversion c = r.conversion();
         Map<String, String> source = r.loop().tuning();
         Map<String, Double> computed = c.parameters().values();
@@ -108,6 +127,10 @@ final class HtmlLoopSection {
                 sb.append("<td></td><td></td><td></td>");
             } else {
                 String text = source.get(row.source()).trim();
+                if (byRule && isNumber(text)) {
+                    // the rule's value is converted in full; shown to the digits a person reads
+                    text = Numbers.significant(Double.parseDouble(text), VALUE_DIGITS);
+                }
                 boolean bare = isNumber(text);
                 sb.append("<td>").append(Html.esc(row.source())).append("</td><td class=\"num\">")
                         .append(Html.esc(text)).append("</td><td class=\"unit\">")

@@ -36,6 +36,15 @@ public final class HtmlReport {
      */
     public static void writeDocument(Writer out, AuditSummary summary, AuditInfo info, Reader index, Reader sections)
             throws IOException {
+        writeDocument(out, summary, info, index, sections, "");
+    }
+
+    /**
+     * As {@link #writeDocument(Writer, AuditSummary, AuditInfo, Reader, Reader)}, with {@code chain} (a
+     * rendered {@link ChainSection}, or empty) between the summary and the index of loops.
+     */
+    public static void writeDocument(Writer out, AuditSummary summary, AuditInfo info, Reader index, Reader sections,
+                                     String chain) throws IOException {
         out.write("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
                 + "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n<title>"
                 + Html.esc(info.title()) + "</title>\n<style>\n" + HtmlStyle.CSS + HtmlStyle.pageBoxes(info)
@@ -43,6 +52,7 @@ public final class HtmlReport {
         HtmlSummary.writeHeader(out, summary, info);
         HtmlSummary.writeCautions(out);
         HtmlSummary.writeSummary(out, summary);
+        out.write(chain);
         HtmlIndex.write(out, summary.loops(), index);
         HtmlSummary.writeProvenance(out, info);
         out.write("<main id=\"loops\">\n<h2 class=\"loops\">Loops, in input order</h2>\n");

@@ -104,35 +104,7 @@ public final class TuneReport {
     public static String json(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings, CheckResult design,
                               CheckResult check, org.loopform.tuning.RobustResult robust) {
         ObjectNode n = Json.object();
-        n.put("rule", t.rule().id());
-        n.put("controller", t.controller().id());
-        n.put("source", t.rule().source());
-        ObjectNode pub = n.putObject("published");
-        pub.put("structure", t.structure().id());
-        pub.put("derivative_filter", "none");
-        pub.put("kc", t.gain());
-        pub.put("ti_s", t.integralTimeSeconds());
-        pub.put("td_s", t.derivativeTimeSeconds());
-        ObjectNode fig = n.putObject("figures");
-        t.figures().forEach(fig::put);
-        if (t.model() != null) {
-            ObjectNode m = n.putObject("model");
-            ReducedModel r = t.model();
-            m.put("model", r.integrating() ? "integrating" : r.secondOrder() ? "sopdt" : "fopdt");
-            m.put(r.integrating() ? "slope_per_s" : "gain", r.gain());
-            if (!r.integrating()) {
-                m.put("time_constant_s", r.lagSeconds());
-            }
-            if (r.secondOrder()) {
-                m.put(r.integrating() ? "lag_s" : "time_constant_2_s", r.secondLagSeconds());
-            }
-            m.put("dead_time_s", r.deadTimeSeconds());
-            m.put("how", r.how());
-        } else {
-            n.putNull("model");
-        }
-        var notes = n.putArray("notes");
-        t.notes().forEach(notes::add);
+        RuleTuningText.put(n, t);
         n.put("from", c.from().id());
         n.put("to", c.to().id());
         n.put("exact", c.exact());

@@ -1,0 +1,115 @@
+package org.loopform.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The demo's report takes the new loop TIC-104 from its invented bump test to a checked tuning: fitted,
+ * tuned by SIMC, carried into the target form and checked, in a section of its own with its figures.
+ */
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
+class DemoChainTest {
+
+    private CliRun demo;
+    private String section;
+    private JsonNode fitted;
+
+    @BeforeAll
+    void runTheDemoAndFitTheRecord(@TempDir Path dir) throws Exception {
+        demo = CliRun.of("demo", "--out", dir.resolve("demo").toString());
+        assertThat(demo.exitCode()).as(demo.err()).isEqualTo(0);
+        String html = Files.readString(dir.resolve("demo").resolve("report.html"));
+        int start = html.indexOf("<section id=\"chain\"");
+        assertThat(start).as("the chain's section").isNotNegative();
+        section = html.substring(start, html.indexOf("<h3>4.", start) + 2000);
+        // plumbing: the 33 audited loops keep their sections and index lines; the chained loop is apart from them
+        assertThat(Pattern.compile("<section class=\"loop ").matcher(html).results().count()).isEqualTo(33);
+        assertThat(section).contains("<section class=\"chained pass\" id=\"loop-TIC-104\">");
+        CliRun fit = CliRun.of("fit", "examples/records/tic-104-bump.csv", "--pv-range", "0..150", "--out-range",
+                "0..100", "--format", "json");
+        assertThat(fit.exitCode()).as(fit.err()).isEqualTo(0);
+        fitted = new ObjectMapper().readTree(fit.out()).get("models").get(0);
+        assertThat(fitted.get("model").asText()).isEqualTo("fopdt");
+    }
+
+    private static double number(String text, String regex) {
+        Matcher m = Pattern.compile(regex).matcher(text);
+        assertThat(m.find()).as(regex).isTrue();
+        return Double.parseDouble(m.group(1));
+    }
+
+    @Test
+    void the_section_shows_the_four_steps_with_the_fit_plot_and_the_loop_plots() {
+        assertThat(section).contains("<h2>TIC-104, a new loop: from a bump test to a checked tuning</h2>")
+                .contains("<h3>1. The record fitted</h3>").contains("<h3>2. Tuning by a published rule</h3>")
+                .contains("<h3>3. Carried into the target form and checked</h3>")
+                .contains("<h3>4. Over the fit's uncertainty</h3>").contains("Invented");
+        // the fit plot (record, output, residuals) and the checked loop's plots, drawn inline
+        assertThat(section).contains("Recorded PV and the fitted models").contains("Residuals of the fopdt fit")
+                .contains("Setpoint step: PV");
+        assertThat(Pattern.compile("<svg").matcher(section).results().count()).isGreaterThanOrEqualTo(6);
+        // every number with its unit, and the rule's source
+        assertThat(section).contains("%/%</td>").contains(">s</td>").contains("Skogestad")
+                .contains("J. Process Control 13 (2003)").contains("deg</td>");
+        assertThat(demo.out()).contains("TIC-104 (a new loop, from the invented bump test")
+                .contains("rule simc PI (Skogestad 2003)");
+    }
+
+    @Test
+    void the_fitted_model_is_the_one_fit_gives_and_its_intervals_hold_the_generators_process() {
+        // examples/records/generate.py built the record from FOPDT K = 2 %/%, T = 60 s, L = 10 s
+        String table = section.substring(section.indexOf("<table class=\"fit\">"));
+        double[][] rows = {
+            {number(table, "gain K</th><td class=\"num\">([0-9.]+)"), number(table, "gain K</th>.*?([0-9.]+) \\.\\."),
+                number(table, "gain K</th>.*?\\.\\. ([0-9.]+)"), 2},
+            {number(table, "time constant T</th><td class=\"num\">([0-9.]+)"),
+                number(table, "time constant T</th>.*?([0-9.]+) \\.\\."),
+                number(table, "time constant T</th>.*?\\.\\. ([0-9.]+)"), 60},
+            {number(table, "dead time L</th><td class=\"num\">([0-9.]+)"),
+                number(table, "dead time L</th>.*?([0-9.]+) \\.\\."),
+                number(table, "dead time L</th>.*?\\.\\. ([0-9.]+)"), 10}};
+        List<String> keys = List.of("gain", "time_constant_s", "dead_time_s");
+        for (int k = 0; k < rows.length; k++) {
+            String key = keys.get(k);
+            assertThat(rows[k][0]).as(key).isCloseTo(fitted.get("parameters").get(key).asDouble(), within(5e-3 * rows[k][3]));
+            assertThat(rows[k][3]).as(key + " inside the interval").isBetween(rows[k][1], rows[k][2]);
+        }
+    }
+
+    @Test
+    void the_tuning_is_simcs_pi_of_the_fitted_model_and_the_loop_has_simcs_margins() {
+        // Skogestad 2003, SIMC PI for FOPDT with tau_c = theta: Kc = T/(K (tau_c + theta)) = T/(2 K L),
+        // tauI = min(T, 4 (tau_c + theta)) = min(T, 8 L); the values fit gives for the record
+        double gain = fitted.get("parameters").get("gain").asDouble();
+        double lag = fitted.get("parameters").get("time_constant_s").asDouble();
+        double dead = fitted.get("parameters").get("dead_time_s").asDouble();
+        double kc = number(section, "as published: kc = ([0-9.]+) %/%");
+        double ti = number(section, "as published: kc = [0-9.]+ %/%, ti = ([0-9.]+) s");
+        assertThat(kc).isCloseTo(lag / (2 * gain * dead), within(1e-4 * kc));
+        assertThat(ti).isCloseTo(Math.min(lag, 8 * dead), within(1e-4 * ti));
+        // with tauI = T the design loop is e^(-L s)/(2 L s) (hand derivation): crossover 1/(2L), phase margin
+        // 90 - 180/(2 pi) = 61.35 deg, gain margin pi = 3.14 (Skogestad 2003 gives GM 3.14, PM 61.4 deg)
+        double pm = number(section, "phase margin</th><td class=\"num\">([0-9.]+)</td>");
+        double gm = number(section, "gain margin</th><td class=\"num\">([0-9.]+)</td>");
+        assertThat(pm).isCloseTo(90 - 180 / (2 * Math.PI), within(0.06));
+        assertThat(gm).isCloseTo(Math.PI, within(0.006));
+        // carried into the target form (ideal PID, gain and minutes: common practice): the same gain, ti in minutes
+        assertThat(section).contains("plant-k7-target").contains("PASS");
+        double targetKc = number(section, "<td class=\"sep\">kc</td><td class=\"num\">([0-9.]+)</td>");
+        double targetTiMinutes = number(section, "<td class=\"sep\">ti</td><td class=\"num\">([0-9.]+)</td>");
+        assertThat(targetKc).isCloseTo(kc, within(1e-4 * kc));
+        assertThat(targetTiMinutes).isCloseTo(ti / 60, within(1e-4 * ti / 60));
+    }
+}
