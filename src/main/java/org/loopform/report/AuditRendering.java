@@ -33,7 +33,11 @@ public final class AuditRendering {
     /** Renders {@code o}'s output; safe to call from any thread. */
     public static RenderedLoop render(LoopOutcome o, boolean html) {
         try {
-            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
+            com.fasterxml.jackson.databind.node.ObjectNode node = AuditRows.loopJson(o);
+            if (o.replay() != null) {
+                node.set("replay", AuditReplayRows.json(o.replay()));
+            }
+            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(node);
             String plain = null;
             String plotted = null;
             String index = null;
@@ -48,7 +52,12 @@ public final class AuditRendering {
                     plotted = p.toString();
                 }
             }
-            return new RenderedLoop(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted, index,
+            List<String> row = AuditRows.loopRow(o);
+            if (o.replay() != null) {
+                row = new java.util.ArrayList<>(row);
+                row.addAll(AuditReplayRows.cells(o));
+            }
+            return new RenderedLoop(row, AuditRows.entryRows(o), json, plain, plotted, index,
                     AuditRows.entryCells(o));
         } catch (JsonProcessingException e) {
             throw new UncheckedIOException("cannot render the audit output", e);

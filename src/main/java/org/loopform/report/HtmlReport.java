@@ -43,6 +43,7 @@ public final class HtmlReport {
         HtmlSummary.writeHeader(out, summary, info);
         HtmlSummary.writeCautions(out);
         HtmlSummary.writeSummary(out, summary);
+        HtmlReplaySection.writeSummary(out, summary.replay());
         HtmlIndex.write(out, summary.loops(), index);
         HtmlSummary.writeProvenance(out, info);
         out.write("<main id=\"loops\">\n<h2 class=\"loops\">Loops, in input order</h2>\n");

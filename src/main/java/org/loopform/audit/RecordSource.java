@@ -1,0 +1,17 @@
+package org.loopform.audit;
+
+import java.util.Optional;
+import org.loopform.replay.Trend;
+
+/**
+ * Where an audit finds a loop's logged record: the record of a tag, or empty when there is none.
+ * A record that exists but cannot be read raises {@link org.loopform.units.BadInput} with its
+ * problems written as {@code file:line: field: message}; the audit then reports them for that loop
+ * and goes on. Called from the audit's worker threads, so implementations must be thread-safe.
+ */
+@FunctionalInterface
+public interface RecordSource {
+
+    /** The record of {@code tag}, or empty when there is none. */
+    Optional<Trend> find(String tag);
+}
