@@ -141,6 +141,11 @@ def main():
     # TIC-301: series PID, pb 60 %, 6 min, 0.3 min; FOPDT 1.5 %/%, 300 s, 30 s; 0..150 degC
     closed_loop("TIC-301", 150.0, 100 / 60, 360.0, 18.0, 1.0, 1.5, 300.0, 30.0, 5400.0,
                 [(0, 40, 0), (300, 44, 0), (1800, 44, -4), (3300, 47, -4), (4300, 47, 2)], None, 301)
+    # PIC-402: series PI, pb 130 %; the old console shows the reset as 0.8 REPEATS per minute (ti = 1.25 min =
+    # 75 s), and plant-k7-loops.csv took the 0.8 for minutes per repeat (on purpose: the wrong unit the demo's
+    # replay finds); FOPDT 1.1 %/%, 25 s, 3 s; 0..16 bar
+    closed_loop("PIC-402", 16.0, 100 / 130, 75.0, 0.0, 1.0, 1.1, 25.0, 3.0, 1500.0,
+                [(0, 40, 0), (100, 45, 0), (400, 45, -5), (800, 41, -5), (1100, 41, 3)], None, 402)
 
 
 if __name__ == "__main__":

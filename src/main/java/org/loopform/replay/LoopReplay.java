@@ -110,8 +110,22 @@ public final class LoopReplay {
         } else {
             List<Candidate> candidates = CandidateSearch.alternatives(loop.sourceForm(), loop.tuning(), sourceCtx,
                     sourceScan, catalog);
-            ranked = explain(candidates, trend, pvRange, outRange, atSource);
+            Map<Double, ScanSeries> series = new HashMap<>();
+            series.put(atSource.scanSeconds, atSource);
+            ranked = explain(candidates, trend, pvRange, outRange, series);
             tried = ranked.size();
+            if (ReplayRules.asFound(asFound, policy) != Severity.INFO
+                    && (ranked.isEmpty() || ReplayRules.asFound(ranked.get(0).agreement(), policy) != Severity.INFO)) {
+                // no single reading reproduces the log: try two mistakes at once
+                List<Candidate> pairs = CandidateSearch.pairs(CandidateSearch.listed(loop.sourceForm(), loop.tuning(),
+                        sourceCtx, sourceScan), candidates, sourceCtx);
+                List<Explanation> all = new ArrayList<>(ranked);
+                List<Explanation> paired = explain(pairs, trend, pvRange, outRange, series);
+                all.addAll(paired);
+                all.sort(Comparator.comparingDouble(e -> e.agreement().rmsPercent()));
+                ranked = all;
+                tried += paired.size();
+            }
             asFoundSeverity = ReplayRules.asFound(asFound, policy);
             boolean outdone = ReplayRules.outdone(asFound, ranked, policy);
             if (outdone && asFoundSeverity == Severity.INFO) {
@@ -145,9 +159,7 @@ public final class LoopReplay {
 
     /** Each candidate run on the record at its scan, ranked by RMS difference from the logged output (stable). */
     private static List<Explanation> explain(List<Candidate> candidates, Trend trend, Span pvRange, Span outRange,
-                                             ScanSeries atSource) {
-        Map<Double, ScanSeries> series = new HashMap<>();
-        series.put(atSource.scanSeconds, atSource);
+                                             Map<Double, ScanSeries> series) {
         List<Explanation> out = new ArrayList<>();
         for (Candidate c : candidates) {
             long scans = ScanSeries.scansIn(trend, c.scanSeconds());

@@ -24,7 +24,7 @@ final class HtmlReplaySection {
     static final String CAVEAT = "This replay is open loop: both controllers were fed the setpoint and PV the plant"
             + " logged. Under the new controller's output the PV would have moved differently, so the as-left"
             + " difference shows where the two controllers part on the plant's own signals, not how the loop will"
-            + " respond; judge the response from the check above (with a process model) or from a trial with the"
+            + " respond; judge the response from the loop's check (with a process model) or from a trial with the"
             + " operator.";
 
     private HtmlReplaySection() {
