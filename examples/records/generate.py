@@ -14,7 +14,7 @@ check of loopform, not of itself.
 - tic-104-relay.csv: a relay-feedback test on the same process (relay +-5 % about 50 %, hysteresis
   0.2 % of span on the error; Astrom & Hagglund 1984), the process integrated exactly per 0.05 s step
   (zero-order hold: y+ = a y + (1 - a) K u, a = exp(-h/T)), logged every 0.5 s with 0.1 % noise.
-- replay/TAG.csv: closed-loop trends as a historian would log them for FIC-105, PIC-401 and TIC-301,
+- replay/TAG.csv: closed-loop trends as a historian would log them for FIC-105, PIC-401, TIC-301 and PIC-402,
   the old controllers simulated on FOPDT processes with measurement noise, setpoint changes, load steps
   and (PIC-401) a manual period. The discrete process is y(k+1) = a y(k) + (1 - a)(K u(k - d) + load)
   (Astrom & Wittenmark, Computer-Controlled Systems, 1997, ch. 2 - from memory); the controller the
@@ -23,6 +23,8 @@ check of loopform, not of itself.
   D[e] = Tf/(Tf + h) D[e](k-1) + (e(k) - e(k-1))/(Tf + h), Tf = Td/10; in manual the integral tracks the
   output (bumpless transfer, common practice). FIC-105's controller really ran with its reset at 15 s:
   replay-loops.csv, the first draft of the list, took that 15 for minutes (on purpose, for replay to find).
+  PIC-402's really ran with its reset at 0.8 repeats per minute (75 s); plant-k7-loops.csv took the 0.8 for
+  minutes per repeat (on purpose, for the demo's replay to find).
 """
 import datetime
 import os
