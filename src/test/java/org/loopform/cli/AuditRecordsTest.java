@@ -166,6 +166,19 @@ class AuditRecordsTest {
         }
 
         @Test
+        void two_records_that_match_a_tag_only_without_regard_to_case_are_that_loops_problem() throws Exception {
+            Path records = copyRecords("FIC-105", "PIC-401");
+            Files.copy(Path.of(RECORDS, "TIC-301.csv"), records.resolve("tic-301.csv"));
+            Files.copy(Path.of(RECORDS, "TIC-301.csv"), records.resolve("Tic-301.csv"));
+            Path out = dir.resolve("out");
+            CliRun r = CliRun.of("audit", DRAFT, "--to", TARGET, "--records", records.toString(), "--out",
+                    out.toString());
+            assertThat(r.exitCode()).isEqualTo(2);
+            assertThat(r.err()).contains("all match tag TIC-301 without regard to case");
+            assertThat(loop(json(out), "TIC-301").get("replay").get("record").asText()).isEqualTo("unreadable");
+        }
+
+        @Test
         void a_records_path_that_is_not_a_folder_is_bad_input() {
             CliRun r = CliRun.of("audit", DRAFT, "--to", TARGET, "--records", DRAFT);
             assertThat(r.exitCode()).isEqualTo(2);
