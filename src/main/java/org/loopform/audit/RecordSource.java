@@ -14,4 +14,12 @@ public interface RecordSource {
 
     /** The record of {@code tag}, or empty when there is none. */
     Optional<Trend> find(String tag);
+
+    /**
+     * The records found so far, readable or not, each as an input file (role {@code record}) with
+     * its SHA-256, in name order, for the audit's provenance; none by default.
+     */
+    default java.util.List<InputFile> filesRead() {
+        return java.util.List.of();
+    }
 }

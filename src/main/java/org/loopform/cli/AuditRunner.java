@@ -139,6 +139,9 @@ final class AuditRunner {
                 err.flush();
             } else if (output != null) {
                 List<InputFile> files = new ArrayList<>(s.files());
+                if (s.records() != null) {
+                    files.addAll(s.records().source().filesRead());
+                }
                 for (InputFile f : CatalogLoader.formFilesReadSince(s.formReadMark())) {
                     if (files.stream().noneMatch(x -> x.name().equals(f.name()) && x.sha256().equals(f.sha256()))) {
                         files.add(f);

@@ -11,6 +11,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.function.Function;
+import org.loopform.audit.InputFile;
 import org.loopform.audit.RecordSource;
 import org.loopform.replay.Trend;
 
@@ -27,6 +28,9 @@ public final class RecordFolder implements RecordSource {
     private final Map<String, Path> exact = new HashMap<>();
     private final Map<String, List<Path>> folded = new HashMap<>();
     private final TrendColumns columns;
+    /** Records found, by shown name, with their SHA-256 (sorted, so the provenance is the same on any thread count). */
+    private final java.util.concurrent.ConcurrentSkipListMap<String, String> read =
+            new java.util.concurrent.ConcurrentSkipListMap<>();
 
     private RecordFolder(String shown, TrendColumns columns) {
         this.shown = shown;
@@ -61,10 +65,23 @@ public final class RecordFolder implements RecordSource {
      * {@code text} returns the text of {@code TAG.csv}, or null when there is none.
      */
     public static RecordSource ofText(String shownName, Function<String, String> text, TrendColumns columns) {
-        return tag -> {
-            String t = text.apply(tag);
-            return t == null ? Optional.empty()
-                    : Optional.of(TrendCsvReader.parse(t, shownName + "/" + tag + ".csv", columns));
+        java.util.concurrent.ConcurrentSkipListMap<String, String> found = new java.util.concurrent.ConcurrentSkipListMap<>();
+        return new RecordSource() {
+            @Override
+            public Optional<Trend> find(String tag) {
+                String t = text.apply(tag);
+                if (t == null) {
+                    return Optional.empty();
+                }
+                String name = shownName + "/" + tag + ".csv";
+                found.put(name, Fingerprint.sha256(t.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+                return Optional.of(TrendCsvReader.parse(t, name, columns));
+            }
+
+            @Override
+            public List<InputFile> filesRead() {
+                return found.entrySet().stream().map(e -> new InputFile("record", e.getKey(), e.getValue())).toList();
+            }
         };
     }
 
@@ -93,6 +110,13 @@ public final class RecordFolder implements RecordSource {
         if (p == null) {
             return Optional.empty();
         }
-        return Optional.of(TrendCsvReader.read(p, shown + "/" + p.getFileName(), columns));
+        String name = shown + "/" + p.getFileName();
+        read.put(name, Fingerprint.sha256(p, name));
+        return Optional.of(TrendCsvReader.read(p, name, columns));
+    }
+
+    @Override
+    public List<InputFile> filesRead() {
+        return read.entrySet().stream().map(e -> new InputFile("record", e.getKey(), e.getValue())).toList();
     }
 }

@@ -99,6 +99,20 @@ class AuditRecordsTest {
                     .contains("This replay is open loop").contains("RMS (%)")
                     .contains("FIC-105: controller output, open-loop replay on the logged SP and PV");
             assertThat(html.split("<div class=\"replay\">", -1)).hasSize(4);
+            // the provenance names every record read, with the SHA-256 of its bytes (the JDK's digest)
+            JsonNode inputs = json(out).get("provenance").get("inputs");
+            List<String> records = new ArrayList<>();
+            for (JsonNode i : inputs) {
+                if (i.get("role").asText().equals("record")) {
+                    String file = i.get("file").asText();
+                    records.add(file);
+                    byte[] digest = java.security.MessageDigest.getInstance("SHA-256")
+                            .digest(Files.readAllBytes(Path.of(file)));
+                    assertThat(i.get("sha256").asText()).isEqualTo(java.util.HexFormat.of().formatHex(digest));
+                }
+            }
+            assertThat(records).containsExactly(RECORDS + "/FIC-105.csv", RECORDS + "/PIC-401.csv",
+                    RECORDS + "/TIC-301.csv");
         }
 
         @Test
