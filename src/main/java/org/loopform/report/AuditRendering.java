@@ -23,7 +23,7 @@ public final class AuditRendering {
 
     /**
      * One loop's rendered output; {@code section} and {@code sectionWithPlots} are null without
-     * HTML, {@code sectionWithPlots} also for a loop that passes.
+     * HTML, {@code sectionWithPlots} also for a loop that passes and has no replayed record.
      */
     public record RenderedLoop(List<String> loopRow, List<List<String>> entryRows, String json, String section,
                                String sectionWithPlots, String indexRow,
@@ -46,7 +46,8 @@ public final class AuditRendering {
                 StringWriter w = new StringWriter();
                 HtmlReport.writeLoopSection(w, o, false);
                 plain = w.toString();
-                if (o.ok() && o.result().verdict() != Verdict.PASS) {
+                boolean replayed = o.replay() != null && o.replay().result() != null;
+                if (o.ok() && (o.result().verdict() != Verdict.PASS || replayed)) {
                     StringWriter p = new StringWriter();
                     HtmlReport.writeLoopSection(p, o, true);
                     plotted = p.toString();

@@ -55,7 +55,7 @@ final class HtmlLoopSection {
         w.write("</div>\n");
         writeConversionNotes(w, r);
         writeFindings(w, r.findings());
-        HtmlReplaySection.write(w, o.replay());
+        HtmlReplaySection.write(w, o.replay(), withPlots);
         if (withPlots) {
             w.write("<details class=\"plots\" open><summary>Plots: responses, as-found (old) dashed and as-left (new)"
                     + " solid; new controller as run, feedback path solid and setpoint path dashed</summary>"

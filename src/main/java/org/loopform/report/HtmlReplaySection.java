@@ -30,8 +30,12 @@ final class HtmlReplaySection {
     private HtmlReplaySection() {
     }
 
-    /** One loop's replay block; nothing when the audit had no records or the loop has none. */
-    static void write(Writer w, ReplayEvidence e) throws IOException {
+    /**
+     * One loop's replay block, with its plot if {@code withPlot} (the report's plotted loops are
+     * capped, {@code io.AuditOutput.PLOTTED_LOOPS}); nothing when the audit had no records or the
+     * loop has none.
+     */
+    static void write(Writer w, ReplayEvidence e, boolean withPlot) throws IOException {
         if (e == null || e.status() == ReplayEvidence.Status.NO_RECORD) {
             return;
         }
@@ -80,7 +84,14 @@ final class HtmlReplaySection {
         }
         sb.append("<p class=\"note\">").append(Html.esc(CAVEAT)).append(" Read: ").append(Html.esc(r.resampling()))
                 .append(".</p>\n");
-        sb.append("<figure>").append(ReplayPlot.svg(r, SvgPlot.Size.COMPACT)).append("</figure>\n</div>\n");
+        if (withPlot) {
+            sb.append("<figure>").append(ReplayPlot.svg(r, SvgPlot.Size.COMPACT)).append("</figure>\n");
+        } else {
+            sb.append("<p class=\"note\">Plot left out: the report draws plots for its first loops that warn, fail or"
+                    + " have a record only, so that it stays light; replay this loop alone with"
+                    + " <code>loopform replay RECORD --loop LOOP.yaml --plot FILE.svg</code>.</p>\n");
+        }
+        sb.append("</div>\n");
         w.write(sb.toString());
     }
 
