@@ -14,7 +14,7 @@ check of loopform, not of itself.
 - tic-104-relay.csv: a relay-feedback test on the same process (relay +-5 % about 50 %, hysteresis
   0.2 % of span on the error; Astrom & Hagglund 1984), the process integrated exactly per 0.05 s step
   (zero-order hold: y+ = a y + (1 - a) K u, a = exp(-h/T)), logged every 0.5 s with 0.1 % noise.
-- replay/TAG.csv: closed-loop trends as a historian would log them for FIC-105, PIC-401 and TIC-301,
+- replay/TAG.csv: closed-loop trends as a historian would log them for FIC-105, PIC-401, TIC-301 and PIC-402,
   the old controllers simulated on FOPDT processes with measurement noise, setpoint changes, load steps
   and (PIC-401) a manual period. The discrete process is y(k+1) = a y(k) + (1 - a)(K u(k - d) + load)
   (Astrom & Wittenmark, Computer-Controlled Systems, 1997, ch. 2 - from memory); the controller the
@@ -23,6 +23,8 @@ check of loopform, not of itself.
   D[e] = Tf/(Tf + h) D[e](k-1) + (e(k) - e(k-1))/(Tf + h), Tf = Td/10; in manual the integral tracks the
   output (bumpless transfer, common practice). FIC-105's controller really ran with its reset at 15 s:
   replay-loops.csv, the first draft of the list, took that 15 for minutes (on purpose, for replay to find).
+  PIC-402's really ran with its reset at 0.8 repeats per minute (75 s); plant-k7-loops.csv took the 0.8 for
+  minutes per repeat (on purpose, for the demo's replay to find).
 """
 import datetime
 import os
@@ -141,6 +143,11 @@ def main():
     # TIC-301: series PID, pb 60 %, 6 min, 0.3 min; FOPDT 1.5 %/%, 300 s, 30 s; 0..150 degC
     closed_loop("TIC-301", 150.0, 100 / 60, 360.0, 18.0, 1.0, 1.5, 300.0, 30.0, 5400.0,
                 [(0, 40, 0), (300, 44, 0), (1800, 44, -4), (3300, 47, -4), (4300, 47, 2)], None, 301)
+    # PIC-402: series PI, pb 130 %; the old console shows the reset as 0.8 REPEATS per minute (ti = 1.25 min =
+    # 75 s), and plant-k7-loops.csv took the 0.8 for minutes per repeat (on purpose: the wrong unit the demo's
+    # replay finds); FOPDT 1.1 %/%, 25 s, 3 s; 0..16 bar
+    closed_loop("PIC-402", 16.0, 100 / 130, 75.0, 0.0, 1.0, 1.1, 25.0, 3.0, 1500.0,
+                [(0, 40, 0), (100, 45, 0), (400, 45, -5), (800, 41, -5), (1100, 41, 3)], None, 402)
 
 
 if __name__ == "__main__":

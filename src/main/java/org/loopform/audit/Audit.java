@@ -16,6 +16,12 @@ import java.util.function.Consumer;
 import java.util.function.Function;
 import org.loopform.findings.CheckPolicy;
 import org.loopform.units.BadInput;
+import java.util.ArrayList;
+import java.util.Optional;
+import org.loopform.findings.Finding;
+import org.loopform.findings.Topic;
+import org.loopform.replay.LoopReplay;
+import org.loopform.replay.Trend;
 
 /**
  * Checks many loops: reads rows as they come, checks them in parallel on all cores, and hands
@@ -44,7 +50,16 @@ public final class Audit {
      */
     public static <R> AuditSummary run(Iterator<LoopRow> rows, CheckPolicy policy, int threads,
                                        Function<LoopOutcome, R> prepare, BiConsumer<LoopOutcome, R> sink) {
-        AuditSummary summary = new AuditSummary();
+        return run(rows, policy, threads, null, prepare, sink);
+    }
+
+    /**
+     * As {@link #run(Iterator, CheckPolicy, int, Function, BiConsumer)}, and with {@code records}
+     * (null: none) each loop that has a record is also replayed ({@link #check(LoopRow, CheckPolicy, AuditRecords)}).
+     */
+    public static <R> AuditSummary run(Iterator<LoopRow> rows, CheckPolicy policy, int threads, AuditRecords records,
+                                       Function<LoopOutcome, R> prepare, BiConsumer<LoopOutcome, R> sink) {
+        AuditSummary summary = new AuditSummary(records == null ? null : records.shownName());
         int n = Math.max(1, threads);
         ExecutorService pool = Executors.newFixedThreadPool(n, r -> {
             Thread t = new Thread(r, "loopform-audit");
@@ -57,7 +72,7 @@ public final class Audit {
             while (rows.hasNext()) {
                 LoopRow row = rows.next();
                 inFlight.add(pool.submit(() -> {
-                    LoopOutcome o = check(row, policy);
+                    LoopOutcome o = check(row, policy, records);
                     return new Prepared<>(o, prepare.apply(o));
                 }));
                 if (inFlight.size() >= window) {
@@ -79,6 +94,43 @@ public final class Audit {
     /** One row's outcome; input problems become the outcome's problems. */
     public static LoopOutcome check(LoopRow row, CheckPolicy policy) {
         return check(row, policy, LoopCheck::run);
+    }
+
+    /**
+     * One row's outcome with its replay evidence when {@code records} is given (null: none): a loop
+     * whose record is found is replayed ({@link LoopReplay}) and the replay's findings (topic
+     * replay) join the check's, so they count in its verdict; a record that cannot be read or
+     * replayed leaves the check as it is and is reported with its problems.
+     */
+    public static LoopOutcome check(LoopRow row, CheckPolicy policy, AuditRecords records) {
+        LoopOutcome o = check(row, policy);
+        if (records == null || !o.ok()) {
+            return o;
+        }
+        ReplayEvidence evidence = evidence(row, policy, records);
+        CheckResult r = o.result();
+        if (evidence.result() != null) {
+            List<Finding> findings = new ArrayList<>(r.findings());
+            evidence.result().findings().stream().filter(f -> f.topic() == Topic.REPLAY).forEach(findings::add);
+            r = new CheckResult(r.loop(), r.scanSeconds(), r.conversion(), r.comparison(), r.mismatch(),
+                    r.mismatchCurve(), findings);
+        }
+        return new LoopOutcome(row, r, o.problems(), evidence);
+    }
+
+    private static ReplayEvidence evidence(LoopRow row, CheckPolicy policy, AuditRecords records) {
+        try {
+            Optional<Trend> trend = records.source().find(row.tag());
+            if (trend.isEmpty()) {
+                return ReplayEvidence.NONE;
+            }
+            return ReplayEvidence.replayed(LoopReplay.run(row.loop(), trend.get(), records.catalog(), policy));
+        } catch (BadInput e) {
+            // a record that cannot be read or replayed is this loop's problem, not the audit's
+            return ReplayEvidence.unreadable(e.problems().stream()
+                    .map(m -> m.startsWith(row.where()) || m.contains(".csv") ? m : row.where() + ": record: " + m)
+                    .toList());
+        }
     }
 
     /** As {@link #check(LoopRow, CheckPolicy)} with the check given (tests give one that fails). */

@@ -59,6 +59,8 @@ public final class AuditSummary {
     /** Each distinct assumption with the number of loops it was made for, in first-seen order. */
     private final Map<String, Integer> assumptions = new java.util.LinkedHashMap<>();
     private int loops;
+    /** What the records showed; null for an audit without records. */
+    private final ReplaySummary replay;
     private int exact;
     private int badRowCount;
     private long badRowProblemCount;
@@ -69,8 +71,26 @@ public final class AuditSummary {
             .thenComparing(Comparator.comparingInt(Worst::warns).reversed())
             .thenComparingInt(Worst::index);
 
+    /** The summary of an audit without records. */
+    public AuditSummary() {
+        this(null);
+    }
+
+    /** The summary of an audit given the records in {@code recordsName} (null: none). */
+    public AuditSummary(String recordsName) {
+        this.replay = recordsName == null ? null : new ReplaySummary(recordsName);
+    }
+
+    /** What the records showed, or null when the audit had none. */
+    public ReplaySummary replay() {
+        return replay;
+    }
+
     public void add(LoopOutcome o) {
         loops++;
+        if (replay != null && o.replay() != null) {
+            replay.add(o.replay(), o.row().tag());
+        }
         if (!o.ok()) {
             badRowCount++;
             for (String p : o.problems()) {

@@ -10,6 +10,9 @@ import java.util.concurrent.Callable;
 import org.loopform.audit.InputFile;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.SignOff;
+import org.loopform.audit.AuditRecords;
+import org.loopform.io.RecordFolder;
+import org.loopform.io.TrendColumns;
 import org.loopform.io.Fingerprint;
 import org.loopform.audit.LoopRow;
 import org.loopform.findings.CheckPolicy;
@@ -70,6 +73,11 @@ final class AuditCommand implements Callable<Integer> {
     @Option(names = "--policy", paramLabel = "FILE", description = "Thresholds overriding the defaults (see 'check').")
     Path policyFile;
 
+    @Option(names = "--records", paramLabel = "DIR", description = "A folder of logged records, one TAG.csv per loop"
+            + " (columns time, setpoint, pv, output, optional mode and tracking; see 'loopform replay --help'): each"
+            + " loop with a record is also replayed, as found and as left, and its findings join the loop's.")
+    Path recordsDir;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     Integer threads;
 
@@ -82,6 +90,7 @@ final class AuditCommand implements Callable<Integer> {
     private List<InputFile> files = List.of();
     private SignOff signOff = SignOff.BLANK;
     private long formReadMark;
+    private AuditRecords records;
 
     @Override
     public Integer call() {
@@ -116,11 +125,17 @@ final class AuditCommand implements Callable<Integer> {
                     Fingerprint.sha256(signOffOptions.file, signOffOptions.file.toString())));
             inputs.add(signOffOptions.file);
         }
+        if (recordsDir != null) {
+            RecordFolder folder = RecordFolder.open(recordsDir, recordsDir.toString(), TrendColumns.DEFAULT);
+            records = new AuditRecords(folder, recordsDir.toString(), CatalogLoader.bundled().all());
+            inputs.add(recordsDir);
+        }
         this.files = files;
         this.signOff = signOff;
         String settings = (to != null ? "target " + target.id() : "targets from the list")
                 + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
-                + (policyFile != null ? ", policy " + policyFile : ", default policy");
+                + (policyFile != null ? ", policy " + policyFile : ", default policy")
+                + (recordsDir != null ? ", records from " + recordsDir : "");
         int n = threads != null ? Math.max(1, threads) : Runtime.getRuntime().availableProcessors();
         // progress by bytes read: a pipe (/dev/stdin) can be read only once, so it is never counted ahead
         long size = Files.isRegularFile(input) ? sizeOf(input) : -1;
@@ -142,7 +157,7 @@ final class AuditCommand implements Callable<Integer> {
     private AuditRunner.Settings settings(String name, Severity fail, CheckPolicy policy, int n, List<Path> inputs,
                                           String settings, AuditRunner.Progress progress) {
         return new AuditRunner.Settings(name, out, force, !noReport, policy, fail, format.format, n, inputs, settings,
-                progress, signOff, files, formReadMark);
+                progress, signOff, files, formReadMark).withRecords(records);
     }
 
     private static long sizeOf(Path p) {

@@ -28,6 +28,8 @@ import org.loopform.report.AuditInfo;
 import org.loopform.report.AuditRendering;
 import org.loopform.report.HtmlReport;
 import org.loopform.report.AuditRows;
+import org.loopform.report.AuditReplayRows;
+import org.loopform.audit.AuditRecords;
 
 /** Runs an audit for the audit and demo commands: progress on a terminal, outputs, summary, exit code. */
 final class AuditRunner {
@@ -71,7 +73,21 @@ final class AuditRunner {
      */
     record Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
                     OutputFormat format, int threads, List<Path> inputs, String settingsText, Progress progress,
-                    SignOff signOff, List<InputFile> files, long formReadMark) {
+                    SignOff signOff, List<InputFile> files, long formReadMark, AuditRecords records) {
+
+        /** Settings of an audit without records. */
+        Settings(String inputName, Path out, boolean force, boolean html, CheckPolicy policy, Severity failOn,
+                 OutputFormat format, int threads, List<Path> inputs, String settingsText, Progress progress,
+                 SignOff signOff, List<InputFile> files, long formReadMark) {
+            this(inputName, out, force, html, policy, failOn, format, threads, inputs, settingsText, progress, signOff,
+                    files, formReadMark, null);
+        }
+
+        /** The same settings with {@code r} as the audit's records. */
+        Settings withRecords(AuditRecords r) {
+            return new Settings(inputName, out, force, html, policy, failOn, format, threads, inputs, settingsText,
+                    progress, signOff, files, formReadMark, r);
+        }
     }
 
     /**
@@ -96,7 +112,7 @@ final class AuditRunner {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
-                AuditRows.LOOP_COLUMNS, AuditRows.ENTRY_COLUMNS);
+                AuditReplayRows.loopColumns(s.records() != null), AuditRows.ENTRY_COLUMNS);
         Progress progress = s.progress();
         ProgressBar bar = System.console() != null && System.getenv("CI") == null ? new ProgressBarBuilder()
                 .setTaskName("checking").setInitialMax(progress.total()).setStyle(ProgressBarStyle.ASCII)
@@ -105,13 +121,14 @@ final class AuditRunner {
         AuditSummary summary;
         try {
             boolean html = output != null && output.html();
-            summary = Audit.run(rows, s.policy(), s.threads(),
+            summary = Audit.run(rows, s.policy(), s.threads(), s.records(),
                     o -> output == null ? null : AuditRendering.render(o, html), (o, r) -> {
                         if (output != null) {
                             output.accept(r.loopRow(), r.entryRows(), r.json(), r.section(), r.sectionWithPlots(), r.indexRow(),
                                     r.entryCells());
                         }
                         badRows.accept(o);
+                        badRows.acceptRecord(o);
                         if (bar != null) {
                             if (progress.position() != null) {
                                 bar.stepTo(Math.max(0, progress.position().getAsLong()));
@@ -127,6 +144,9 @@ final class AuditRunner {
                 err.flush();
             } else if (output != null) {
                 List<InputFile> files = new ArrayList<>(s.files());
+                if (s.records() != null) {
+                    files.addAll(s.records().source().filesRead());
+                }
                 for (InputFile f : CatalogLoader.formFilesReadSince(s.formReadMark())) {
                     if (files.stream().noneMatch(x -> x.name().equals(f.name()) && x.sha256().equals(f.sha256()))) {
                         files.add(f);
@@ -152,7 +172,7 @@ final class AuditRunner {
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
         out.print(s.format().renderer().auditSummary(summary, folder));
         out.flush();
-        if (summary.badRowCount() > 0) {
+        if (summary.badRowCount() > 0 || summary.replay() != null && summary.replay().unreadable() > 0) {
             return ExitCodes.BAD_INPUT;
         }
         if (summary.loops() == 0) {

@@ -33,6 +33,18 @@ final class BadRowLog {
         }
     }
 
+    /** A record that could not be read or replayed: its problems, counted with the bad rows' (the loop was checked). */
+    void acceptRecord(LoopOutcome o) {
+        if (o.replay() == null || o.replay().status() != org.loopform.audit.ReplayEvidence.Status.UNREADABLE) {
+            return;
+        }
+        for (String p : o.replay().problems()) {
+            if (problems++ < SHOWN) {
+                err.println("loopform: " + p + " (the loop was checked without replay evidence)");
+            }
+        }
+    }
+
     void finish() {
         if (problems > SHOWN) {
             err.println("loopform: ... and " + (problems - SHOWN) + " more problems; " + rows + " bad rows in all"

@@ -7,6 +7,9 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.loopform.audit.InputFile;
 import org.loopform.audit.LoopDefaults;
+import org.loopform.audit.AuditRecords;
+import org.loopform.io.RecordFolder;
+import org.loopform.io.TrendColumns;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.Fingerprint;
 import org.loopform.findings.CheckPolicy;
@@ -34,6 +37,8 @@ final class DemoCommand implements Callable<Integer> {
 
     static final String LOOPS = "examples/plant-k7-loops.csv";
     static final String TARGET = "examples/plant-k7-target.yaml";
+    /** The bundled, invented records the demo replays (one TAG.csv per loop that has one). */
+    static final String RECORDS = "examples/records/replay";
 
     @Spec
     CommandSpec spec;
@@ -66,8 +71,10 @@ final class DemoCommand implements Callable<Integer> {
             // replaces an earlier demo (a folder loopform wrote, with its marker), never a folder of the user's
             int code = AuditRunner.run(rows, new AuditRunner.Settings(LOOPS + " (bundled, invented)", out, true, true,
                     CheckPolicy.DEFAULT, Severity.FAIL, format.format, Runtime.getRuntime().availableProcessors(),
-                    List.of(), "target " + target.id() + " (invented), scans from the list, default policy",
-                    AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark()), spec.commandLine().getOut(), spec.commandLine().getErr(),
+                    List.of(), "target " + target.id() + " (invented), scans from the list, default policy, records from "
+                    + RECORDS + " (invented)",
+                    AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark())
+                    .withRecords(records()), spec.commandLine().getOut(), spec.commandLine().getErr(),
                     ChainSection.html(chain));
             if (format.format == OutputFormat.text) {
                 spec.commandLine().getOut().print(System.lineSeparator() + ChainSection.summaryText(chain));
@@ -78,6 +85,18 @@ final class DemoCommand implements Callable<Integer> {
             // the demo shows loops that fail on purpose; that is its point, not an error of the run
             return code == ExitCodes.BAD_INPUT ? code : ExitCodes.OK;
         }
+    }
+
+    /** The bundled records, read from the jar as the audit asks for each tag. */
+    static AuditRecords records() {
+        String shown = RECORDS + " (bundled, invented)";
+        return new AuditRecords(RecordFolder.ofText(RECORDS, tag -> {
+            try (InputStream in = DemoCommand.class.getClassLoader().getResourceAsStream(RECORDS + "/" + tag + ".csv")) {
+                return in == null ? null : new String(in.readAllBytes(), StandardCharsets.UTF_8);
+            } catch (java.io.IOException e) {
+                throw new java.io.UncheckedIOException("the bundled record of " + tag + " cannot be read", e);
+            }
+        }, TrendColumns.DEFAULT), shown, CatalogLoader.bundled().all());
     }
 
     private static String resource(String name) throws java.io.IOException {

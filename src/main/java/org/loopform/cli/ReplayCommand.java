@@ -93,6 +93,10 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Replace an earlier loopform output in the --out folder.")
     boolean force;
 
+    @Option(names = "--fit-tuning", description = "Also fit the old controller's gain, integral and derivative values"
+            + " (in its form's units) to the logged output by least squares, with 95 % intervals.")
+    boolean fitTuning;
+
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")
     Path policyFile;
 
@@ -116,7 +120,7 @@ final class ReplayCommand implements Callable<Integer> {
         if (loopFile != null) {
             LoopSpec loop = defaults.apply(LoopFileReader.readOne(loopFile, loopFile.toString()));
             ReplayResult r = LoopReplay.run(loop, TrendCsvReader.read(record, record.toString(), columns), catalog,
-                    policy);
+                    policy, fitTuning);
             if (plot != null) {
                 AtomicFiles.write(plot, AtomicFiles.markedSvg(ReplayPlot.svg(r)), List.of(record, loopFile));
             }
@@ -153,7 +157,7 @@ final class ReplayCommand implements Callable<Integer> {
             }
             try {
                 results.add(LoopReplay.run(row.loop(), TrendCsvReader.read(file, file.toString(), columns), catalog,
-                        policy));
+                        policy, fitTuning));
             } catch (org.loopform.units.BadInput e) {
                 bad.addAll(e.problems());
             }

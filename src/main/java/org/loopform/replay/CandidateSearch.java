@@ -75,6 +75,48 @@ final class CandidateSearch {
         return kept;
     }
 
+    /**
+     * Pairs of mistakes, tried when no single one reproduces the log: each single reading of
+     * {@code singles} (any kind) combined with each units, action, filter and scan reading of its
+     * own values (common practice: a list typed from an old console can hold two independent
+     * mistakes, such as minutes taken for seconds and the action flag lost). A pair that runs the
+     * same controller as the listed one, a single reading or an earlier pair is dropped, so the
+     * simplest explanation keeps its place; two scan changes are not combined.
+     */
+    static List<Candidate> pairs(Candidate listed, List<Candidate> singles, WritingContext ctx) {
+        List<Candidate> out = new ArrayList<>();
+        for (Candidate first : singles) {
+            CandidateSearch s = new CandidateSearch(first.form(), first.tuning(), ctx, first.scanSeconds());
+            s.units();
+            s.action();
+            s.filter();
+            if (first.kind() != ExplanationKind.SCAN) {
+                s.scans();
+            }
+            for (Candidate second : s.out) {
+                Candidate pair = new Candidate(ExplanationKind.COMBINED, first.description() + " and "
+                        + second.description(), second.form(), second.tuning(), second.setting(), second.scanSeconds());
+                boolean seen = listed != null && pair.sameControllerAs(listed);
+                for (Candidate c : singles) {
+                    seen |= pair.sameControllerAs(c);
+                }
+                for (Candidate c : out) {
+                    seen |= pair.sameControllerAs(c);
+                }
+                if (!seen) {
+                    out.add(pair);
+                }
+            }
+        }
+        return out;
+    }
+
+    /** The listed reading itself, decoded, or null when it cannot be. */
+    static Candidate listed(FormDefinition form, Map<String, String> written, WritingContext ctx, double scanSeconds) {
+        CandidateSearch s = new CandidateSearch(form, written, ctx, scanSeconds);
+        return s.decode(ExplanationKind.FORM, "as listed", form, s.written, scanSeconds);
+    }
+
     private void units() {
         String i = form.integralName();
         String d = form.derivativeName();

@@ -11,7 +11,9 @@ public enum ExplanationKind {
     /** Another scan time. */
     SCAN,
     /** The same numbers in another catalog form (structure, units, algorithm). */
-    FORM;
+    FORM,
+    /** Two of the above at once (a time in the other unit and the opposite action, say). */
+    COMBINED;
 
     public String id() {
         return name().toLowerCase(java.util.Locale.ROOT);

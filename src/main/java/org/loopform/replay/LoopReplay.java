@@ -43,6 +43,17 @@ public final class LoopReplay {
     }
 
     public static ReplayResult run(LoopSpec loop, Trend trend, List<FormDefinition> catalog, CheckPolicy policy) {
+        return run(loop, trend, catalog, policy, false);
+    }
+
+    /**
+     * As {@link #run(LoopSpec, Trend, List, CheckPolicy)}, and with {@code fitTuning} the old
+     * controller's gain, integral and derivative values fitted to the log ({@link TuningFit}), from
+     * the listed values and, when it reproduces the log better in the listed form and scan, from the
+     * best explanation too; the fit that reproduces the log more closely is kept.
+     */
+    public static ReplayResult run(LoopSpec loop, Trend trend, List<FormDefinition> catalog, CheckPolicy policy,
+                                   boolean fitTuning) {
         List<String> assumptions = new ArrayList<>();
         Span pvRange = loop.pvRange();
         Span outRange = loop.outputRange();
@@ -110,8 +121,22 @@ public final class LoopReplay {
         } else {
             List<Candidate> candidates = CandidateSearch.alternatives(loop.sourceForm(), loop.tuning(), sourceCtx,
                     sourceScan, catalog);
-            ranked = explain(candidates, trend, pvRange, outRange, atSource);
+            Map<Double, ScanSeries> series = new HashMap<>();
+            series.put(atSource.scanSeconds, atSource);
+            ranked = explain(candidates, trend, pvRange, outRange, series);
             tried = ranked.size();
+            if (ReplayRules.asFound(asFound, policy) != Severity.INFO
+                    && (ranked.isEmpty() || ReplayRules.asFound(ranked.get(0).agreement(), policy) != Severity.INFO)) {
+                // no single reading reproduces the log: try two mistakes at once
+                List<Candidate> pairs = CandidateSearch.pairs(CandidateSearch.listed(loop.sourceForm(), loop.tuning(),
+                        sourceCtx, sourceScan), candidates, sourceCtx);
+                List<Explanation> all = new ArrayList<>(ranked);
+                List<Explanation> paired = explain(pairs, trend, pvRange, outRange, series);
+                all.addAll(paired);
+                all.sort(Comparator.comparingDouble(e -> e.agreement().rmsPercent()));
+                ranked = all;
+                tried += paired.size();
+            }
             asFoundSeverity = ReplayRules.asFound(asFound, policy);
             boolean outdone = ReplayRules.outdone(asFound, ranked, policy);
             if (outdone && asFoundSeverity == Severity.INFO) {
@@ -130,11 +155,28 @@ public final class LoopReplay {
         if (asLeft != null) {
             findings.add(ReplayRules.asLeft(asLeft, asFoundSeverity == Severity.INFO, policy));
         }
+        FittedTuning fitted = null;
+        if (fitTuning && asFound != null) {
+            fitted = TuningFit.fit(loop.sourceForm(), loop.tuning(), "the listed values", sourceCtx, atSource);
+            if (!ranked.isEmpty()) {
+                Explanation e = ranked.get(0);
+                if (e.formId().equals(loop.sourceForm().id()) && e.scanSeconds() == sourceScan
+                        && e.agreement().rmsPercent() < asFound.rmsPercent()) {
+                    // the best explanation may hold a filter or action the listed values lack: fit from both
+                    FittedTuning other = TuningFit.fit(loop.sourceForm(), e.tuning(), "the best explanation ("
+                            + e.description() + ")", sourceCtx, atSource);
+                    if (other != null && (fitted == null
+                            || other.agreement().rmsPercent() < fitted.agreement().rmsPercent())) {
+                        fitted = other;
+                    }
+                }
+            }
+        }
         return new ReplayResult(loop.tag(), loop.sourceForm().id(), loop.tuning(), sourceScan, loop.targetForm().id(),
                 FormCodec.asText(conversion.entered()), targetScan, RESAMPLING, assumptions, trend.origin(),
                 trend.endSeconds() - trend.startSeconds(), asFound, asFoundSeverity,
                 ranked.subList(0, Math.min(EXPLANATIONS_KEPT, ranked.size())), tried, asLeft, asLeftVsLog, findings,
-                new ReplayTrace(atSource, sourceRun, atTarget, targetRun));
+                new ReplayTrace(atSource, sourceRun, atTarget, targetRun), fitted);
     }
 
     static ReplayRun run(FormDefinition form, PidSetting setting, ScanSeries s) {
@@ -145,9 +187,7 @@ public final class LoopReplay {
 
     /** Each candidate run on the record at its scan, ranked by RMS difference from the logged output (stable). */
     private static List<Explanation> explain(List<Candidate> candidates, Trend trend, Span pvRange, Span outRange,
-                                             ScanSeries atSource) {
-        Map<Double, ScanSeries> series = new HashMap<>();
-        series.put(atSource.scanSeconds, atSource);
+                                             Map<Double, ScanSeries> series) {
         List<Explanation> out = new ArrayList<>();
         for (Candidate c : candidates) {
             long scans = ScanSeries.scansIn(trend, c.scanSeconds());

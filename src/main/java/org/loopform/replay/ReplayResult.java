@@ -29,13 +29,14 @@ import org.loopform.findings.Severity;
  * @param asLeftVsLog       the target replay against the logged output
  * @param findings          the replay's findings (topic replay), with the conversion's
  * @param trace             the outputs over time, for plots
+ * @param fittedTuning      the old controller's values fitted to the log (null: not asked for, or nothing to fit)
  */
 public record ReplayResult(String tag, String sourceFormId, Map<String, String> sourceTuning, double sourceScanSeconds,
                            String targetFormId, Map<String, String> enteredTuning, double targetScanSeconds,
                            String resampling, List<String> assumptions, LocalDateTime origin, double recordSeconds,
                            Agreement asFound, Severity asFoundSeverity, List<Explanation> explanations,
                            int alternativesTried, Agreement asLeft, Agreement asLeftVsLog, List<Finding> findings,
-                           ReplayTrace trace) {
+                           ReplayTrace trace, FittedTuning fittedTuning) {
 
     public ReplayResult {
         sourceTuning = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(sourceTuning));

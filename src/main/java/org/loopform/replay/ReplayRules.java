@@ -81,7 +81,7 @@ final class ReplayRules {
     static Finding explanation(List<Explanation> ranked, int tried, Agreement listed, CheckPolicy p) {
         if (ranked.isEmpty() || !(ranked.get(0).agreement().rmsPercent() < listed.rmsPercent())) {
             return new Finding(Topic.REPLAY, Severity.WARN, null, null, "", SOURCE, "None of the " + tried
-                    + " alternative readings tried (units, action, filter, scan, other catalog forms) reproduces the"
+                    + " alternative readings tried (units, action, filter, scan, other catalog forms, and pairs of them) reproduces the"
                     + " log better than the listed controller. Check the record itself: its columns, the loop's"
                     + " ranges, the time base, and whether the controller was in automatic.");
         }

@@ -23,7 +23,7 @@ public final class AuditRendering {
 
     /**
      * One loop's rendered output; {@code section} and {@code sectionWithPlots} are null without
-     * HTML, {@code sectionWithPlots} also for a loop that passes.
+     * HTML, {@code sectionWithPlots} also for a loop that passes and has no replayed record.
      */
     public record RenderedLoop(List<String> loopRow, List<List<String>> entryRows, String json, String section,
                                String sectionWithPlots, String indexRow,
@@ -33,7 +33,11 @@ public final class AuditRendering {
     /** Renders {@code o}'s output; safe to call from any thread. */
     public static RenderedLoop render(LoopOutcome o, boolean html) {
         try {
-            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(AuditRows.loopJson(o));
+            com.fasterxml.jackson.databind.node.ObjectNode node = AuditRows.loopJson(o);
+            if (o.replay() != null) {
+                node.set("replay", AuditReplayRows.json(o.replay()));
+            }
+            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(node);
             String plain = null;
             String plotted = null;
             String index = null;
@@ -42,13 +46,19 @@ public final class AuditRendering {
                 StringWriter w = new StringWriter();
                 HtmlReport.writeLoopSection(w, o, false);
                 plain = w.toString();
-                if (o.ok() && o.result().verdict() != Verdict.PASS) {
+                boolean replayed = o.replay() != null && o.replay().result() != null;
+                if (o.ok() && (o.result().verdict() != Verdict.PASS || replayed)) {
                     StringWriter p = new StringWriter();
                     HtmlReport.writeLoopSection(p, o, true);
                     plotted = p.toString();
                 }
             }
-            return new RenderedLoop(AuditRows.loopRow(o), AuditRows.entryRows(o), json, plain, plotted, index,
+            List<String> row = AuditRows.loopRow(o);
+            if (o.replay() != null) {
+                row = new java.util.ArrayList<>(row);
+                row.addAll(AuditReplayRows.cells(o));
+            }
+            return new RenderedLoop(row, AuditRows.entryRows(o), json, plain, plotted, index,
                     AuditRows.entryCells(o));
         } catch (JsonProcessingException e) {
             throw new UncheckedIOException("cannot render the audit output", e);

@@ -317,6 +317,9 @@ public final class AuditRows {
             wn.put("warns", x.warns());
             wn.put("headline", x.headline());
         }
+        if (s.replay() != null) {
+            n.set("replay", AuditReplayRows.summaryJson(s.replay()));
+        }
         ArrayNode as = n.putArray("assumptions");
         s.assumptions().forEach((a, count) -> {
             ObjectNode an = as.addObject();
@@ -373,6 +376,9 @@ public final class AuditRows {
             sb.append(nl).append("Assumed where the loop list did not say:").append(nl);
             s.assumptions().forEach((a, n) -> sb.append("  ").append(n).append(n == 1 ? " loop: " : " loops: ")
                     .append(a).append(nl));
+        }
+        if (s.replay() != null) {
+            sb.append(AuditReplayRows.summaryText(s.replay()));
         }
         if (!s.badRows().isEmpty()) {
             sb.append(nl).append("Bad rows (not checked):").append(nl);

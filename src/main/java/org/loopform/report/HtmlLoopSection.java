@@ -56,6 +56,7 @@ final class HtmlLoopSection {
         w.write("</div>\n");
         writeConversionNotes(w, r);
         writeFindings(w, r.findings());
+        HtmlReplaySection.write(w, o.replay(), withPlots);
         if (withPlots) {
             w.write("<details class=\"plots\" open><summary>Plots: responses, as-found (old) dashed and as-left (new)"
                     + " solid, each step until both have settled; output limits dotted, shaded with a bar at the top"

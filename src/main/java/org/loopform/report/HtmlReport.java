@@ -52,6 +52,7 @@ public final class HtmlReport {
         HtmlSummary.writeHeader(out, summary, info);
         HtmlSummary.writeCautions(out);
         HtmlSummary.writeSummary(out, summary);
+        HtmlReplaySection.writeSummary(out, summary.replay());
         out.write(chain);
         HtmlIndex.write(out, summary.loops(), index);
         HtmlSummary.writeProvenance(out, info);

@@ -11,6 +11,11 @@ public final class ReplayPlot {
     }
 
     public static String svg(ReplayResult r) {
+        return svg(r, SvgPlot.Size.STANDARD);
+    }
+
+    /** The plot at {@code size} ({@link SvgPlot.Size#COMPACT} in the audit report). */
+    public static String svg(ReplayResult r, SvgPlot.Size size) {
         ReplayTrace t = r.trace();
         List<SvgPlot.Series> series = List.of(
                 new SvgPlot.Series("logged output", t.sourceTimesSeconds(), t.loggedPercent(), "#555555", false),
@@ -19,6 +24,6 @@ public final class ReplayPlot {
                 new SvgPlot.Series("target (replay)", t.targetTimesSeconds(), t.targetPercent(), LoopPlots.TARGET,
                         false));
         return SvgPlot.panel(r.tag() + ": controller output, open-loop replay on the logged SP and PV",
-                "time from record start (s)", "output (% of span)", series, false);
+                "time from record start (s)", "output (% of span)", series, false, size);
     }
 }

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Map;
 import org.loopform.replay.Agreement;
 import org.loopform.replay.Explanation;
+import org.loopform.replay.FittedTuning;
 import org.loopform.replay.ReplayResult;
 import org.loopform.units.Numbers;
 
@@ -47,6 +48,9 @@ public final class ReplayReport {
         sb.append("  As left (target vs old controller): ").append(figures(r.asLeft())).append(nl);
         sb.append("  As left (target vs logged output):  ").append(figures(r.asLeftVsLog())).append(nl);
         sb.append("  ").append(OPEN_LOOP).append(nl);
+        if (r.fittedTuning() != null) {
+            sb.append(fittedText(r.fittedTuning(), nl));
+        }
         if (!r.assumptions().isEmpty()) {
             sb.append("Assumed:").append(nl);
             r.assumptions().forEach(a -> sb.append("  ").append(a).append(nl));
@@ -71,6 +75,25 @@ public final class ReplayReport {
         for (String m : missing) {
             sb.append("  ").append(m).append(": no record, not replayed").append(nl);
         }
+        return sb.toString();
+    }
+
+    /** The fitted values with their 95 % intervals and units, and how closely they reproduce the log. */
+    static String fittedText(FittedTuning f, String nl) {
+        StringBuilder sb = new StringBuilder();
+        sb.append("  Old controller fitted to the log (least squares, ").append(f.formId()).append(", scan ")
+                .append(Numbers.significant(f.scanSeconds(), 4)).append(" s, from ").append(f.start()).append("):")
+                .append(nl);
+        for (FittedTuning.Value v : f.values()) {
+            sb.append("    ").append(v.name()).append(" = ").append(Numbers.significant(v.value(), 6)).append(' ')
+                    .append(v.unit()).append(" (95 % interval ").append(Numbers.significant(v.low(), 6)).append(" .. ")
+                    .append(Numbers.significant(v.high(), 6)).append(' ').append(v.unit()).append(')').append(nl);
+        }
+        sb.append("    fitted controller vs logged output: ").append(figures(f.agreement())).append(nl);
+        sb.append("    The intervals hold only if the form, scan, filter and action are the ones the controller ran;"
+                + " they come from the fit's Jacobian").append(f.residualCorrelation() > 0
+                ? ", widened for residuals correlated from scan to scan (lag-one correlation "
+                + Numbers.significant(f.residualCorrelation(), 2) + ")" : "").append('.').append(nl);
         return sb.toString();
     }
 
@@ -138,6 +161,7 @@ public final class ReplayReport {
         n.set("as_left", agreement(r.asLeft()));
         n.set("as_left_vs_log", agreement(r.asLeftVsLog()));
         n.put("open_loop", OPEN_LOOP);
+        n.set("fitted_tuning", fittedJson(r.fittedTuning()));
         ArrayNode as = n.putArray("assumptions");
         r.assumptions().forEach(as::add);
         n.set("findings", Json.findings(r.findings()));
@@ -155,6 +179,30 @@ public final class ReplayReport {
         ArrayNode m = n.putArray("without_record");
         missing.forEach(m::add);
         return Json.write(n);
+    }
+
+    private static ObjectNode fittedJson(FittedTuning f) {
+        if (f == null) {
+            return null;
+        }
+        ObjectNode n = Json.object();
+        n.put("form", f.formId());
+        n.put("scan_s", f.scanSeconds());
+        n.put("start", f.start());
+        f.tuning().forEach(n.putObject("tuning")::put);
+        ArrayNode vs = n.putArray("values");
+        for (FittedTuning.Value v : f.values()) {
+            ObjectNode x = vs.addObject();
+            x.put("name", v.name());
+            x.put("value", v.value());
+            x.put("low_95", v.low());
+            x.put("high_95", v.high());
+            x.put("unit", v.unit());
+        }
+        n.set("agreement", agreement(f.agreement()));
+        n.put("residual_lag1_correlation", f.residualCorrelation());
+        n.put("iterations", f.iterations());
+        return n;
     }
 
     private static ObjectNode agreement(Agreement a) {

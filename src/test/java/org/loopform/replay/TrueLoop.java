@@ -41,6 +41,8 @@ final class TrueLoop {
     double manualFrom = 0;
     double manualTo = 0;
     long seed = 7;
+    /** The resolution the output is logged at, % (a historian's or an analog input's quantisation). */
+    double outputResolutionPercent = 1e-4;
 
     double[] times;
     double[] setpoint;
@@ -109,7 +111,8 @@ final class TrueLoop {
             times[k] = t;
             setpoint[k] = round(r * PV_SPAN / 100);
             pv[k] = round(measured * PV_SPAN / 100);
-            output[k] = round(u);
+            output[k] = outputResolutionPercent == 1e-4 ? round(u)
+                    : Math.round(u / outputResolutionPercent) * outputResolutionPercent;
             modes.add(manual ? Mode.MANUAL : Mode.AUTOMATIC);
             uHistory[k + delay] = u;
             y = a * y + (1 - a) * (processGain * uHistory[k] + load);

@@ -1,0 +1,25 @@
+package org.loopform.audit;
+
+import java.util.Optional;
+import org.loopform.replay.Trend;
+
+/**
+ * Where an audit finds a loop's logged record: the record of a tag, or empty when there is none.
+ * A record that exists but cannot be read raises {@link org.loopform.units.BadInput} with its
+ * problems written as {@code file:line: field: message}; the audit then reports them for that loop
+ * and goes on. Called from the audit's worker threads, so implementations must be thread-safe.
+ */
+@FunctionalInterface
+public interface RecordSource {
+
+    /** The record of {@code tag}, or empty when there is none. */
+    Optional<Trend> find(String tag);
+
+    /**
+     * The records found so far, readable or not, each as an input file (role {@code record}) with
+     * its SHA-256, in name order, for the audit's provenance; none by default.
+     */
+    default java.util.List<InputFile> filesRead() {
+        return java.util.List.of();
+    }
+}

@@ -1,0 +1,130 @@
+package org.loopform.audit;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.loopform.findings.Severity;
+
+/**
+ * What an audit's records showed, gathered as outcomes stream past: loops replayed and how their
+ * as-found replay came out (reproduced, not confirmed, refuted, nothing in automatic to compare),
+ * loops without a record (the first {@link #TAGS_KEPT} tags kept, the rest counted), and records
+ * that could not be read (the first {@link #PROBLEMS_KEPT} problems kept, the rest counted).
+ */
+public final class ReplaySummary {
+
+    /** Tags without a record kept by name; later ones are only counted. */
+    public static final int TAGS_KEPT = 50;
+    /** Problems of unreadable records kept in full; later ones are only counted. */
+    public static final int PROBLEMS_KEPT = 200;
+
+    private final String recordsName;
+    private int replayed;
+    private int reproduced;
+    private int notConfirmed;
+    private int refuted;
+    private int notCompared;
+    private int explainedByAlternative;
+    private int withoutRecord;
+    private final List<String> withoutRecordTags = new ArrayList<>();
+    private int unreadable;
+    private long problemCount;
+    private final List<String> problems = new ArrayList<>();
+
+    ReplaySummary(String recordsName) {
+        this.recordsName = recordsName;
+    }
+
+    void add(ReplayEvidence e, String tag) {
+        switch (e.status()) {
+            case NO_RECORD -> {
+                if (withoutRecord++ < TAGS_KEPT) {
+                    withoutRecordTags.add(tag);
+                }
+            }
+            case UNREADABLE -> {
+                unreadable++;
+                for (String p : e.problems()) {
+                    if (problemCount++ < PROBLEMS_KEPT) {
+                        problems.add(p);
+                    }
+                }
+            }
+            case REPLAYED -> {
+                replayed++;
+                if (e.result().asFound() == null) {
+                    notCompared++;
+                } else if (e.result().asFoundSeverity() == Severity.INFO) {
+                    reproduced++;
+                } else {
+                    if (e.result().asFoundSeverity() == Severity.FAIL) {
+                        refuted++;
+                    } else {
+                        notConfirmed++;
+                    }
+                    if (!e.result().explanations().isEmpty() && e.result().explanations().get(0).agreement().rmsPercent()
+                            < e.result().asFound().rmsPercent()) {
+                        explainedByAlternative++;
+                    }
+                }
+            }
+        }
+    }
+
+    /** The records' folder as the user named it. */
+    public String recordsName() {
+        return recordsName;
+    }
+
+    public int replayed() {
+        return replayed;
+    }
+
+    /** Replayed loops whose listed old controller reproduces the log. */
+    public int reproduced() {
+        return reproduced;
+    }
+
+    /** Replayed loops whose listed old controller only partly reproduces the log (warn). */
+    public int notConfirmed() {
+        return notConfirmed;
+    }
+
+    /** Replayed loops whose record refutes the listed old controller (fail). */
+    public int refuted() {
+        return refuted;
+    }
+
+    /** Replayed loops whose record holds nothing in automatic to compare. */
+    public int notCompared() {
+        return notCompared;
+    }
+
+    /** Loops not reproduced for which another reading reproduces the log better. */
+    public int explainedByAlternative() {
+        return explainedByAlternative;
+    }
+
+    public int withoutRecord() {
+        return withoutRecord;
+    }
+
+    /** The first {@link #TAGS_KEPT} tags without a record, in input order. */
+    public List<String> withoutRecordTags() {
+        return List.copyOf(withoutRecordTags);
+    }
+
+    /** Loops whose record could not be read or replayed. */
+    public int unreadable() {
+        return unreadable;
+    }
+
+    /** Every problem of an unreadable record, counted. */
+    public long problemCount() {
+        return problemCount;
+    }
+
+    /** The first {@link #PROBLEMS_KEPT} problems of unreadable records, in input order. */
+    public List<String> problems() {
+        return List.copyOf(problems);
+    }
+}

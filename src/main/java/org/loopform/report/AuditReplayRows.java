@@ -1,0 +1,173 @@
+package org.loopform.report;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.ArrayList;
+import java.util.List;
+import org.loopform.audit.LoopOutcome;
+import org.loopform.audit.ReplayEvidence;
+import org.loopform.audit.ReplaySummary;
+import org.loopform.replay.Agreement;
+import org.loopform.replay.Explanation;
+import org.loopform.replay.ReplayResult;
+import org.loopform.units.Numbers;
+
+/**
+ * The replay evidence of an audit given records ({@code audit --records}): the columns it adds to
+ * loops.csv (figures in % of the output span, times in s, named with their unit), the
+ * {@code replay} key of each loop in loops.json, and the summary's {@code replay} key and lines.
+ */
+public final class AuditReplayRows {
+
+    private AuditReplayRows() {
+    }
+
+    /** Columns added to loops.csv, after the audit's own. */
+    public static final List<String> COLUMNS = List.of("replay_record", "replay_as_found", "replay_as_found_rms_pct",
+            "replay_as_found_max_pct", "replay_as_found_correlation", "replay_best_explanation",
+            "replay_best_explanation_rms_pct", "replay_as_left_rms_pct", "replay_as_left_max_pct",
+            "replay_as_left_max_at_s", "replay_problems");
+
+    /** loops.csv's columns for an audit with ({@code records}) or without records. */
+    public static List<String> loopColumns(boolean records) {
+        if (!records) {
+            return AuditRows.LOOP_COLUMNS;
+        }
+        List<String> all = new ArrayList<>(AuditRows.LOOP_COLUMNS);
+        all.addAll(COLUMNS);
+        return List.copyOf(all);
+    }
+
+    /** The as-found verdict in words: reproduced, not_confirmed, refuted, or none (nothing in automatic). */
+    public static String asFoundWord(ReplayResult r) {
+        return r.asFound() == null ? "none" : switch (r.asFoundSeverity()) {
+            case INFO -> "reproduced";
+            case WARN -> "not_confirmed";
+            case FAIL -> "refuted";
+        };
+    }
+
+    /** The best explanation when the listed controller is not reproduced and one does better; else null. */
+    public static Explanation bestExplanation(ReplayResult r) {
+        if (r.asFound() == null || r.asFoundSeverity() == org.loopform.findings.Severity.INFO
+                || r.explanations().isEmpty()) {
+            return null;
+        }
+        Explanation best = r.explanations().get(0);
+        return best.agreement().rmsPercent() < r.asFound().rmsPercent() ? best : null;
+    }
+
+    /** {@code o}'s replay cells (spreadsheet-safe), empty for a bad row. */
+    public static List<String> cells(LoopOutcome o) {
+        List<String> c = new ArrayList<>();
+        ReplayEvidence e = o.replay();
+        if (e == null) {
+            while (c.size() < COLUMNS.size()) {
+                c.add("");
+            }
+            return c;
+        }
+        c.add(e.status() == ReplayEvidence.Status.REPLAYED ? "found"
+                : e.status() == ReplayEvidence.Status.NO_RECORD ? "none" : "unreadable");
+        ReplayResult r = e.result();
+        if (r == null) {
+            while (c.size() < COLUMNS.size() - 1) {
+                c.add("");
+            }
+            c.add(String.join(" | ", e.problems()));
+            return c.stream().map(AuditRows::spreadsheetCell).toList();
+        }
+        Agreement f = r.asFound();
+        c.add(asFoundWord(r));
+        c.add(f == null ? "" : num(f.rmsPercent()));
+        c.add(f == null ? "" : num(f.maxPercent()));
+        c.add(f == null || f.correlation() == null ? "" : num(f.correlation()));
+        Explanation best = bestExplanation(r);
+        c.add(best == null ? "" : best.description());
+        c.add(best == null ? "" : num(best.agreement().rmsPercent()));
+        Agreement l = r.asLeft();
+        c.add(l == null ? "" : num(l.rmsPercent()));
+        c.add(l == null ? "" : num(l.maxPercent()));
+        c.add(l == null ? "" : num(l.maxAtSeconds()));
+        c.add("");
+        return c.stream().map(AuditRows::spreadsheetCell).toList();
+    }
+
+    /** loops.json's {@code replay} for one loop: null without a record, else the record's status and the replay. */
+    public static ObjectNode json(ReplayEvidence e) {
+        if (e == null || e.status() == ReplayEvidence.Status.NO_RECORD) {
+            return null;
+        }
+        if (e.status() == ReplayEvidence.Status.UNREADABLE) {
+            ObjectNode n = Json.object();
+            n.put("record", "unreadable");
+            ArrayNode p = n.putArray("problems");
+            e.problems().forEach(p::add);
+            return n;
+        }
+        ObjectNode n = Json.object();
+        n.put("record", "found");
+        n.put("as_found_verdict", asFoundWord(e.result()));
+        n.setAll(ReplayReport.jsonNode(e.result()));
+        n.remove("tag");
+        n.remove("findings"); // the replay's findings are the loop's, listed with its others
+        return n;
+    }
+
+    /** The summary's {@code replay} key: counts, the first tags without a record, unreadable records' problems. */
+    public static ObjectNode summaryJson(ReplaySummary s) {
+        ObjectNode n = Json.object();
+        n.put("records", s.recordsName());
+        n.put("replayed", s.replayed());
+        n.put("reproduced", s.reproduced());
+        n.put("not_confirmed", s.notConfirmed());
+        n.put("refuted", s.refuted());
+        n.put("nothing_in_automatic", s.notCompared());
+        n.put("explained_by_alternative", s.explainedByAlternative());
+        n.put("without_record", s.withoutRecord());
+        ArrayNode t = n.putArray("without_record_tags");
+        s.withoutRecordTags().forEach(t::add);
+        n.put("unreadable", s.unreadable());
+        ArrayNode p = n.putArray("problems");
+        s.problems().forEach(p::add);
+        return n;
+    }
+
+    /** The summary's replay lines, for the text output. */
+    public static String summaryText(ReplaySummary s) {
+        String nl = System.lineSeparator();
+        StringBuilder sb = new StringBuilder();
+        sb.append(nl).append("Replay of the records in ").append(s.recordsName()).append(": ").append(s.replayed())
+                .append(" loops replayed (").append(s.reproduced()).append(" reproduced, ").append(s.notConfirmed())
+                .append(" not confirmed, ").append(s.refuted()).append(" refuted")
+                .append(s.notCompared() > 0 ? ", " + s.notCompared() + " with nothing in automatic" : "").append(")")
+                .append(s.explainedByAlternative() > 0 ? "; " + s.explainedByAlternative()
+                        + " explained better by another reading" : "").append('.').append(nl);
+        sb.append("  ").append(withoutRecordWords(s)).append(nl);
+        if (s.unreadable() > 0) {
+            sb.append("  ").append(s.unreadable()).append(s.unreadable() == 1 ? " record" : " records")
+                    .append(" could not be read or replayed:").append(nl);
+            s.problems().forEach(p -> sb.append("    ").append(p).append(nl));
+            if (s.problemCount() > s.problems().size()) {
+                sb.append("    ... and ").append(s.problemCount() - s.problems().size()).append(" more").append(nl);
+            }
+        }
+        return sb.toString();
+    }
+
+    /** The one sentence on loops without a record. */
+    static String withoutRecordWords(ReplaySummary s) {
+        if (s.withoutRecord() == 0) {
+            return "Every loop has a record.";
+        }
+        String tags = String.join(", ", s.withoutRecordTags())
+                + (s.withoutRecord() > s.withoutRecordTags().size()
+                ? " and " + (s.withoutRecord() - s.withoutRecordTags().size()) + " more" : "");
+        return s.withoutRecord() + (s.withoutRecord() == 1 ? " loop has" : " loops have") + " no record (no TAG.csv"
+                + " in " + s.recordsName() + "), so no replay evidence: " + tags + ".";
+    }
+
+    private static String num(double v) {
+        return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
+    }
+}
