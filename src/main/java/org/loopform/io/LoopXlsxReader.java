@@ -132,7 +132,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         Path folder = path.toAbsolutePath().getParent();
         if (choice != null) {
             Sheet s = chosen(name, sheets, choice);
-            Opened o = header(name, workbook, s);
+            Opened o = header(path, name, workbook, s);
             if (o == null) {
                 throw new InputException(name + ":" + ref(s.getName()) + ": no header row with the columns tag and"
                         + " form in the sheet's first " + HEADER_SEARCH_ROWS + " rows; put a header row (tag, form,"
@@ -145,7 +145,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             if (s.getVisibility() != SheetVisibility.VISIBLE) {
                 continue; // a hidden sheet is not the list a person sees
             }
-            Opened o = header(name, workbook, s);
+            Opened o = header(path, name, workbook, s);
             if (o != null) {
                 return o.reader(name, sheets.size(), path, folder, defaults);
             }
@@ -156,11 +156,12 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
     }
 
     /** A sheet opened at its header row. */
-    private record Opened(ReadableWorkbook workbook, Sheet sheet, Stream<Row> stream, Iterator<Row> rows, Row header) {
+    private record Opened(ReadableWorkbook workbook, Sheet sheet, Stream<Row> stream, Iterator<Row> rows, Row header,
+                          XlsxMerges merges) {
         LoopXlsxReader reader(String name, int sheetCount, Path path, Path folder, LoopDefaults defaults) {
             try {
                 return new LoopXlsxReader(name, workbook, sheet, sheetCount, stream, rows, header, folder, defaults,
-                        XlsxMerges.of(path, sheet.getId()));
+                        merges);
             } catch (RuntimeException e) {
                 stream.close();
                 throw e;
@@ -190,7 +191,9 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
     }
 
     /** The sheet's rows opened and read down to its header, or null (and closed) when it has none near the top. */
-    private static Opened header(String name, ReadableWorkbook workbook, Sheet s) {
+    private static Opened header(Path path, String name, ReadableWorkbook workbook, Sheet s) {
+        // first the pass that finds merged titles and refuses cells beyond the last column
+        XlsxMerges merges = XlsxMerges.of(path, s.getId(), name, s.getName());
         Stream<Row> stream;
         try {
             stream = s.openStream();
@@ -207,7 +210,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
                     break;
                 }
                 if (isHeader(r)) {
-                    return new Opened(workbook, s, stream, it, r);
+                    return new Opened(workbook, s, stream, it, r, merges);
                 }
             }
         } catch (RuntimeException e) {

@@ -68,7 +68,9 @@ final class WorkbookBytes {
     static void refuseWorkbookAsCsv(Path path, String shownName) {
         switch (of(path, shownName)) {
             case ZIP -> throw new InputException(shownName + ": is a zip archive, such as an xlsx workbook, not a CSV"
-                    + " file; name an xlsx workbook .xlsx to read it as a workbook, or save the sheet as CSV");
+                    + " file; " + (shownName.toLowerCase(java.util.Locale.ROOT).endsWith(".xlsx")
+                    ? "this command reads CSV or YAML loop lists: save the sheet as CSV"
+                    : "name an xlsx workbook .xlsx to read it as a workbook, or save the sheet as CSV"));
             case OLD_XLS -> throw new InputException(shownName + ": is an Excel 97-2003 workbook (.xls), not a CSV"
                     + " file; save it as an Excel workbook (.xlsx) or as CSV and give that file");
             case ENCRYPTED -> throw new InputException(shownName + ": is a workbook protected by a password, not a"

@@ -284,6 +284,21 @@ class LoopXlsxReaderTest {
             refused(java.util.Arrays.copyOf(all, all.length / 2), "");
         }
 
+        // XFD is column 16,384, the last a sheet can have (common practice for xlsx): 24*26^0 + 6*26 + 4*26^2 = 16,384
+        @ParameterizedTest
+        @CsvSource({"XFD1,false", "xfd7,false", "$A$1,false", "XFE1,true", "AAAA1,true", "ZZZZZZ9,true"})
+        void a_column_past_xfd_is_beyond_the_sheet(String ref, boolean beyond) {
+            assertThat(XlsxMerges.beyondLastColumn(ref)).isEqualTo(beyond);
+        }
+
+        @Test
+        void a_cell_beyond_the_last_column_stops_the_file_before_any_row_is_read() throws IOException {
+            Path f = book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min"));
+            XlsxTestFiles.editSheet(f, xml -> xml.replace("r=\"G2\"", "r=\"AAAAA2\""));
+            assertThatThrownBy(() -> read(f, null)).isInstanceOf(InputException.class)
+                    .hasMessageStartingWith("loops.xlsx:Loops: a cell is placed at AAAAA2, beyond column XFD");
+        }
+
         private byte[] ole2(String stream) {
             byte[] b = new byte[1024];
             byte[] magic = {(byte) 0xD0, (byte) 0xCF, 0x11, (byte) 0xE0, (byte) 0xA1, (byte) 0xB1, 0x1A, (byte) 0xE1};
