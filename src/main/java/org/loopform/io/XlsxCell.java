@@ -98,12 +98,21 @@ record XlsxCell(String text, String problem) {
             return EMPTY;
         }
         String shown = plain(value);
-        String format = cell.getDataFormatString();
-        if (isDateFormat(cell.getDataFormatId(), format)) {
+        String format;
+        Integer formatId;
+        try {
+            format = cell.getDataFormatString();
+            formatId = cell.getDataFormatId();
+        } catch (RuntimeException e) {
+            // a style whose number format id is not a number: whether it shows a date cannot be told
+            return bad("the cell's number format cannot be read (the workbook may be damaged), so loopform cannot"
+                    + " tell a number from a date; format the cell as a number (General) and save the workbook again");
+        }
+        if (isDateFormat(formatId, format)) {
             return bad("the cell holds a date or time" + from + " (stored as " + shown + "), not " + (numeric
                     ? "a number" : "text") + "; format the cell as a number (General) or as text and type the value");
         }
-        if (numeric && isPercentFormat(cell.getDataFormatId(), format)) {
+        if (numeric && isPercentFormat(formatId, format)) {
             return bad("the cell is formatted as a percentage" + from + ": it shows " + plain(value.movePointRight(2))
                     + "% but holds " + shown + "; loopform does not guess which was meant: format the cell as a"
                     + " number (General) and type the value the column takes (a band of 150 % is 150), or type it as"
