@@ -3,7 +3,7 @@
 #
 #   scripts/fuzz.sh [SECONDS] [TARGET...]
 #
-# SECONDS is the time per target (default 300). TARGET is Class#method (default: all six below).
+# SECONDS is the time per target (default 300). TARGET is Class#method (default: all eight below).
 # Each target runs in its own JVM (`JAZZER_FUZZ=1`, Jazzer fuzzes one @FuzzTest per run). The
 # contract under test: any bytes give a result or org.loopform.units.BadInput, never another
 # exception, never an input that takes longer than the @Timeout on the target (10 s).
@@ -26,6 +26,8 @@ if [ ${#TARGETS[@]} -eq 0 ]; then
     org.loopform.io.ReaderFuzzTest#loopFile
     org.loopform.io.ReaderFuzzTest#csvLoopList
     org.loopform.io.ReaderFuzzTest#yamlLoopList
+    org.loopform.io.ReaderFuzzTest#xlsxLoopList
+    org.loopform.io.ReaderFuzzTest#xlsxSheetXml
     org.loopform.io.ReaderFuzzTest#policyFile
     org.loopform.cli.ConvertValuesFuzzTest#convertValues
   )

@@ -20,6 +20,7 @@ import org.loopform.findings.Severity;
 import org.loopform.form.FormDefinition;
 import org.loopform.io.CatalogLoader;
 import org.loopform.io.LoopCsvReader;
+import org.loopform.io.LoopXlsxReader;
 import org.loopform.io.LoopYamlReader;
 import org.loopform.io.PolicyFileReader;
 import org.loopform.report.Cautions;
@@ -33,11 +34,12 @@ import picocli.CommandLine.Spec;
 
 /** {@code loopform audit}: a whole loop list carried to the target and checked, with a report to sign. */
 @Command(name = "audit", mixinStandardHelpOptions = true,
-        description = {"Converts and checks every loop of a migration (a CSV or YAML loop list), in parallel, and"
+        description = {"Converts and checks every loop of a migration (a CSV, xlsx or YAML loop list), in parallel, and"
                 + " writes loops.csv, loops.json, entry-sheet.csv and report.html into --out."},
         footer = {"", "CSV header (snake_case, any order): tag, form, kc|pb|kp, ti|reset|ki, td|kd, n, b, c, action,"
                 + " scan, pv_range, output_range, model, process_gain, time_constant, time_constant_2, dead_time,"
-                + " target_form, target_scan. Empty cells are absent; cells may carry units (30s).",
+                + " target_form, target_scan. Empty cells are absent; cells may carry units (30s). An .xlsx"
+                + " workbook holds the same columns on a sheet, under a header row that may have title rows above it.",
                 "", "Exit codes: 0 no fail; 1 a fail (or a warn with --fail-on warn); 2 bad input (bad rows are"
                 + " reported by file, line and field, the other loops are still checked and written).",
                 "", Cautions.SHORT})
@@ -46,8 +48,12 @@ final class AuditCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(paramLabel = "LOOPS", description = "The loop list: .csv, or .yaml/.yml with a 'loops:' list.")
+    @Parameters(paramLabel = "LOOPS", description = "The loop list: .csv, .xlsx, or .yaml/.yml with a 'loops:' list.")
     Path input;
+
+    @Option(names = "--sheet", paramLabel = "NAME|INDEX", description = "The sheet of an .xlsx list, by name or"
+            + " number from 1 (default: the first visible sheet with a header row naming tag and form).")
+    String sheet;
 
     @Option(names = "--to", paramLabel = "ID|FILE", description = "Target form for every loop (overrides the list).")
     String to;
@@ -103,6 +109,11 @@ final class AuditCommand implements Callable<Integer> {
                 : PolicyFileReader.read(policyFile, policyFile.toString());
         String name = input.toString();
         String lower = name.toLowerCase(Locale.ROOT);
+        boolean xlsx = lower.endsWith(".xlsx");
+        if (sheet != null && !xlsx) {
+            throw new org.loopform.units.UnitException("--sheet: applies to an .xlsx loop list only (got " + name
+                    + "); leave --sheet out, or give the .xlsx workbook");
+        }
         List<Path> inputs = new ArrayList<>(List.of(input));
         if (policyFile != null) {
             inputs.add(policyFile);
@@ -143,6 +154,15 @@ final class AuditCommand implements Callable<Integer> {
             try (LoopYamlReader reader = LoopYamlReader.open(input, name, defaults)) {
                 return AuditRunner.run(reader, settings(name, fail, policy, n, inputs, settings,
                         AuditRunner.Progress.bytes(size, reader::bytesRead)), spec.commandLine().getOut(),
+                        spec.commandLine().getErr());
+            }
+        }
+        if (xlsx) {
+            try (LoopXlsxReader reader = LoopXlsxReader.open(input, name, sheet, defaults)) {
+                spec.commandLine().getErr().println("loopform: " + name + ": reading " + reader.description());
+                spec.commandLine().getErr().flush();
+                return AuditRunner.run(reader, settings(name, fail, policy, n, inputs, settings + ", sheet "
+                        + reader.sheetName(), AuditRunner.Progress.UNKNOWN), spec.commandLine().getOut(),
                         spec.commandLine().getErr());
             }
         }

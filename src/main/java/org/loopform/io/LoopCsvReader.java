@@ -7,27 +7,16 @@ import java.io.Reader;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.Iterator;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
-import java.util.Map;
 import java.util.NoSuchElementException;
 import java.util.Set;
 import java.util.function.LongSupplier;
-import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
 import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.LoopRow;
-import org.loopform.check.LoopSpec;
-import org.loopform.form.FormDefinition;
-import org.loopform.process.ProcessModel;
-import org.loopform.tuning.PublishedTuning;
-import org.loopform.units.BadInput;
-import org.loopform.units.Span;
 
 /**
  * Reads a loop list as CSV, one loop a row, streaming and reading its input once (a pipe works
@@ -53,21 +42,17 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     /** Columns that hold numbers (with an optional unit), where a decimal comma is a problem. */
     static final Set<String> NUMERIC = Set.of("kc", "pb", "kp", "ti", "reset", "ki", "td", "kd", "n", "tf", "b", "c",
             "scan", "target_scan", "pv_range", "output_range", "process_gain", "time_constant", "time_constant_2",
-            "dead_time", "lag", RuleCells.TAU_C, RuleCells.LAMBDA);
-    private static final Pattern DECIMAL_COMMA = Pattern.compile("\\d,\\d");
+            "dead_time", "lag");
     private static final char[] SEPARATORS = {',', ';', '\t'};
 
     private final String name;
-    private final Path folder;
     private final CSVParser parser;
     private final Iterator<CSVRecord> records;
     private final LongSupplier bytesRead;
-    private final LoopDefaults defaults;
     /** The header's column names, lower case; an empty name is a column without a name. */
     private final List<String> columns;
     private final char separator;
-    private final TagIndex firstSeen = new TagIndex();
-    private final Map<String, FormDefinition> forms = new HashMap<>();
+    private final LoopListRows rows;
     private CSVRecord pending;
     private long pendingLine;
     private int index;
@@ -75,8 +60,6 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     private LoopCsvReader(Reader in, LongSupplier bytesRead, String name, Path folder, LoopDefaults defaults)
             throws IOException {
         this.name = name;
-        this.folder = folder;
-        this.defaults = defaults;
         this.bytesRead = bytesRead;
         BufferedReader br = new BufferedReader(in, 1 << 16);
         String header = br.readLine();
@@ -91,6 +74,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         CSVFormat format = CSVFormat.RFC4180.builder().setDelimiter(separator).setIgnoreEmptyLines(false)
                 .setTrim(true).get();
         this.columns = header(header, format);
+        this.rows = new LoopListRows(name, folder, defaults, columns, k -> String.valueOf(k + 1));
         // the header line is consumed: the parser's line 1 is the file's line 2
         this.parser = CSVParser.parse(br, format);
         this.records = parser.iterator();
@@ -107,40 +91,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             throw new InputException(name + ":1: the header's quotes are not closed; write the column names"
                     + " without quotes, such as tag,form,kc,ti,td");
         }
-        List<String> cols = new ArrayList<>();
-        List<String> problems = new ArrayList<>();
-        Map<String, Integer> firstColumn = new HashMap<>();
-        for (int k = 0; k < raw.size(); k++) {
-            String h = raw.get(k).trim();
-            String key = h.toLowerCase(Locale.ROOT);
-            cols.add(key);
-            if (key.isEmpty()) {
-                continue; // a column without a name: allowed while its cells stay empty
-            }
-            Integer first = firstColumn.putIfAbsent(key, k + 1);
-            if (first != null) {
-                problems.add(name + ":1: " + key + ": columns " + first + " and " + (k + 1) + " are both named '" + h
-                        + "'; keep one of them (loopform does not choose between two values)");
-            } else if (!PARAMETERS.contains(key) && !PROCESS.contains(key) && !OTHER.contains(key)) {
-                problems.add(name + ":1: " + h + ": unknown column" + (raw.size() == 1 ? " (the header has a single"
-                        + " column: separate column names with ',' or ';')" : "") + "; columns are tag, form, the"
-                        + " parameters (" + String.join(", ", PARAMETERS.stream().sorted().toList()) + "), scan,"
-                        + " pv_range, output_range, process columns (" + String.join(", ", PROCESS.stream().sorted()
-                        .toList()) + "), target_form, target_scan, and for a new loop tuned by rule: rule,"
-                        + " controller, tau_c, lambda");
-            }
-        }
-        if (!firstColumn.containsKey("tag")) {
-            problems.add(name + ":1: tag: required column is missing from the header");
-        }
-        if (!firstColumn.containsKey("form") && !firstColumn.containsKey(RuleCells.RULE)) {
-            problems.add(name + ":1: form: required column is missing from the header (a list of new loops tuned"
-                    + " by rule may give a rule column instead)");
-        }
-        if (!problems.isEmpty()) {
-            throw new InputException(problems);
-        }
-        return List.copyOf(cols);
+        return LoopListRows.header(raw, name + ":1", k -> name + ":1", k -> String.valueOf(k + 1));
     }
 
     /** The separator the header uses most, outside quotes: ',' unless ';' or tab is more frequent. */
@@ -169,6 +120,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
 
     /** Opens {@code path}, once; file-level problems (no file, a folder, bad header) are thrown at once. */
     public static LoopCsvReader open(Path path, String shownName, LoopDefaults defaults) {
+        WorkbookBytes.refuseWorkbookAsCsv(path, shownName);
         Utf8Reader in = TextInput.open(path, shownName);
         try {
             Path abs = path.toAbsolutePath();
@@ -268,47 +220,13 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         pending = null;
         int i = index++;
         String where = name + ":" + pendingLine;
-        int tagColumn = columns.indexOf("tag");
-        String tag = tagColumn < rec.size() ? rec.get(tagColumn).trim() : "";
+        String tag = rows.tag(rec.toList());
         if (rec.size() != columns.size()) {
             return LoopRow.bad(i, tag, where, List.of(cellCount(where, rec)));
         }
-        Map<String, String> cells = new LinkedHashMap<>();
-        List<String> problems = new ArrayList<>();
-        for (int k = 0; k < rec.size(); k++) {
-            String key = columns.get(k);
-            String v = rec.get(k).trim();
-            if (v.isEmpty()) {
-                continue;
-            }
-            if (key.isEmpty()) {
-                problems.add(where + ": column " + (k + 1) + " has no name in the header, but this row has a value"
-                        + " there ('" + v + "'); name the column, or empty its cells");
-            } else if (NUMERIC.contains(key) && DECIMAL_COMMA.matcher(v).find()) {
-                problems.add(where + ": " + key + ": '" + v + "' has a comma in a number; write decimals with a"
-                        + " point (1.5, not 1,5) and no thousands separators (loopform does not guess which was meant)");
-            } else {
-                cells.put(key, v);
-            }
-        }
-        if (!problems.isEmpty()) {
-            return LoopRow.bad(i, tag, where, problems);
-        }
-        try {
-            Read read = row(cells, where);
-            LoopSpec spec = read.spec();
-            int previous = firstSeen.putIfAbsent(spec.tag(), (int) Math.min(Integer.MAX_VALUE, pendingLine));
-            if (previous >= 0) {
-                return LoopRow.bad(i, tag, where, List.of(where + ": tag: duplicate tag " + tag + " (first at "
-                        + name + ":" + previous + "); every loop needs its own tag"));
-            }
-            return read.byRule() == null ? LoopRow.of(i, defaults.apply(spec))
-                    : LoopRow.byRule(i, defaults.apply(spec), read.byRule());
-        } catch (BadInput e) {
-            // only bad input becomes a bad row; anything else is a bug of loopform and stops the run
-            return LoopRow.bad(i, tag, where, e.problems().stream()
-                    .map(m -> m.startsWith(name + ":") ? m : where + ": " + m).toList());
-        }
+        long line = pendingLine;
+        return rows.row(i, rec.toList(), where, k -> where, (int) Math.min(Integer.MAX_VALUE, line),
+                previous -> name + ":" + previous, List.of());
     }
 
     /** "14 cells, the header has 13", with the likely cause. */
@@ -334,97 +252,6 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
 
     private static String shown(char separator) {
         return separator == '\t' ? "tab" : String.valueOf(separator);
-    }
-
-    /** A row read: its loop, and the rule's tuning when the row names a rule (else null). */
-    private record Read(LoopSpec spec, PublishedTuning byRule) {
-    }
-
-    private Read row(Map<String, String> c, String where) {
-        String tag = c.get("tag");
-        if (tag == null) {
-            throw new InputException(where + ": tag: required; every loop needs a tag");
-        }
-        boolean byRule = RuleCells.any(c.keySet());
-        String formId = c.get("form");
-        if (formId == null && !byRule) {
-            throw new InputException(where + ": form: required; the source form (a catalog id or a form file), or for"
-                    + " a new loop a rule (" + org.loopform.tuning.Rule.ids() + ") with its process model");
-        }
-        FormDefinition from = byRule ? null : form(formId, where, "form");
-        FormDefinition to = null;
-        if (defaults.targetForm() == null && c.containsKey("target_form")) {
-            to = form(c.get("target_form"), where, "target_form");
-        } else if (defaults.targetForm() == null) {
-            throw new InputException(where + ": target_form: required (or give --to FORM for all loops)");
-        }
-        Map<String, String> tuning = new LinkedHashMap<>();
-        for (String p : PARAMETERS) {
-            if (c.containsKey(p)) {
-                tuning.put(p, c.get(p));
-            }
-        }
-        // parameters in the column order of the file, as a person reads them
-        Map<String, String> ordered = new LinkedHashMap<>();
-        c.keySet().stream().filter(tuning::containsKey).forEach(k -> ordered.put(k, tuning.get(k)));
-        Span pv = span(c, "pv_range", where);
-        Span out = span(c, "output_range", where);
-        Double scan = c.containsKey("scan") ? Double.valueOf(seconds(c.get("scan"), where, "scan")) : null;
-        Double targetScan = c.containsKey("target_scan") ? Double.valueOf(seconds(c.get("target_scan"), where,
-                "target_scan")) : scan;
-        ProcessModel process = null;
-        if (c.containsKey("model")) {
-            Map<String, String> pm = new LinkedHashMap<>();
-            pm.put("model", c.get("model"));
-            copy(c, pm, "process_gain", "gain");
-            copy(c, pm, "process_gain_units", "gain_units");
-            copy(c, pm, "time_constant", "time_constant");
-            copy(c, pm, "time_constant_2", "time_constant_2");
-            copy(c, pm, "dead_time", "dead_time");
-            copy(c, pm, "lag", "lag");
-            process = ProcessReader.read(pm, pv, out, key -> where + ": " + (key.equals("gain") ? "process_gain"
-                    : key.equals("gain_units") ? "process_gain_units" : key) + ": ");
-        }
-        FormDefinition target = to != null ? to : defaults.targetForm();
-        if (byRule) {
-            Map<String, String> ruleCells = new LinkedHashMap<>();
-            RuleCells.KEYS.stream().filter(c::containsKey).forEach(k -> ruleCells.put(k, c.get(k)));
-            PublishedTuning t = RuleCells.tuning(ruleCells, ordered.keySet(), formId != null, process,
-                    key -> where + ": " + key + ": ", "form", "the model columns model, process_gain, time_constant and"
-                            + " dead_time");
-            // a new loop has no old controller: scan, if given, is the new controller's scan
-            return new Read(new LoopSpec(tag, process, PublishedForm.form(t, RuleCells.RULE), PublishedForm.values(t),
-                    null, target, targetScan, pv, out, where), t);
-        }
-        return new Read(new LoopSpec(tag, process, from, ordered, scan, target, targetScan, pv, out, where), null);
-    }
-
-    private static void copy(Map<String, String> from, Map<String, String> to, String key, String as) {
-        if (from.containsKey(key)) {
-            to.put(as, from.get(key));
-        }
-    }
-
-    private FormDefinition form(String idOrPath, String where, String column) {
-        FormDefinition f = forms.get(idOrPath);
-        if (f != null) {
-            return f;
-        }
-        try {
-            f = LoopFields.form(idOrPath, folder, column);
-        } catch (InputException e) {
-            throw new InputException(where + ": " + e.getMessage());
-        }
-        forms.put(idOrPath, f);
-        return f;
-    }
-
-    private static Span span(Map<String, String> c, String key, String where) {
-        return c.containsKey(key) ? LoopFields.span(c.get(key), where + ": " + key + ": ") : null;
-    }
-
-    private static double seconds(String text, String where, String key) {
-        return LoopFields.positiveSeconds(text, where + ": " + key + ": ");
     }
 
     @Override

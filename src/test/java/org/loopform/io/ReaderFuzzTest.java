@@ -20,7 +20,7 @@ import org.loopform.form.FormDefinition;
 import org.loopform.units.BadInput;
 
 /**
- * Fuzz targets for the file readers. The contract of every reader: for any bytes, either a result
+ * Fuzz targets for the file readers (the xlsx ones write each input to a file in an empty folder). The contract of every reader: for any bytes, either a result
  * or {@link BadInput} with a message; never another exception (a bug: exit 3), never a hang (the
  * {@link Timeout} becomes Jazzer's per-input timeout).
  *
@@ -92,6 +92,35 @@ class ReaderFuzzTest {
     @Timeout(10)
     void yamlLoopList(byte[] bytes) {
         try (LoopYamlReader r = LoopYamlReader.of(text(bytes), "loops.yaml", LoopDefaults.NONE)) {
+            while (r.hasNext()) {
+                assertRow(r.next());
+            }
+        } catch (BadInput e) {
+            assertUsable(e);
+        }
+    }
+
+    /** Any bytes as an .xlsx loop list (the reader needs a file: a workbook is read by random access). */
+    @FuzzTest
+    @Timeout(10)
+    void xlsxLoopList(byte[] bytes) throws IOException {
+        readXlsx(Files.write(EMPTY_FOLDER.resolve("loops.xlsx"), bytes));
+    }
+
+    /**
+     * Any bytes as the XML of the one sheet of a valid workbook, where the reader's own cell rules
+     * are (a fuzzed zip rarely gets past its checksums).
+     */
+    @FuzzTest
+    @Timeout(10)
+    void xlsxSheetXml(byte[] bytes) throws IOException {
+        Path f = XlsxTestFiles.write(EMPTY_FOLDER.resolve("sheet.xlsx"), "Loops", ws -> ws.value(0, 0, "tag"));
+        XlsxTestFiles.editSheet(f, xml -> text(bytes));
+        readXlsx(f);
+    }
+
+    private static void readXlsx(Path file) {
+        try (LoopXlsxReader r = LoopXlsxReader.open(file, "loops.xlsx", null, LoopDefaults.NONE)) {
             while (r.hasNext()) {
                 assertRow(r.next());
             }

@@ -1,0 +1,157 @@
+package org.loopform.io;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Path;
+import java.util.HashMap;
+import java.util.Map;
+import java.util.zip.ZipEntry;
+import java.util.zip.ZipFile;
+import javax.xml.stream.XMLInputFactory;
+import javax.xml.stream.XMLStreamConstants;
+import javax.xml.stream.XMLStreamException;
+import javax.xml.stream.XMLStreamReader;
+import org.dhatim.fastexcel.reader.CellAddress;
+
+/**
+ * The merged cells of one sheet that span two columns or more, by their top-left cell, so that a row
+ * of merged title cells can be told from a loop: a sheet lists its merged ranges after its rows
+ * ({@code <mergeCells>} follows {@code <sheetData>}, ECMA-376 Part 1, {@code CT_Worksheet}; from
+ * memory), so they are read first in a pass of their own that keeps nothing but the ranges. The
+ * sheet's part is found as the Open Packaging Conventions say: the package relationship of type
+ * {@code officeDocument} names the workbook, whose relationships name each sheet's part by id.
+ *
+ * <p>The same pass refuses a cell placed beyond the last column a sheet can have (XFD, column
+ * 16,384; common practice for xlsx): the row reader would otherwise make room for every column up
+ * to it, which a damaged or hostile file could use to exhaust memory.
+ */
+final class XlsxMerges {
+
+    private static final String OFFICE_DOCUMENT = "/officeDocument";
+    /** Columns a sheet can have: A to XFD. */
+    static final int MAX_COLUMNS = 16_384;
+    private static final java.util.regex.Pattern COLUMN_LETTERS = java.util.regex.Pattern.compile("\\$?([A-Za-z]+)");
+
+    private final Map<Long, Integer> widthByTopLeft;
+
+    private XlsxMerges(Map<Long, Integer> widthByTopLeft) {
+        this.widthByTopLeft = widthByTopLeft;
+    }
+
+    static final XlsxMerges NONE = new XlsxMerges(Map.of());
+
+    /** Whether the cell at {@code row} (from 1) and {@code column} (from 0) starts a merge over two columns or more. */
+    boolean startsWideMerge(int row, int column) {
+        return widthByTopLeft.containsKey(key(row, column));
+    }
+
+    private static long key(int row, int column) {
+        return ((long) row << 20) | column;
+    }
+
+    /**
+     * The wide merges of the sheet whose relationship id is {@code sheetRelationId}, or none when the
+     * package does not say (the rows are then read without this help: a title row becomes a bad row).
+     */
+    static XlsxMerges of(Path workbook, String sheetRelationId, String shownName, String sheetName) {
+        try (ZipFile zip = new ZipFile(workbook.toFile())) {
+            String book = target(zip, "_rels/.rels", "", null);
+            if (book == null) {
+                return NONE;
+            }
+            int slash = book.lastIndexOf('/');
+            String folder = slash < 0 ? "" : book.substring(0, slash + 1);
+            String rels = folder + "_rels/" + book.substring(slash + 1) + ".rels";
+            String sheet = target(zip, rels, folder, sheetRelationId);
+            ZipEntry entry = sheet == null ? null : zip.getEntry(sheet);
+            return entry == null ? NONE : read(zip, entry, shownName, sheetName);
+        } catch (InputException e) {
+            throw e;
+        } catch (IOException | XMLStreamException | RuntimeException e) {
+            return NONE; // a damaged package: the row reader reports it, with its position
+        }
+    }
+
+    /** The target of a relationship in {@code relsPart} (by id, or the officeDocument one when id is null). */
+    private static String target(ZipFile zip, String relsPart, String folder, String id)
+            throws IOException, XMLStreamException {
+        ZipEntry e = zip.getEntry(relsPart);
+        if (e == null) {
+            return null;
+        }
+        try (InputStream in = zip.getInputStream(e)) {
+            XMLStreamReader r = factory().createXMLStreamReader(in);
+            while (r.hasNext()) {
+                if (r.next() == XMLStreamConstants.START_ELEMENT && r.getLocalName().equals("Relationship")) {
+                    String type = r.getAttributeValue(null, "Type");
+                    boolean match = id == null ? type != null && type.endsWith(OFFICE_DOCUMENT)
+                            : id.equals(r.getAttributeValue(null, "Id"));
+                    if (match) {
+                        String t = r.getAttributeValue(null, "Target");
+                        return t == null ? null : t.startsWith("/") ? t.substring(1) : folder + t;
+                    }
+                }
+            }
+        }
+        return null;
+    }
+
+    private static XlsxMerges read(ZipFile zip, ZipEntry sheet, String shownName, String sheetName)
+            throws IOException, XMLStreamException {
+        Map<Long, Integer> merges = new HashMap<>();
+        try (InputStream in = zip.getInputStream(sheet)) {
+            XMLStreamReader r = factory().createXMLStreamReader(in);
+            while (r.hasNext()) {
+                if (r.next() != XMLStreamConstants.START_ELEMENT) {
+                    continue;
+                }
+                if (r.getLocalName().equals("c")) {
+                    String ref = r.getAttributeValue(null, "r");
+                    if (ref != null && beyondLastColumn(ref)) {
+                        throw new InputException(shownName + ":" + LoopXlsxReader.ref(sheetName) + ": a cell is"
+                                + " placed at " + (ref.length() > 20 ? ref.substring(0, 20) + "..." : ref) + ", beyond"
+                                + " column XFD, the last a sheet can have; the workbook is damaged: open it in a"
+                                + " spreadsheet program and save it again, or save the sheet as CSV");
+                    }
+                } else if (r.getLocalName().equals("mergeCell")) {
+                    String ref = r.getAttributeValue(null, "ref");
+                    int colon = ref == null ? -1 : ref.indexOf(':');
+                    if (colon > 0) {
+                        CellAddress from = new CellAddress(ref.substring(0, colon));
+                        CellAddress to = new CellAddress(ref.substring(colon + 1));
+                        int width = to.getColumn() - from.getColumn() + 1;
+                        if (width >= 2) {
+                            merges.put(key(from.getRow() + 1, from.getColumn()), width);
+                        }
+                    }
+                }
+            }
+        }
+        return new XlsxMerges(merges);
+    }
+
+    /** Whether a cell reference such as {@code C7} names a column past XFD (letters compared by count, then value). */
+    static boolean beyondLastColumn(String ref) {
+        java.util.regex.Matcher m = COLUMN_LETTERS.matcher(ref);
+        if (!m.lookingAt()) {
+            return false; // not a reference: the row reader says what is wrong
+        }
+        String letters = m.group(1).toUpperCase(java.util.Locale.ROOT);
+        if (letters.length() > 3) {
+            return true;
+        }
+        int column = 0;
+        for (int k = 0; k < letters.length(); k++) {
+            column = column * 26 + (letters.charAt(k) - 'A' + 1);
+        }
+        return column > MAX_COLUMNS;
+    }
+
+    /** A StAX factory that reads no DTD and resolves no external entity (a workbook is untrusted input). */
+    private static XMLInputFactory factory() {
+        XMLInputFactory f = XMLInputFactory.newFactory();
+        f.setProperty(XMLInputFactory.SUPPORT_DTD, false);
+        f.setProperty(XMLInputFactory.IS_SUPPORTING_EXTERNAL_ENTITIES, false);
+        return f;
+    }
+}
