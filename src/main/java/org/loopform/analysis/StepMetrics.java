@@ -96,18 +96,21 @@ public record StepMetrics(
         double peak = 0;
         double travel = 0;
         int lastOutside = -1;
+        double previous = 0;
+        double previousTime = 0;
         for (int k = 0; k < n; k++) {
             double error = setpointPercent - response.processValuePercent(k);
+            double time = response.timeSeconds(k);
             peak = Math.max(peak, Math.abs(error));
             if (Math.abs(error) > bandPercent) {
                 lastOutside = k;
             }
             if (k > 0) {
-                double previous = setpointPercent - response.processValuePercent(k - 1);
-                double dt = response.timeSeconds(k) - response.timeSeconds(k - 1);
-                iae += trapezoidOfAbsolute(previous, error, dt);
+                iae += trapezoidOfAbsolute(previous, error, time - previousTime);
                 travel += Math.abs(response.controllerOutputPercent(k) - response.controllerOutputPercent(k - 1));
             }
+            previous = error;
+            previousTime = time;
         }
         OptionalDouble settling;
         if (lastOutside == n - 1) {
