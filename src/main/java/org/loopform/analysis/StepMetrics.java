@@ -66,8 +66,8 @@ public record StepMetrics(
         double direction = Math.signum(stepPercent);
         double largestExcursionPercent = 0;
         for (int k = 0; k < response.size(); k++) {
-            largestExcursionPercent = Math.max(largestExcursionPercent,
-                    direction * (response.processValuePercent(k) - setpointPercent));
+            double excursion = direction * (response.processValuePercent(k) - setpointPercent);
+            largestExcursionPercent = excursion > largestExcursionPercent ? excursion : largestExcursionPercent;
         }
         double overshootPercent = 100 * largestExcursionPercent / Math.abs(stepPercent);
         return of(response, setpointPercent, bandPercent, OptionalDouble.of(overshootPercent));
@@ -101,7 +101,9 @@ public record StepMetrics(
         for (int k = 0; k < n; k++) {
             double error = setpointPercent - response.processValuePercent(k);
             double time = response.timeSeconds(k);
-            peak = Math.max(peak, Math.abs(error));
+            double size = Math.abs(error);
+            // a comparison, not a Math.max call: a response's samples are finite
+            peak = size > peak ? size : peak;
             if (Math.abs(error) > bandPercent) {
                 lastOutside = k;
             }
