@@ -35,6 +35,8 @@ public final class ControllerMismatch {
         double g = 0;
         double p = 0;
         double at = band.lowRadPerSecond();
+        // both paths the same in both laws: the setpoint path's figures are the feedback path's
+        feedbackOnly = feedbackOnly || samePaths(design, target);
         for (int k = 0; k < w.length; k++) {
             design.feedbackAt(w[k], a);
             target.feedbackAt(w[k], b);
@@ -64,17 +66,28 @@ public final class ControllerMismatch {
         double[] sp = new double[points];
         double[] a = new double[2];
         double[] b = new double[2];
+        boolean samePaths = samePaths(design, target);
         for (int k = 0; k < points; k++) {
             design.feedbackAt(w[k], a);
             target.feedbackAt(w[k], b);
             fg[k] = gainDb(a, b);
             fp[k] = phaseDeg(a, b);
+            if (samePaths) {
+                sg[k] = fg[k];
+                sp[k] = fp[k];
+                continue;
+            }
             design.setpointAt(w[k], a);
             target.setpointAt(w[k], b);
             sg[k] = gainDb(a, b);
             sp[k] = phaseDeg(a, b);
         }
         return new Curve(w, fg, fp, sg, sp);
+    }
+
+    /** Whether each law's setpoint path is its feedback path to the bit, so the setpoint curves repeat the feedback ones. */
+    private static boolean samePaths(ControlLaw design, PulseLaw target) {
+        return design.setpointPathIsFeedbackPath() && target.setpointPathIsFeedbackPath();
     }
 
     private static double gainDb(double[] a, double[] b) {
