@@ -42,6 +42,11 @@ final class ArgumentWalk {
     private final double delayTurnPerUnit;
     private boolean unresolved;
     private int evaluations;
+    /**
+     * Signed crossings of the principal argument's branch cut over the walk ({@link #wrapsOfStep});
+     * a double, so that an unresolved step's non-finite turn poisons the change as it used to.
+     */
+    private double wraps;
     /** Where along the path |1 + L| was smallest among the points evaluated, and that |1 + L|^2. */
     private double closestT = Double.NaN;
     private double closestReturnDifferenceSquared = Double.POSITIVE_INFINITY;
@@ -59,23 +64,32 @@ final class ArgumentWalk {
     /**
      * The net change of {@code arg(1 + L)}, radians, from the first to the last of the sorted,
      * distinct points {@code ts}, each interval refined as needed.
+     *
+     * <p>The change is the sum of every step's principal turn. It is added up without an arctangent
+     * per step: the sum of principal turns telescopes to {@code Arg(end) - Arg(start)} plus 2 pi for
+     * every step whose turn carries the argument across the branch cut of the principal argument
+     * (the negative real axis), signed by the turn's direction (see {@link #wrapsOfStep}). Each
+     * step's crossing is read from the signs of the imaginary parts and of the turn alone, so the
+     * count is exact integer arithmetic and the only arctangents are the two at the ends.
      */
     double change(double[] ts) {
         double[] sorted = ts.clone();
         Arrays.sort(sorted);
-        double total = 0;
+        wraps = 0;
         double[] left = new double[4];
         evaluate(sorted[0], left);
+        double[] first = left;
         for (int k = 1; k < sorted.length; k++) {
             if (!(sorted[k] > sorted[k - 1])) {
                 continue;
             }
             double[] right = new double[4];
             evaluate(sorted[k], right);
-            total += refine(sorted[k - 1], left, sorted[k], right, 0);
+            refine(sorted[k - 1], left, sorted[k], right, 0);
             left = right;
         }
-        return total;
+        return principalArgumentOfReturnDifference(left) - principalArgumentOfReturnDifference(first)
+                + 2 * Math.PI * wraps;
     }
 
     /** True when some step could not be resolved: 1 + L vanishes on (or within rounding of) the path. */
@@ -103,14 +117,15 @@ final class ArgumentWalk {
         }
     }
 
-    /** The value of 1 + L at the last point, as its principal argument. */
+    /** The principal argument of 1 + L at a point, in (-pi, pi]. */
     static double principalArgumentOfReturnDifference(double[] v) {
-        return Math.atan2(v[1], 1 + v[0]);
+        return principalArgument(v[1], 1 + v[0]);
     }
 
-    private double refine(double a, double[] fa, double b, double[] fb, int depth) {
+    private void refine(double a, double[] fa, double b, double[] fb, int depth) {
         if (acceptable(a, fa, b, fb)) {
-            return turn(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
+            wraps += wrapsOfStep(1 + fa[0], fa[1], 1 + fb[0], fb[1]);
+            return;
         }
         double scale = Math.max(Math.abs(a), Math.abs(b));
         if (b - a <= SMALLEST_STEP_RELATIVE * scale || evaluations >= MAX_EVALUATIONS || depth > 200) {
@@ -118,7 +133,10 @@ final class ArgumentWalk {
             if (Math.abs(turn) > Math.PI / 2) {
                 unresolved = true;
             }
-            return turn;
+            // an unresolved step: its principal turn, whatever it is, read against the two arguments
+            double arguments = principalArgumentOfReturnDifference(fb) - principalArgumentOfReturnDifference(fa);
+            wraps += (turn - arguments) / (2 * Math.PI);
+            return;
         }
         double mid = a > 0 && b > 1.5 * a ? Math.sqrt(a) * Math.sqrt(b) : 0.5 * (a + b);
         if (!(mid > a && mid < b)) {
@@ -126,7 +144,69 @@ final class ArgumentWalk {
         }
         double[] fm = new double[4];
         evaluate(mid, fm);
-        return refine(a, fa, mid, fm, depth + 1) + refine(mid, fm, b, fb, depth + 1);
+        refine(a, fa, mid, fm, depth + 1);
+        refine(mid, fm, b, fb, depth + 1);
+    }
+
+    /**
+     * How many times the principal turn from a to b crosses the branch cut of the principal argument,
+     * signed: +1 when a counter-clockwise turn goes from the upper half-plane (argument in (0, pi])
+     * to the lower one (argument in (-pi, 0]), -1 when a clockwise turn goes from the lower to the
+     * upper, 0 otherwise. Then {@code turn(a, b) = Arg(b) - Arg(a) + 2 pi wrapsOfStep(a, b)} for
+     * nonzero a and b, with Arg the principal argument in (-pi, pi] (the negative real axis at +pi
+     * whatever the sign of a zero imaginary part, {@link #principalArgument}) and the turn
+     * {@code atan2(Im(b conj a), Re(b conj a))} in [-pi, pi].
+     *
+     * <p>Derivation: {@code Arg(a) + t} differs from {@code Arg(b)} by 2 pi k. For t in (0, pi] it lies
+     * in (Arg(a), Arg(a) + pi]: when a is upper and b lower it lies in (0, 2 pi] while Arg(b) lies in
+     * (-pi, 0], so k = 1; when a is lower it lies in (-pi, pi], so k = 0; when both are upper it lies
+     * in (0, 2 pi] and Arg(b) in (0, pi], so k = 0. For t in [-pi, 0) the mirror holds, and t = 0
+     * leaves Arg unchanged (common practice: a winding number counted by signed crossings of a ray).
+     */
+    static int wrapsOfStep(double ar, double ai, double br, double bi) {
+        boolean upperA = upper(ai, ar);
+        boolean upperB = upper(bi, br);
+        if (upperA == upperB) {
+            return 0;
+        }
+        double cross = bi * ar - br * ai;
+        double dot = br * ar + bi * ai;
+        if (upperA) {
+            return positiveTurn(cross, dot) ? 1 : 0;
+        }
+        return negativeTurn(cross, dot) ? -1 : 0;
+    }
+
+    /** Whether the principal argument of x + i y lies in (0, pi]: the upper half-plane and the negative real axis. */
+    private static boolean upper(double y, double x) {
+        return y > 0 || (y == 0 && x < 0);
+    }
+
+    /** Whether {@code Math.atan2(y, x) > 0}, without the arctangent (signed zeros as atan2 reads them). */
+    static boolean positiveTurn(double y, double x) {
+        if (y > 0) {
+            return true;
+        }
+        // atan2(+0, x) is +pi for x < 0 or x = -0, and +0 otherwise
+        return y == 0 && !isNegativeZero(y) && (x < 0 || isNegativeZero(x));
+    }
+
+    /** Whether {@code Math.atan2(y, x) < 0}, without the arctangent (signed zeros as atan2 reads them). */
+    static boolean negativeTurn(double y, double x) {
+        if (y < 0) {
+            return true;
+        }
+        // atan2(-0, x) is -pi for x < 0 or x = -0, and -0 otherwise
+        return isNegativeZero(y) && (x < 0 || isNegativeZero(x));
+    }
+
+    private static boolean isNegativeZero(double v) {
+        return Double.doubleToRawLongBits(v) == Long.MIN_VALUE;
+    }
+
+    /** The principal argument of x + i y in (-pi, pi]: a zero imaginary part counts as +0 ({@code -0.0 + 0.0 = +0.0}). */
+    static double principalArgument(double y, double x) {
+        return Math.atan2(y + 0.0, x);
     }
 
     /** tan of the largest accepted turn, and the squared bounds of the accepted magnitude ratio. */

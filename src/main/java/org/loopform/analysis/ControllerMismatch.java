@@ -27,20 +27,30 @@ public final class ControllerMismatch {
     /** The largest deviation over {@code band}, of the feedback path alone or of both paths. */
     public static LawDeviation over(ControlLaw design, PulseLaw target, FrequencyBand band,
                                     boolean feedbackOnly) {
-        Curve c = curve(design, target, band, GRID_POINTS);
+        // the curve's figures point by point, without its arrays; the setpoint path is evaluated
+        // only when it is asked for
+        double[] w = band.grid(GRID_POINTS);
+        double[] a = new double[2];
+        double[] b = new double[2];
         double g = 0;
         double p = 0;
         double at = band.lowRadPerSecond();
-        for (int k = 0; k < c.omegas().length; k++) {
-            double gk = Math.abs(c.feedbackGainDb()[k]);
-            double pk = Math.abs(c.feedbackPhaseDeg()[k]);
+        // both paths the same in both laws: the setpoint path's figures are the feedback path's
+        feedbackOnly = feedbackOnly || samePaths(design, target);
+        for (int k = 0; k < w.length; k++) {
+            design.feedbackAt(w[k], a);
+            target.feedbackAt(w[k], b);
+            double gk = Math.abs(gainDb(a, b));
+            double pk = Math.abs(phaseDeg(a, b));
             if (!feedbackOnly) {
-                gk = Math.max(gk, Math.abs(c.setpointGainDb()[k]));
-                pk = Math.max(pk, Math.abs(c.setpointPhaseDeg()[k]));
+                design.setpointAt(w[k], a);
+                target.setpointAt(w[k], b);
+                gk = Math.max(gk, Math.abs(gainDb(a, b)));
+                pk = Math.max(pk, Math.abs(phaseDeg(a, b)));
             }
             if (gk > g) {
                 g = gk;
-                at = c.omegas()[k];
+                at = w[k];
             }
             p = Math.max(p, pk);
         }
@@ -56,17 +66,28 @@ public final class ControllerMismatch {
         double[] sp = new double[points];
         double[] a = new double[2];
         double[] b = new double[2];
+        boolean samePaths = samePaths(design, target);
         for (int k = 0; k < points; k++) {
             design.feedbackAt(w[k], a);
             target.feedbackAt(w[k], b);
             fg[k] = gainDb(a, b);
             fp[k] = phaseDeg(a, b);
+            if (samePaths) {
+                sg[k] = fg[k];
+                sp[k] = fp[k];
+                continue;
+            }
             design.setpointAt(w[k], a);
             target.setpointAt(w[k], b);
             sg[k] = gainDb(a, b);
             sp[k] = phaseDeg(a, b);
         }
         return new Curve(w, fg, fp, sg, sp);
+    }
+
+    /** Whether each law's setpoint path is its feedback path to the bit, so the setpoint curves repeat the feedback ones. */
+    private static boolean samePaths(ControlLaw design, PulseLaw target) {
+        return design.setpointPathIsFeedbackPath() && target.setpointPathIsFeedbackPath();
     }
 
     private static double gainDb(double[] a, double[] b) {

@@ -238,6 +238,19 @@ public final class SampledStability {
             this.poles = List.copyOf(loop.openLoopPoles());
         }
 
+        /** 10^(k / POINTS_PER_DECADE), from a table for the usual k (the same values Math.pow gives). */
+        private static double decadeStep(int k) {
+            return k < DECADE_STEPS.length ? DECADE_STEPS[k] : Math.pow(10, (double) k / POINTS_PER_DECADE);
+        }
+
+        private static final double[] DECADE_STEPS = new double[POINTS_PER_DECADE * 40];
+
+        static {
+            for (int k = 0; k < DECADE_STEPS.length; k++) {
+                DECADE_STEPS[k] = Math.pow(10, (double) k / POINTS_PER_DECADE);
+            }
+        }
+
         private int walkOutside(double offset) {
             // a circle through an open-loop pole has no winding number: step just outside the pole
             for (Complex p : poles) {
@@ -248,7 +261,8 @@ public final class SampledStability {
             }
             double radius = 1 + offset;
             int openLoopOutside = 0;
-            List<Double> points = new ArrayList<>();
+            double[] points = new double[2 + BASE_POINTS + WINDOW.length * poles.size() + 64];
+            int size = 0;
             double finest = 1e-7;
             for (Complex p : poles) {
                 double r = p.abs();
@@ -260,22 +274,32 @@ public final class SampledStability {
                 for (double k : WINDOW) {
                     double t = angle + k * width;
                     if (t > 0 && t < Math.PI) {
-                        points.add(t);
+                        points[size++] = t;
                         finest = Math.min(finest, t);
                     }
                 }
             }
-            points.add(0.0);
-            points.add(Math.PI);
+            points[size++] = 0.0;
+            points[size++] = Math.PI;
             for (int k = 1; k < BASE_POINTS; k++) {
-                points.add(Math.PI * k / BASE_POINTS);
+                points[size++] = Math.PI * k / BASE_POINTS;
             }
             int decades = (int) Math.ceil(Math.log10(Math.PI / finest));
-            for (int k = 0; k < decades * POINTS_PER_DECADE; k++) {
-                points.add(finest * Math.pow(10, (double) k / POINTS_PER_DECADE));
+            if (size + decades * POINTS_PER_DECADE > points.length) {
+                points = java.util.Arrays.copyOf(points, size + decades * POINTS_PER_DECADE);
             }
-            double[] ts = points.stream().mapToDouble(Double::doubleValue).filter(t -> t >= 0 && t <= Math.PI)
-                    .toArray();
+            for (int k = 0; k < decades * POINTS_PER_DECADE; k++) {
+                points[size++] = finest * decadeStep(k);
+            }
+            // every point lies in [0, pi] by construction but the log-spaced ones may pass pi
+            int kept = 0;
+            for (int k = 0; k < size; k++) {
+                double t = points[k];
+                if (t >= 0 && t <= Math.PI) {
+                    points[kept++] = t;
+                }
+            }
+            double[] ts = java.util.Arrays.copyOf(points, kept);
             final double circle = offset;
             ArgumentWalk walk = new ArgumentWalk((theta, out) -> loop.at(circle, theta, out), loop.delayScans());
             double turns = walk.change(ts) / Math.PI;

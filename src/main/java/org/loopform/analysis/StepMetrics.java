@@ -66,8 +66,8 @@ public record StepMetrics(
         double direction = Math.signum(stepPercent);
         double largestExcursionPercent = 0;
         for (int k = 0; k < response.size(); k++) {
-            largestExcursionPercent = Math.max(largestExcursionPercent,
-                    direction * (response.processValuePercent(k) - setpointPercent));
+            double excursion = direction * (response.processValuePercent(k) - setpointPercent);
+            largestExcursionPercent = excursion > largestExcursionPercent ? excursion : largestExcursionPercent;
         }
         double overshootPercent = 100 * largestExcursionPercent / Math.abs(stepPercent);
         return of(response, setpointPercent, bandPercent, OptionalDouble.of(overshootPercent));
@@ -96,18 +96,23 @@ public record StepMetrics(
         double peak = 0;
         double travel = 0;
         int lastOutside = -1;
+        double previous = 0;
+        double previousTime = 0;
         for (int k = 0; k < n; k++) {
             double error = setpointPercent - response.processValuePercent(k);
-            peak = Math.max(peak, Math.abs(error));
+            double time = response.timeSeconds(k);
+            double size = Math.abs(error);
+            // a comparison, not a Math.max call: a response's samples are finite
+            peak = size > peak ? size : peak;
             if (Math.abs(error) > bandPercent) {
                 lastOutside = k;
             }
             if (k > 0) {
-                double previous = setpointPercent - response.processValuePercent(k - 1);
-                double dt = response.timeSeconds(k) - response.timeSeconds(k - 1);
-                iae += trapezoidOfAbsolute(previous, error, dt);
+                iae += trapezoidOfAbsolute(previous, error, time - previousTime);
                 travel += Math.abs(response.controllerOutputPercent(k) - response.controllerOutputPercent(k - 1));
             }
+            previous = error;
+            previousTime = time;
         }
         OptionalDouble settling;
         if (lastOutside == n - 1) {

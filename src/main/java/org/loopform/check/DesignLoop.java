@@ -60,8 +60,8 @@ final class DesignLoop {
             SampledStateSpace sampled = process.sampled(sourceScan);
             LoopMargins margins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
                     0.1 / sourceScan), sourceScan)).analyze(LoopBand.sampledLoop(pulse, sampled));
-            // stability from the closed-loop poles, never from the margins alone
-            LoopStability stability = SampledStability.of(new SampledOpenLoop(pulse, process.sampled(sourceScan)));
+            // stability from the closed-loop poles, never from the margins alone (the sampling is immutable: shared)
+            LoopStability stability = SampledStability.of(new SampledOpenLoop(pulse, sampled));
             return new DesignLoop(loop, conversion, process, margins, stability);
         }
         LoopResponse response = LoopBand.continuousLoop(law, process);

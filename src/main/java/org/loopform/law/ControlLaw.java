@@ -52,6 +52,15 @@ public record ControlLaw(PidTerms terms) {
     }
 
     /**
+     * True when the setpoint path is the feedback path to the bit ({@code pr = p} and {@code dr = d}),
+     * so that {@link #setpointAt} gives exactly what {@link #feedbackAt} gives.
+     */
+    public boolean setpointPathIsFeedbackPath() {
+        return Double.doubleToLongBits(terms.pr()) == Double.doubleToLongBits(terms.p())
+                && Double.doubleToLongBits(terms.dr()) == Double.doubleToLongBits(terms.d());
+    }
+
+    /**
      * C_y(i omega) written into {@code out} as {re, im}, without allocating.
      */
     public void feedbackAt(double omegaRadPerSecond, double[] out) {

@@ -15,7 +15,11 @@ final class ComplexLinearSolve {
             int pivot = col;
             double best = -1.0;
             for (int row = col; row < n; row++) {
-                double size = Math.hypot(mRe[row * n + col], mIm[row * n + col]);
+                // the squared modulus picks the same pivot as the modulus (the pivot's squared modulus
+                // divides below anyway) without StrictMath's slow hypot
+                double re = mRe[row * n + col];
+                double im = mIm[row * n + col];
+                double size = re * re + im * im;
                 if (size > best) {
                     best = size;
                     pivot = row;

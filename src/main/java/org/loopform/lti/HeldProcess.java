@@ -190,6 +190,14 @@ public final class HeldProcess {
             state[0] = a[0] * state[0] + b[0] * v;
             return;
         }
+        if (order == 2) {
+            // the loop below written out, term for term in the same order (same rounding)
+            double x0 = state[0];
+            double x1 = state[1];
+            state[0] = b[0] * v + a[0] * x0 + a[1] * x1;
+            state[1] = b[1] * v + a[2] * x0 + a[3] * x1;
+            return;
+        }
         for (int i = 0; i < order; i++) {
             double sum = b[i] * v;
             int row = i * order;
@@ -204,6 +212,9 @@ public final class HeldProcess {
     }
 
     private double outputWith(double input) {
+        if (order == 2) {
+            return d * input + c[0] * state[0] + c[1] * state[1];
+        }
         double y = d * input;
         for (int i = 0; i < order; i++) {
             y += c[i] * state[i];

@@ -66,6 +66,16 @@ public final class SampledProcess {
             double y = d * arriving;
             return y + c[0] * x;
         }
+        if (order == 2) {
+            // the second-order case written out, term for term in the general order (same rounding)
+            double x0 = state[0];
+            double x1 = state[1];
+            double n0 = b0[0] * arriving + b1[0] * leaving + a[0] * x0 + a[1] * x1;
+            double n1 = b0[1] * arriving + b1[1] * leaving + a[2] * x0 + a[3] * x1;
+            state[0] = n0;
+            state[1] = n1;
+            return d * arriving + c[0] * n0 + c[1] * n1;
+        }
         for (int i = 0; i < order; i++) {
             double sum = b0[i] * arriving + b1[i] * leaving;
             int row = i * order;

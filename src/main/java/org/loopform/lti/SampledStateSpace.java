@@ -189,6 +189,10 @@ public final class SampledStateSpace {
         // z^-1 = e^(-i theta) / radius
         double invRe = cos / radius;
         double invIm = -sin / radius;
+        if (n == 1) {
+            solveFirstOrder(zMinusOneRe, zIm, invRe, invIm, workspace);
+            return;
+        }
         double[] mRe = workspace.matrixRe;
         double[] mIm = workspace.matrixIm;
         double[] rRe = workspace.vectorRe;
@@ -212,6 +216,24 @@ public final class SampledStateSpace {
         }
         workspace.hRe = hRe;
         workspace.hIm = hIm;
+    }
+
+    /**
+     * The general solve written out for order 1, operation for operation (same rounding):
+     * {@code x = (b0 + b1 / z) / (z - a)} and {@code H = c x + d / z}.
+     */
+    private void solveFirstOrder(double zMinusOneRe, double zIm, double invRe, double invIm, Workspace workspace) {
+        double pRe = (1 - stateRowMajor[0]) + zMinusOneRe;
+        double pIm = zIm;
+        double sRe = inputNow[0] + inputPrevious[0] * invRe;
+        double sIm = inputPrevious[0] * invIm;
+        double pMag2 = pRe * pRe + pIm * pIm;
+        double xRe = (sRe * pRe + sIm * pIm) / pMag2;
+        double xIm = (sIm * pRe - sRe * pIm) / pMag2;
+        double hRe = feedthrough * invRe;
+        double hIm = feedthrough * invIm;
+        workspace.hRe = hRe + output[0] * xRe;
+        workspace.hIm = hIm + output[0] * xIm;
     }
 
     /** The eigenvalues of A, the sampled process's poles other than the delay line's at z = 0, as {re, im} pairs. */

@@ -60,6 +60,20 @@ public final class PulseLaw {
         evaluate(omegaRadPerSecond, wiring.kp(), wiring.measurementLeadSeconds(), wiring.kd(), out);
     }
 
+    /**
+     * True when the setpoint path is the feedback path to the bit (same proportional weight, lead and
+     * derivative), so that {@link #setpointAt} gives exactly what {@link #feedbackAt} gives.
+     */
+    public boolean setpointPathIsFeedbackPath() {
+        return same(wiring.kp() * wiring.b(), wiring.kp())
+                && same(wiring.setpointLeadSeconds(), wiring.measurementLeadSeconds())
+                && same(wiring.kd() * wiring.cd(), wiring.kd());
+    }
+
+    private static boolean same(double a, double b) {
+        return Double.doubleToLongBits(a) == Double.doubleToLongBits(b);
+    }
+
     /** C_r(e^(i omega h)) into {@code out} as {re, im}, without allocating; omega > 0 rad/s. */
     public void setpointAt(double omegaRadPerSecond, double[] out) {
         evaluate(omegaRadPerSecond, wiring.kp() * wiring.b(), wiring.setpointLeadSeconds(),

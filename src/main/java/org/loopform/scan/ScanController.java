@@ -251,7 +251,10 @@ public final class ScanController {
     }
 
     private double limit(double v) {
-        return Math.max(lowPercent, Math.min(highPercent, v));
+        // Math.max(low, Math.min(high, v)) by comparisons (Math.min and max are calls, not single
+        // instructions, under the client compiler the launcher runs); NaN passes through as before
+        double below = highPercent <= v ? highPercent : v;
+        return lowPercent >= below ? lowPercent : below;
     }
 
     /** The output written by the last scan (or set by {@link #reset}), %. */

@@ -213,9 +213,17 @@ public final class SampledResponse {
                 throw new IllegalStateException("recorded " + count + " of " + processValuesPercent.length
                         + " samples");
             }
+            // x * 0 is 0 for a finite x and NaN otherwise: one sum says whether any sample is not
+            // finite, and only then are they searched for the first one
+            double poison = 0;
             for (int k = 0; k < count; k++) {
-                requireFinite("process value", k, processValuesPercent[k]);
-                requireFinite("controller output", k, controllerOutputsPercent[k]);
+                poison += processValuesPercent[k] * 0.0 + controllerOutputsPercent[k] * 0.0;
+            }
+            if (poison != 0) {
+                for (int k = 0; k < count; k++) {
+                    requireFinite("process value", k, processValuesPercent[k]);
+                    requireFinite("controller output", k, controllerOutputsPercent[k]);
+                }
             }
             SampledResponse r = new SampledResponse(null, stepSeconds, offsetsSeconds, processValuesPercent,
                     controllerOutputsPercent);

@@ -69,8 +69,9 @@ public record StepTest(double operatingPvPercent, double operatingOutputPercent,
             double high = Double.NEGATIVE_INFINITY;
             for (int k = 0; k < run.size(); k++) {
                 double u = run.controllerOutputPercent(k);
-                low = Math.min(low, u);
-                high = Math.max(high, u);
+                // comparisons, not Math.min/max calls: a response's samples are finite
+                low = u < low ? u : low;
+                high = u > high ? u : high;
             }
             return new OutputExtremes(low, high);
         }

@@ -194,4 +194,29 @@ class PulseLawTest {
         assertThatThrownBy(() -> PulseLaw.of(Setups.ideal(1, 10, 1, 0.1, 1, 1), FilterPlacement.DERIVATIVE,
                 Discretization.BACKWARD, Discretization.BACKWARD, -1)).hasMessageContaining("got -1.0 s");
     }
+
+    /**
+     * The setpoint path is the feedback path exactly when the setpoint weights are 1 (b = c = 1 makes
+     * C_r = C_y; Astrom and Hagglund, PID Controllers, 1995, section 3.4, set-point weighting - from
+     * memory for the section): then the two evaluations agree to the bit, and with b = 0.5 or c = 0 they
+     * differ. The mismatch skips the setpoint path on this flag, so a false "same" would hide a mismatch.
+     */
+    @Test
+    void the_setpoint_path_is_the_feedback_path_only_with_unit_weights() {
+        PulseLaw same = PulseLaw.of(Setups.ideal(1.3, 10, 1, 0.1, 1, 1), FilterPlacement.DERIVATIVE,
+                Discretization.TRAPEZOIDAL, Discretization.BACKWARD, 0.5);
+        assertThat(same.setpointPathIsFeedbackPath()).isTrue();
+        double[] fb = new double[2];
+        double[] sp = new double[2];
+        for (double w = 0.01; w < Math.PI / 0.5; w *= 1.7) {
+            same.feedbackAt(w, fb);
+            same.setpointAt(w, sp);
+            assertThat(sp).as("omega %s", w).containsExactly(fb[0], fb[1]);
+        }
+        for (PidSetting weighted : List.of(Setups.ideal(1.3, 10, 1, 0.1, 0.5, 1), Setups.ideal(1.3, 10, 1, 0.1, 1, 0))) {
+            PulseLaw law = PulseLaw.of(weighted, FilterPlacement.DERIVATIVE, Discretization.TRAPEZOIDAL,
+                    Discretization.BACKWARD, 0.5);
+            assertThat(law.setpointPathIsFeedbackPath()).as("b %s c %s", weighted.b(), weighted.c()).isFalse();
+        }
+    }
 }
