@@ -59,6 +59,8 @@ class FormDefinitionTest {
                     DerivativeWriting.TIME, RATIO, Weight.fixed(1), Weight.fixed(1), Map.of()))
                     .hasMessageContaining("title:");
             assertThat(ideal("a").description()).isEmpty();
+            // an integral time off at 0 says so plainly (not "0 or more")
+            assertThat(ideal("a").parameters().get(1).meaning()).isEqualTo("integral time per repeat (0: off)");
         }
 
         @Test
@@ -170,6 +172,10 @@ class FormDefinitionTest {
             assertThat(f.parameterNames()).containsExactly("kc", "ti", "td", "tf");
             assertThat(f.parameters().get(1).meaning()).isEqualTo("integral time per repeat (9999 or more: off)");
             assertThat(f.parameters().get(3).defaultValue()).isEqualTo(2.0);
+            // 'action' is a setting, not a number: no limits for it
+            assertThatThrownBy(() -> new FormDefinition("b", "t", "", Structure.IDEAL, f.gain(), f.integral(),
+                    f.derivative(), f.filter(), f.b(), f.c(), Map.of("action", new ParameterLimit(0.0, 1.0, null)),
+                    f.algorithm())).hasMessageContaining("limits.action: form b has no parameter 'action'");
             assertThat(f.unitOf("tf")).isEqualTo("s");
             assertThat(f.unitOf("action")).isEqualTo("reverse|direct");
         }

@@ -147,6 +147,19 @@ class FormRecordsTest {
     class Parts {
 
         @Test
+        void a_catalog_holds_forms_by_id_in_id_order_and_refuses_a_twin() {
+            FormDefinition b = TestForms.unfiltered(Structure.SERIES);
+            FormDefinition a = TestForms.unfiltered(Structure.IDEAL);
+            Catalog c = new Catalog(List.of(b, a));
+            assertThat(c.ids()).containsExactly("ideal-nofilter", "series-nofilter");
+            assertThat(c.all()).containsExactly(a, b);
+            assertThat(c.find("series-nofilter")).contains(b);
+            assertThat(c.find("x")).isEmpty();
+            assertThatThrownBy(() -> new Catalog(List.of(a, a))).hasMessageContaining("two forms with id ideal-nofilter");
+            assertThat(FormUnits.of(a, "ti")).isEqualTo("s/repeat");
+        }
+
+        @Test
         void reverse_action_is_a_positive_gain() {
             assertThat(Action.REVERSE.sign()).isEqualTo(1.0);
             assertThat(Action.DIRECT.sign()).isEqualTo(-1.0);
@@ -253,6 +266,9 @@ class FormRecordsTest {
             assertThat(list.allowsScan(0.5)).isTrue();
             assertThat(list.allowsScan(0.5 * (1 + 1e-10))).isTrue();
             assertThat(list.allowsScan(0.25)).isFalse();
+            // the match is relative, 1e-9 of the allowed time: 0.1 s +- 1e-10 s
+            assertThat(list.allowsScan(0.1 + 5e-11)).isTrue();
+            assertThat(list.allowsScan(0.1 + 5e-9)).isFalse();
             DiscreteAlgorithm range = new DiscreteAlgorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD,
                     Discretization.BACKWARD, AntiWindup.CLAMPING, 0, 0, 100, List.of(), 0.1, 2);
             assertThat(range.allowsScan(0.1)).isTrue();

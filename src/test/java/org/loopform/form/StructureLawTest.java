@@ -132,6 +132,52 @@ class StructureLawTest {
         }
 
         @Test
+        void ideal_recovers_a_second_setting_with_no_unit_values() {
+            // K 4, Ti 8 s, Td 2 s, Tf 0.25 s, b 0.5, c 0.25 multiplied out as above:
+            // p = 4 (1 + 0.25/8) = 4.125, i = 0.5, d = 4 (0.25 + 2) = 9, pr = 4 (0.5 + 0.03125) = 2.125,
+            // dr = 4 (0.5 * 0.25 + 0.25 * 2) = 2.5; back: K = 4.125 - 0.125 = 4, Ti = 4/0.5 = 8,
+            // Td = 9/4 - 0.25 = 2, b = (2.125 - 0.125)/4 = 0.5, c = (2.5/4 - 0.5 * 0.25)/2 = 0.25
+            PidSetting s = new PidSetting(Structure.IDEAL, 4, 8, 2, 0.25, 0.5, 0.25);
+            assertTerms(StructureLaw.toTerms(s, FilterPlacement.DERIVATIVE), 4.125, 0.5, 9, 0.25, 2.125, 2.5);
+            assertSetting(StructureLaw.fromTerms(new PidTerms(4.125, 0.5, 9, 0.25, 2.125, 2.5), Structure.IDEAL,
+                    FilterPlacement.DERIVATIVE, 1), 4, 8, 2, 0.5, 0.25);
+        }
+
+        @Test
+        void ideal_calls_a_negative_derivative_time_rounding_only_below_1e_12_of_ti() {
+            // K 2, Ti 10 s, Tf 0.5 s and d = K (Tf + Td) with Td = -1e-12 s: 1e-12 s is a tenth of
+            // 1e-12 Ti, so it is rounding (Td = 0); Td = -1e-10 s is ten times it, so no setting exists
+            PidSetting s = StructureLaw.fromTerms(new PidTerms(2.1, 0.2, 2 * (0.5 - 1e-12), 0.5, 2.1, 1),
+                    Structure.IDEAL, FilterPlacement.DERIVATIVE, 1);
+            assertThat(s).isNotNull();
+            assertThat(s.derivative()).isZero();
+            assertThat(StructureLaw.fromTerms(new PidTerms(2.1, 0.2, 2 * (0.5 - 1e-10), 0.5, 2.1, 1),
+                    Structure.IDEAL, FilterPlacement.DERIVATIVE, 1)).isNull();
+        }
+
+        @Test
+        void parallel_calls_a_negative_derivative_rounding_only_below_1e_12_of_d_over_kp() {
+            // kp 2, Tf 0.5 s, kd = d - kp Tf = -2e-12 s: kd/kp = -1e-12 s against 1e-12 |d/kp| = 5e-13 s: no setting
+            assertThat(StructureLaw.fromTerms(new PidTerms(2, 0, 1 - 2e-12, 0.5, 2, 0), Structure.PARALLEL,
+                    FilterPlacement.DERIVATIVE, 1)).isNull();
+            // kp 0.5, kd = -5e-13 s: kd/kp = -1e-12 s against 1e-12 |d/kp| = 1e-12 * 0.5 = 5e-13 s: no setting
+            assertThat(StructureLaw.fromTerms(new PidTerms(0.5, 0, 0.25 - 5e-13, 0.5, 0.5, 0), Structure.PARALLEL,
+                    FilterPlacement.DERIVATIVE, 1)).isNull();
+            // kp 2, kd = -2e-16 s: kd/kp = -1e-16 s, far below 5e-13 s: rounding, kd = 0
+            assertThat(StructureLaw.fromTerms(new PidTerms(2, 0, 1 - 2e-16, 0.5, 2, 0), Structure.PARALLEL,
+                    FilterPlacement.DERIVATIVE, 1).derivative()).isZero();
+        }
+
+        @Test
+        void series_writes_a_pi_law_with_zero_derivative_time() {
+            // p = 1, i = 0.1, d = 0: p^2 - 4 d i = 1, K = (1 + 1)/2 = 1, Ti = 10 s, Td = 0
+            assertSetting(StructureLaw.fromTerms(new PidTerms(1, 0.1, 0, 0, 1, 0), Structure.SERIES,
+                    FilterPlacement.DERIVATIVE, 1), 1, 10, 0, 1, 1);
+            // the discriminant p^2 - 4 d i of p = 2, d = 3, i = 0.5: 4 - 6 = -2
+            assertThat(StructureLaw.seriesDiscriminant(new PidTerms(2, 0.5, 3, 0, 2, 3))).isCloseTo(-2, within(TOL));
+        }
+
+        @Test
         void ideal_without_integral_has_an_infinite_ti() {
             PidSetting s = StructureLaw.fromTerms(new PidTerms(2, 0, 3, 0.5, 1.6, 1.8), Structure.IDEAL,
                     FilterPlacement.DERIVATIVE, 1);
