@@ -206,4 +206,58 @@ class ConversionNotesTest {
             assertThat(convert(same, "kc", "1", "ti", "20", "td", "2", "n", "10").notes()).isEmpty();
         }
     }
+
+    @Nested
+    @DisplayName("what a conversion states beside its values")
+    class Stated {
+
+        @Test
+        void complex_zeros_into_a_series_form_are_noted_with_ti_over_td() {
+            // ideal K 2, Ti 3 s, Td 1 s unfiltered: Ti < 4 Td, so no series setting writes it (Astrom and
+            // Hagglund 1995, sec. 3.4). p^2/(d i) = K^2/(K Td K/Ti) = Ti/Td = 3
+            Conversion c = Converter.convert(TestForms.unfiltered(Structure.IDEAL), Map.of("kc", "2", "ti", "3", "td", "1"),
+                    TestForms.unfiltered(Structure.SERIES), WritingContext.NONE);
+            assertThat(c.exact()).isFalse();
+            ConversionNote.Inexact n = only(c, ConversionNote.Inexact.class);
+            assertThat(n.complexZerosRatio().getAsDouble()).isCloseTo(3, within(1e-12));
+            assertThat(n.derivative()).isTrue();
+            assertThat(n.filterBound()).isTrue();
+            assertThat(n.sourceHighFrequencyGain()).isInfinite();
+            assertThat(n.feedbackExact()).isFalse();
+            assertThat(c.deviation().gainDb()).isPositive();
+            assertThat(c.loopDeviation().gainDb()).isPositive();
+        }
+
+        @Test
+        void a_series_source_needing_another_ratio_says_a_series_form_is_involved() {
+            // series K 1, Ti 20 s, Td 2 s, N 5 (Tf 0.4 s) into an ideal form: exact with Tf 0.4 s, whose
+            // ratio to the ideal Td is not the target's default 10; the textbook values (which ignore
+            // the filter) differ from the exact ones, so their cost is stated too
+            Conversion c = Converter.convert(TestForms.of("ser", Structure.SERIES, RATIO_10),
+                    Map.of("kc", "1", "ti", "20", "td", "2", "n", "5"), ideal("t", RATIO_10, 0, Map.of()),
+                    WritingContext.NONE);
+            assertThat(c.exact()).isTrue();
+            ConversionNote.FilterSettingNeeded f = only(c, ConversionNote.FilterSettingNeeded.class);
+            assertThat(f.seriesInvolved()).isTrue();
+            assertThat(f.textbookCost()).isPresent();
+            assertThat(c.textbook()).isNotNull();
+        }
+
+        @Test
+        void defaults_the_user_did_not_give_are_stated_as_assumptions() {
+            FormDefinition tc = ideal("tc", new FilterSpec(FilterKind.TIME_CONSTANT, FilterPlacement.DERIVATIVE, 10,
+                    TimeUnit.SECONDS, 2), 0, Map.of());
+            Conversion c = Converter.convert(tc, Map.of("kc", "1", "ti", "20", "td", "2"), tc, WritingContext.NONE);
+            assertThat(c.assumptions()).singleElement().asString()
+                    .startsWith("No tf was given for tc; its default derivative filter time constant 2 s was assumed");
+            assertThat(Converter.convert(tc, Map.of("kc", "1", "ti", "20", "td", "2", "tf", "1"), tc,
+                    WritingContext.NONE).assumptions()).isEmpty();
+            Conversion r = Converter.convert(SOURCE, Map.of("kc", "1", "ti", "20", "td", "2"), SOURCE, WritingContext.NONE);
+            assertThat(r.assumptions()).singleElement().asString().startsWith("No n was given for src; its default"
+                    + " derivative filter ratio N = 10 (Tf = Td/10) was assumed");
+            // without derivative action there is no filter to assume
+            assertThat(Converter.convert(SOURCE, Map.of("kc", "1", "ti", "20", "td", "0"), SOURCE, WritingContext.NONE)
+                    .assumptions()).isEmpty();
+        }
+    }
 }
