@@ -189,4 +189,18 @@ class NearestFitTest {
             assertRecovers(fit(to, truth, start), truth);
         }
     }
+
+    @Test
+    void a_derivative_below_1e_12_of_the_proportional_gain_at_high_frequency_is_not_fitted() {
+        // d/tf = 1e-14 against p = 1: the derivative's high-frequency gain is nothing the loop feels, so
+        // the fit keeps no derivative action at all (exactly 0) and no filter
+        FormDefinition to = target(Structure.IDEAL, filter(FilterKind.RATIO, 10), Weight.fixed(1), Weight.fixed(1));
+        ControlLaw law = new ControlLaw(new org.loopform.law.PidTerms(1, 0.1, 1e-14, 1, 1, 1e-14));
+        FrequencyBand band = TuningBand.implied(law.terms(), 0);
+        PidSetting got = new NearestFit(to, law, band, TuningBand.whereLoopLives(law.terms(), 0))
+                .fit(new PidSetting(Structure.IDEAL, 2, 5, 0, 0, 1, 1));
+        assertThat(got.derivative()).isZero();
+        assertThat(got.filterSeconds()).isZero();
+        assertThat(got.gain()).isPositive();
+    }
 }
