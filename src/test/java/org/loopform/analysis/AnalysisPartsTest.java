@@ -175,4 +175,99 @@ class AnalysisPartsTest {
                     Double.POSITIVE_INFINITY)).hasMessageContaining("output travel");
         }
     }
+
+    @Nested
+    @DisplayName("loop margins")
+    class Margins {
+
+        private final OptionalDouble none = OptionalDouble.empty();
+
+        private LoopMargins margins(double gm, double pm, double ms) {
+            return new LoopMargins(OptionalDouble.of(gm), OptionalDouble.of(1), OptionalDouble.of(pm),
+                    OptionalDouble.of(0.5), OptionalDouble.of(2), ms, 0.8);
+        }
+
+        @Test
+        void margins_are_positive_above_a_gain_of_1_and_a_phase_of_0() {
+            assertThat(margins(2, 45, 1.5).marginsPositive()).isTrue();
+            assertThat(margins(1, 45, 1.5).marginsPositive()).isFalse();
+            assertThat(margins(2, 0, 1.5).marginsPositive()).isFalse();
+            assertThat(margins(0.5, 45, 1.5).marginsPositive()).isFalse();
+            assertThat(new LoopMargins(none, none, none, none, none, 1.2, 1).marginsPositive()).isTrue();
+        }
+
+        @Test
+        void the_delay_margin_in_scans_is_the_delay_margin_over_the_scan_time() {
+            // DM / h: 2 s over 0.5 s = 4 scans
+            assertThat(margins(2, 45, 1.5).delayMarginScans(0.5).getAsDouble()).isEqualTo(4.0);
+            assertThat(new LoopMargins(none, none, none, none, none, 1.2, 1).delayMarginScans(0.5)).isEmpty();
+            assertThatThrownBy(() -> margins(2, 45, 1.5).delayMarginScans(0)).hasMessageContaining("scan time");
+            assertThatThrownBy(() -> margins(2, 45, 1.5).delayMarginScans(Double.POSITIVE_INFINITY))
+                    .hasMessageContaining("scan time");
+            assertThat(new LoopMargins(none, none, none, none, none, 1.2, 1).delayMarginNote())
+                    .contains(MarginNote.NOT_IN_BAND);
+        }
+
+        @Test
+        void ms_of_a_strictly_proper_loop_is_at_least_1_read_at_the_band_top() {
+            // |S| -> 1 as |L| -> 0 at high frequency, so the supremum is at least 1
+            LoopMargins low = margins(2, 45, 0.9).withSensitivityAtLeastOne(100);
+            assertThat(low.maximumSensitivity()).isEqualTo(1.0);
+            assertThat(low.maximumSensitivityRadPerSecond()).isEqualTo(100);
+            LoopMargins one = margins(2, 45, 1.0);
+            assertThat(one.withSensitivityAtLeastOne(100)).isSameAs(one);
+            LoopMargins high = margins(2, 45, 1.7);
+            assertThat(high.withSensitivityAtLeastOne(100)).isSameAs(high);
+        }
+
+        @Test
+        void each_figure_is_checked_where_it_is_given() {
+            assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(0), none, none, none, 1.2, 1))
+                    .hasMessageContaining("phase crossover must be finite and > 0 (got 0.0)");
+            assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(Double.POSITIVE_INFINITY), OptionalDouble.of(1),
+                    none, none, none, 1.2, 1)).hasMessageContaining("gain margin must be finite");
+            assertThatThrownBy(() -> new LoopMargins(none, none, OptionalDouble.of(Double.NaN), OptionalDouble.of(1),
+                    OptionalDouble.of(1), 1.2, 1)).hasMessageContaining("phase margin must be finite (got NaN)");
+            // a phase margin may be negative or zero; a crossover may not
+            assertThat(new LoopMargins(none, none, OptionalDouble.of(-10), OptionalDouble.of(1), OptionalDouble.of(0),
+                    1.2, 1).phaseMarginDegrees().getAsDouble()).isEqualTo(-10);
+            assertThatThrownBy(() -> new LoopMargins(none, none, OptionalDouble.of(10), OptionalDouble.of(0),
+                    OptionalDouble.of(1), 1.2, 1)).hasMessageContaining("gain crossover must be finite and > 0");
+            assertThatThrownBy(() -> new LoopMargins(none, none, OptionalDouble.of(10), OptionalDouble.of(1),
+                    OptionalDouble.of(Double.NaN), 1.2, 1)).hasMessageContaining("delay margin must be finite (got NaN)");
+            assertThatThrownBy(() -> new LoopMargins(none, none, none, none, none, 0, 1))
+                    .hasMessageContaining("maximum sensitivity must be > 0");
+            assertThatThrownBy(() -> new LoopMargins(none, none, none, none, none, 1.2, 0))
+                    .hasMessageContaining("maximum sensitivity frequency");
+            assertThatThrownBy(() -> new LoopMargins(none, none, none, none, none, 1.2, Double.POSITIVE_INFINITY))
+                    .hasMessageContaining("maximum sensitivity frequency");
+            assertThatThrownBy(() -> new LoopMargins(none, none, OptionalDouble.of(10), OptionalDouble.of(1), none,
+                    1.2, 1)).hasMessageContaining("must come together");
+        }
+
+        @Test
+        void a_lower_gain_margin_lies_below_1() {
+            java.util.Optional<MarginNote> noNote = java.util.Optional.empty();
+            java.util.Optional<MarginNote> note = java.util.Optional.of(MarginNote.NOT_IN_BAND);
+            assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(1), OptionalDouble.of(1),
+                    none, none, none, 1.2, 1, noNote, note, java.util.List.of(), java.util.List.of()))
+                    .hasMessageContaining("lower gain margin must be below 1 (got 1.0)");
+            assertThat(new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(1), OptionalDouble.of(0.5),
+                    none, none, none, 1.2, 1, noNote, note, java.util.List.of(), java.util.List.of())
+                    .lowerGainMargin().getAsDouble()).isEqualTo(0.5);
+            assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(1), none,
+                    none, none, none, 1.2, 1, note, note, java.util.List.of(), java.util.List.of()))
+                    .hasMessageContaining("give exactly one");
+            assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(1), none,
+                    none, none, none, 1.2, 1, noNote, noNote, java.util.List.of(), java.util.List.of()))
+                    .hasMessageContaining("give exactly one");
+        }
+
+        @Test
+        void the_iae_across_a_sign_change_is_two_triangles_split_at_the_zero() {
+            // e = 3 then -1 over 2 s: zero at 3/4 of the interval, 0.5 * 1.5 * 3 + 0.5 * 0.5 * 1 = 2.5
+            SampledResponse r = SampledResponse.of(new double[] {0, 2}, new double[] {-3, 1}, new double[2]);
+            assertThat(StepMetrics.ofLoadStep(r, 0, 10).integralAbsoluteErrorPercentSeconds()).isCloseTo(2.5, within(1e-15));
+        }
+    }
 }
