@@ -8,6 +8,7 @@ import java.util.OptionalDouble;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
+import org.loopform.lti.FrequencyBand;
 import org.loopform.lti.TransferFunction;
 import org.loopform.simulate.SampledResponse;
 
@@ -268,6 +269,32 @@ class AnalysisPartsTest {
             // e = 3 then -1 over 2 s: zero at 3/4 of the interval, 0.5 * 1.5 * 3 + 0.5 * 0.5 * 1 = 2.5
             SampledResponse r = SampledResponse.of(new double[] {0, 2}, new double[] {-3, 1}, new double[2]);
             assertThat(StepMetrics.ofLoadStep(r, 0, 10).integralAbsoluteErrorPercentSeconds()).isCloseTo(2.5, within(1e-15));
+        }
+    }
+
+    @Nested
+    @DisplayName("the margin grid")
+    class Grid {
+
+        @Test
+        void takes_160_points_or_25_a_decade_on_a_wide_band() {
+            // 4 decades: 25 * 4 + 1 = 101 < 160, so 160 points
+            assertThat(MarginAnalysis.over(FrequencyBand.of(0.01, 100)).gridPoints()).isEqualTo(160);
+            // 8 decades: 25 * 8 + 1 = 201 points
+            assertThat(MarginAnalysis.over(FrequencyBand.of(1e-4, 1e4)).gridPoints()).isEqualTo(201);
+            assertThat(MarginAnalysis.over(FrequencyBand.of(0.01, 100)).band()).isEqualTo(FrequencyBand.of(0.01, 100));
+        }
+
+        @Test
+        void is_raised_by_doublings_until_the_loop_gain_is_below_a_hundredth() {
+            // |1/(s + 1)| = 1/sqrt(1 + w^2) < 0.01 first at w = 1.6 * 2^6 = 102.4 rad/s (at 51.2: 0.0195)
+            LoopResponse lag = LoopResponse.of(TransferFunction.ofDescending(new double[] {1}, new double[] {1, 1}));
+            FrequencyBand raised = MarginAnalysis.reachingNegligibleGain(lag, FrequencyBand.of(0.1, 1.6));
+            assertThat(raised.lowRadPerSecond()).isEqualTo(0.1);
+            assertThat(raised.highRadPerSecond()).isEqualTo(102.4);
+            // already negligible at the top: unchanged
+            assertThat(MarginAnalysis.reachingNegligibleGain(lag, FrequencyBand.of(0.1, 200)).highRadPerSecond())
+                    .isEqualTo(200);
         }
     }
 }
