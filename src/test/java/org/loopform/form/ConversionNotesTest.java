@@ -260,4 +260,75 @@ class ConversionNotesTest {
                     .assumptions()).isEmpty();
         }
     }
+
+    @Nested
+    @DisplayName("at the edges of a note")
+    class Edges {
+
+        @Test
+        void a_ratio_within_a_millionth_of_the_default_needs_no_note() {
+            // N 10.000005 against 10: 5e-7 relative, below the 1e-6 at which printed values differ
+            assertThat(convert(ideal("t", RATIO_10, 0, Map.of()), "kc", "1", "ti", "20", "td", "2", "n", "10.000005")
+                    .notes()).isEmpty();
+        }
+
+        @Test
+        void the_cost_of_the_default_ratio_is_the_largest_gain_change_where_the_loop_lives() {
+            // ideal K 1, Ti 20 s, Td 2 s entered with N 10 instead of 5: the deviation of
+            // 1 + 1/(20 i w) + 2 i w/(1 + 2 i w/N) at N 10 from N 5, largest over the band where the loop
+            // lives (the law's corners i/p and p/d: TuningBand), on the 400-point grid of LawDeviation
+            Conversion c = convert(ideal("t", RATIO_10, 0, Map.of()), "kc", "1", "ti", "20", "td", "2", "n", "5");
+            ConversionNote.FilterSettingNeeded f = only(c, ConversionNote.FilterSettingNeeded.class);
+            double worst = 0;
+            for (double w : c.loopBand().grid(400)) {
+                worst = Math.max(worst, Math.abs(20 * Math.log10(idealMagnitude(w, 10) / idealMagnitude(w, 5))));
+            }
+            assertThat(f.defaultCost().gainDb()).isCloseTo(worst, within(1e-9));
+        }
+
+        /** |1 + 1/(20 i w) + 2 i w / (1 + 2 i w / n)|, written out in real and imaginary parts. */
+        private double idealMagnitude(double w, double n) {
+            // 2 i w / (1 + i a) with a = 2 w / n: 2 i w (1 - i a)/(1 + a^2) = (2 w a + 2 i w)/(1 + a^2)
+            double a = 2 * w / n;
+            double re = 1 + 2 * w * a / (1 + a * a);
+            double im = -1 / (20 * w) + 2 * w / (1 + a * a);
+            return Math.hypot(re, im);
+        }
+
+        @Test
+        void an_ideal_source_into_a_series_target_with_another_ratio_involves_a_series_form() {
+            // ideal K 1, Ti 20 s, Td 2 s, N 5: p^2 = 1.04 >= 4 d i = 0.48, so a series setting writes it exactly,
+            // with a filter ratio other than the series target's default
+            Conversion c = convert(TestForms.of("ser", Structure.SERIES, RATIO_10), "kc", "1", "ti", "20", "td", "2",
+                    "n", "5");
+            assertThat(c.exact()).isTrue();
+            assertThat(only(c, ConversionNote.FilterSettingNeeded.class).seriesInvolved()).isTrue();
+        }
+
+        @Test
+        void an_unfiltered_source_binds_the_fit_to_its_filter_even_into_an_adjustable_ratio() {
+            // ideal K 2, Ti 3 s, Td 1 s without a filter has an infinite high-frequency gain no filtered
+            // law can follow; its zeros are complex (Ti < 4 Td), so no series setting writes it
+            Conversion c = Converter.convert(TestForms.unfiltered(Structure.IDEAL), Map.of("kc", "2", "ti", "3", "td", "1"),
+                    TestForms.of("ser", Structure.SERIES, RATIO_10), WritingContext.NONE);
+            ConversionNote.Inexact n = only(c, ConversionNote.Inexact.class);
+            assertThat(n.filterBound()).isTrue();
+            assertThat(n.targetHighFrequencyGain()).isFinite();
+        }
+
+        @Test
+        void a_value_beyond_twelve_digits_is_entered_without_a_rounding_note() {
+            // 123456.789012345 to twelve significant digits is 123456.789012: 3e-12 relative, binary noise
+            // as far as the law goes, so nothing is noted
+            Conversion c = convert(ideal("t", RATIO_10, 0, Map.of()), "kc", "123456.789012345", "ti", "20", "td", "0");
+            assertThat(c.entered().values().get("kc")).isEqualTo(123456.789012);
+            assertThat(c.notes()).isEmpty();
+        }
+
+        @Test
+        void a_written_value_must_be_a_finite_number() {
+            org.assertj.core.api.Assertions.assertThatThrownBy(() -> new WrittenTuning(Map.of("kc", Double.NaN), null))
+                    .hasMessageContaining("kc: a written value must be a finite number (got NaN)");
+        }
+    }
 }
