@@ -114,4 +114,37 @@ class YamlSourceTest {
         YamlNode flat = YamlSource.parse("a: 1\nz: 2\n", "f.yaml");
         assertThat(flat.unknownKeys(Set.of("b", "a"))).containsExactly("f.yaml:2: z: unknown key; expected one of a, b");
     }
+
+    @Test
+    void a_duplicate_key_in_a_later_list_item_names_that_item() {
+        InputException e = catchThrowableOfType(InputException.class, () -> YamlSource.parse("""
+                loops:
+                  - tag: a
+                  - tag: b
+                    tag: c
+                """, "f.yaml"));
+        assertThat(e.problems()).singleElement().satisfies(p -> assertThat(p).startsWith("f.yaml:4: loops[1].tag:"));
+    }
+
+    @Test
+    void a_control_character_at_the_end_of_a_line_is_on_that_line() {
+        assertThatThrownBy(() -> YamlSource.parse("id: x\ntitle: t\u0007\nstructure: a\n", "f.yaml"))
+                .hasMessageStartingWith("f.yaml:2: a control character (code 7)");
+    }
+
+    @Test
+    void bad_yaml_other_than_an_alias_points_at_indentation_and_quoting() {
+        assertThatThrownBy(() -> YamlSource.parse("a: 1\nb: [1, 2\n", "f.yaml"))
+                .hasMessageContaining("; check indentation and quoting near this line")
+                .hasMessageNotContaining("anchor");
+    }
+
+    @Test
+    void a_document_over_8_mi_characters_is_refused_with_the_limit(@org.junit.jupiter.api.io.TempDir Path dir)
+            throws IOException {
+        Path f = dir.resolve("big.yaml");
+        Files.writeString(f, "a: \"" + "x".repeat((8 << 20) + 10) + "\"\n");
+        assertThatThrownBy(() -> YamlSource.read(f, "big.yaml"))
+                .hasMessageStartingWith("big.yaml: larger than 8 Mi characters, the limit for a form");
+    }
 }
