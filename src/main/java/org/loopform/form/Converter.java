@@ -352,7 +352,8 @@ public final class Converter {
         StringBuilder moved = new StringBuilder();
         written.values().forEach((name, value) -> {
             double r = entered.values().get(name);
-            if (r != value) {
+            // a value that only lost the conversion's binary noise (20.000000000000004 -> 20) did not move
+            if (Math.abs(r - value) > 1e-11 * Math.max(Math.abs(r), Math.abs(value))) {
                 moved.append(moved.length() == 0 ? "" : ", ").append(name).append(' ')
                         .append(Numbers.significant(value, 6)).append(" -> ").append(Numbers.plain(r));
             }
