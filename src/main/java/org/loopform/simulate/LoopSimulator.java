@@ -231,7 +231,7 @@ public final class LoopSimulator {
                 break;
             }
             if (quiet >= quietNeeded) {
-                response.fillRemaining(pv, out);
+                response.holdRemaining();
                 break;
             }
             double next = pv0 + plant.scan(out - u0 + load);
