@@ -65,7 +65,8 @@ public record StepMetrics(
         double bandPercent = Math.abs(stepPercent) * SETTLING_BAND_PERCENT_OF_STEP / 100;
         double direction = Math.signum(stepPercent);
         double largestExcursionPercent = 0;
-        for (int k = 0; k < response.size(); k++) {
+        // a held tail repeats the last stored sample
+        for (int k = 0; k < response.heldFrom(); k++) {
             double excursion = direction * (response.processValuePercent(k) - setpointPercent);
             largestExcursionPercent = excursion > largestExcursionPercent ? excursion : largestExcursionPercent;
         }
@@ -92,13 +93,15 @@ public record StepMetrics(
     private static StepMetrics of(SampledResponse response, double setpointPercent, double bandPercent,
             OptionalDouble overshootPercent) {
         int n = response.size();
+        // a held tail (simulate.SampledResponse#heldFrom) repeats its last stored sample: read to there
+        int stored = response.heldFrom();
         double iae = 0;
         double peak = 0;
         double travel = 0;
         int lastOutside = -1;
         double previous = 0;
         double previousTime = 0;
-        for (int k = 0; k < n; k++) {
+        for (int k = 0; k < stored; k++) {
             double error = setpointPercent - response.processValuePercent(k);
             double time = response.timeSeconds(k);
             double size = Math.abs(error);
@@ -113,6 +116,15 @@ public record StepMetrics(
             }
             previous = error;
             previousTime = time;
+        }
+        if (stored < n) {
+            // the held tail: the error stays at its last value, so its IAE is |e| times the tail's
+            // length (each trapezoid is |e| dt), nothing moves the output, and it stays outside the
+            // band to the end if it was outside at its start
+            iae += Math.abs(previous) * (response.timeSeconds(n - 1) - previousTime);
+            if (lastOutside == stored - 1) {
+                lastOutside = n - 1;
+            }
         }
         OptionalDouble settling;
         if (lastOutside == n - 1) {

@@ -94,7 +94,7 @@ final class DesignLoop {
         if (sourceScan != null) {
             ClosedLoopRun run = LoopSimulator.runBetweenScans(ScanController.of(loop.sourceForm(),
                     conversion.sourceSetting(), sourceScan), process.rationalPart(), process.deadTimeSeconds(),
-                    sourceScan, test);
+                    sourceScan, test, stability.isStable());
             return new Evaluated(LoopEvaluation.of(margins, stability, run, test), sourceScan, 0);
         }
         double step = referenceStep(horizonSeconds, conversion.sourceSetting());
@@ -106,9 +106,9 @@ final class DesignLoop {
         DiscreteAlgorithm reference = referenceAlgorithm(loop.sourceForm().algorithm());
         var placement = loop.sourceForm().filter().placement();
         ClosedLoopRun fine = LoopSimulator.run(ScanController.limited(src, placement, reference, step),
-                process.sampled(step), test);
+                process.sampled(step), test, stability.isStable());
         ClosedLoopRun coarse = LoopSimulator.run(ScanController.limited(src, placement, reference, 2 * step),
-                process.sampled(2 * step), test);
+                process.sampled(2 * step), test, stability.isStable());
         Richardson.Result extrapolated = Richardson.extrapolate(fine, coarse);
         return new Evaluated(LoopEvaluation.of(margins, stability, extrapolated.run(), test), step,
                 extrapolated.fineErrorPercent());

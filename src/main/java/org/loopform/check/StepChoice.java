@@ -35,7 +35,7 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
                           SampledStateSpace process, org.loopform.lti.TransferFunction g, double deadTimeSeconds,
                           boolean stable) {
         ClosedLoopRun run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g,
-                deadTimeSeconds, scanSeconds, standard);
+                deadTimeSeconds, scanSeconds, standard, stable);
         if (!stable) {
             return new StepChoice(standard, run, List.of());
         }
@@ -45,14 +45,14 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
         StepTest steps = standard;
         if (OutputExtremes.of(run.setpoint()).reaches(low, high) || OutputExtremes.of(run.load()).reaches(low, high)) {
             ClosedLoopRun linear = LoopSimulator.run(ScanController.unlimited(entered, target.filter().placement(),
-                    target.algorithm(), scanSeconds), process, standard);
+                    target.algorithm(), scanSeconds), process, standard, true);
             OutputExtremes linearSetpoint = OutputExtremes.of(linear.setpoint());
             OutputExtremes linearLoad = OutputExtremes.of(linear.load());
             linearOutput = Optional.of(new SaturationRules.LinearOutput(linearSetpoint, linearLoad));
             steps = standard.scaledToStayWithin(linearSetpoint, linearLoad, low, high);
             if (!steps.equals(standard)) {
                 run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g, deadTimeSeconds,
-                        scanSeconds, steps);
+                        scanSeconds, steps, true);
             }
         }
         List<Finding> findings = SaturationRules.evaluate(new SaturationRules.Inputs(standard, steps, run.setpoint(),

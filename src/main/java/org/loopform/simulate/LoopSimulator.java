@@ -11,10 +11,19 @@ import org.loopform.scan.ScanController;
  * fractional dead time included): each step the controller reads the PV at the sample instant,
  * its output is held over the step, and the process answers at the next instant. The process is
  * linear about the operating point; the controller works in absolute percent so its output
- * limits act where they would on the plant. The inner loop allocates nothing. Once a run has
- * settled (PV on its setpoint and output still, within {@link #QUIET_FRACTION} of the step, for
- * {@link #QUIET_SHARE} of the horizon) the rest of the horizon holds those values without being
- * simulated: a settled linear loop stays where it is.
+ * limits act where they would on the plant. The inner loop allocates nothing.
+ *
+ * <p>Settled tails. A run of a loop proven stable stops being simulated once it has settled, and
+ * the rest of the horizon holds its last values: PV on its setpoint and the controller output
+ * still, both within {@link #QUIET_FRACTION} of the step, at every scan of a window of the longer
+ * of {@link #QUIET_SHARE} of the horizon, {@link #MIN_QUIET_STEPS} scans, and the dead time plus
+ * {@link #QUIET_SCANS_PAST_DEAD_TIME} scans. Why the window decides from the full state: over the
+ * dead time the delay line fills with the still output, so every input in it is the held one; the
+ * process and the controller are then each a finite-order linear system whose input (the held
+ * output, the still error) and output were constant over more samples than their order, which
+ * by observability puts their inner states at rest (common practice; Kailath, Linear Systems,
+ * 1980, sec. 2.3, observability from n outputs - from memory). A loop not proven stable is
+ * simulated to the end: a slowly growing mode can sit below any tolerance for a while.
  *
  * <p>{@link #run} records the loop at the scan instants only, which is what the controller sees;
  * {@link #runBetweenScans} also records the continuous PV between them, which is what the plant
@@ -28,8 +37,10 @@ public final class LoopSimulator {
     static final double QUIET_SHARE = 1.0 / 15;
     /** ... and at least this many steps, ... */
     static final int MIN_QUIET_STEPS = 20;
-    /** ... after the run has left its start by this many settling bands. */
+    /** ... after the run has left its start by this many settling bands, ... */
     static final double MOVED_BANDS = 100;
+    /** ... and over the dead time plus this many scans (the delay line holds only the still output). */
+    static final int QUIET_SCANS_PAST_DEAD_TIME = 5;
 
     private LoopSimulator() {
     }
@@ -45,14 +56,21 @@ public final class LoopSimulator {
     /** Longest sub-step against the process's fastest oscillation omega: 0.25 rad of it. */
     static final double OSCILLATION_RADIANS_PER_SUBSTEP = 0.25;
 
-    /** Setpoint-step and load-step runs over the test's horizon, recorded at the scan instants. */
-    public static ClosedLoopRun run(ScanController controller, SampledStateSpace process, StepTest test) {
+    /**
+     * Setpoint-step and load-step runs over the test's horizon, recorded at the scan instants;
+     * {@code provenStable} says whether the closed loop was proven stable (only then may a settled
+     * tail be left unsimulated).
+     */
+    public static ClosedLoopRun run(ScanController controller, SampledStateSpace process, StepTest test,
+                                    boolean provenStable) {
         double h = process.scanSeconds();
         int steps = Math.max(2, (int) Math.ceil(test.horizonSeconds() / h));
         SampledProcess sampled = process.newProcess();
         Plant plant = new Plant(sampled, null);
-        SampledResponse sp = simulate(controller, plant, test, steps, h, true);
-        SampledResponse load = simulate(controller, plant, test, steps, h, false);
+        double deadTimeSeconds = process.delayScans() * h + process.fractionalDelaySeconds();
+        int quiet = provenStable ? quietScans(test, h, deadTimeSeconds) : NEVER;
+        SampledResponse sp = simulate(controller, plant, test, steps, h, true, quiet);
+        SampledResponse load = simulate(controller, plant, test, steps, h, false, quiet);
         return new ClosedLoopRun(sp, load, h);
     }
 
@@ -74,16 +92,31 @@ public final class LoopSimulator {
      * the step times wc^2 with the horizon 30 / wc, that is about 1e-4 of the step: some 0.01
      * points of overshoot (nothing where the peak is at a switch, as for a first-order process).
      * Cost: about max(1000, scans) process sub-steps per run (twice the scans with a fraction of a
-     * scan of dead time), against the scans alone for {@link #run}.
+     * scan of dead time), against the scans alone for {@link #run}. {@code provenStable} as for {@link #run}.
      */
     public static ClosedLoopRun runBetweenScans(ScanController controller, TransferFunction g, double deadTimeSeconds,
-            double scanSeconds, StepTest test) {
+            double scanSeconds, StepTest test, boolean provenStable) {
         int steps = Math.max(2, (int) Math.ceil(test.horizonSeconds() / scanSeconds));
         HeldProcess held = HeldProcess.of(g, deadTimeSeconds, scanSeconds, subStepSeconds(g, test));
         Plant plant = new Plant(null, held);
-        SampledResponse sp = simulate(controller, plant, test, steps, scanSeconds, true);
-        SampledResponse load = simulate(controller, plant, test, steps, scanSeconds, false);
+        int quiet = provenStable ? quietScans(test, scanSeconds, deadTimeSeconds) : NEVER;
+        SampledResponse sp = simulate(controller, plant, test, steps, scanSeconds, true, quiet);
+        SampledResponse load = simulate(controller, plant, test, steps, scanSeconds, false, quiet);
         return new ClosedLoopRun(sp, load, scanSeconds);
+    }
+
+    /** A quiet window no run reaches: the loop is simulated to the end of its horizon. */
+    private static final int NEVER = Integer.MAX_VALUE;
+
+    /**
+     * The scans a run must stay quiet before its tail is taken as settled: the longest of
+     * {@link #QUIET_SHARE} of the horizon, {@link #MIN_QUIET_STEPS}, and the dead time plus
+     * {@link #QUIET_SCANS_PAST_DEAD_TIME} scans (see the class comment).
+     */
+    static int quietScans(StepTest test, double scanSeconds, double deadTimeSeconds) {
+        int share = (int) Math.ceil(test.horizonSeconds() * QUIET_SHARE / scanSeconds);
+        int deadTime = (int) Math.min(NEVER - 1L, (long) Math.ceil(deadTimeSeconds / scanSeconds) + QUIET_SCANS_PAST_DEAD_TIME);
+        return Math.max(MIN_QUIET_STEPS, Math.max(share, deadTime));
     }
 
     /**
@@ -171,7 +204,7 @@ public final class LoopSimulator {
     static final int RUNAWAY_MIN_STEPS = 600;
 
     private static SampledResponse simulate(ScanController c, Plant plant, StepTest test, int steps,
-                                            double h, boolean setpointStep) {
+                                            double h, boolean setpointStep, int quietNeeded) {
         double pv0 = test.operatingPvPercent();
         double u0 = test.operatingOutputPercent();
         double r = pv0 + (setpointStep ? test.setpointStepPercent() : 0.0);
@@ -182,7 +215,6 @@ public final class LoopSimulator {
         double[] between = plant.between;
         double pv = pv0;
         double quietBand = QUIET_FRACTION * Math.abs(setpointStep ? test.setpointStepPercent() : test.loadStepPercent());
-        int quietNeeded = Math.max(MIN_QUIET_STEPS, (int) Math.ceil(test.horizonSeconds() * QUIET_SHARE / h));
         int quiet = 0;
         boolean moved = false;
         double previousOut = u0;
@@ -199,7 +231,7 @@ public final class LoopSimulator {
                 break;
             }
             if (quiet >= quietNeeded) {
-                response.fillRemaining(pv, out);
+                response.holdRemaining();
                 break;
             }
             double next = pv0 + plant.scan(out - u0 + load);

@@ -10,7 +10,9 @@ import java.util.Objects;
  * next (it changes only at scan instants). Immutable; the arrays are copied in and out. A
  * response recorded on a uniform step ({@link #recorder(int, double)}) keeps only the step and
  * gives sample k the time {@code k * stepSeconds}; one recorded between scans
- * ({@link #recorder(int, double, double[])}) has the same sub-instants in every scan.
+ * ({@link #recorder(int, double, double[])}) has the same sub-instants in every scan. A
+ * recorded run may end in a held tail ({@link Recorder#holdRemaining}): from {@link #heldFrom()}
+ * on, every sample repeats the last one recorded, and those samples are not stored.
  */
 public final class SampledResponse {
 
@@ -22,14 +24,19 @@ public final class SampledResponse {
     private final double[] offsetsSeconds;
     private final double[] processValuesPercent;
     private final double[] controllerOutputsPercent;
+    /** Samples stored; the samples from here to {@link #size} repeat the last stored one. */
+    private final int stored;
+    private final int size;
 
     private SampledResponse(double[] timesSeconds, double stepSeconds, double[] offsetsSeconds,
-            double[] processValuesPercent, double[] controllerOutputsPercent) {
+            double[] processValuesPercent, double[] controllerOutputsPercent, int stored) {
         this.timesSeconds = timesSeconds;
         this.stepSeconds = stepSeconds;
         this.offsetsSeconds = offsetsSeconds;
         this.processValuesPercent = processValuesPercent;
         this.controllerOutputsPercent = controllerOutputsPercent;
+        this.stored = stored;
+        this.size = processValuesPercent.length;
     }
 
     /**
@@ -60,7 +67,7 @@ public final class SampledResponse {
             }
         }
         return new SampledResponse(timesSeconds.clone(), Double.NaN, null, processValuesPercent.clone(),
-                controllerOutputsPercent.clone());
+                controllerOutputsPercent.clone(), n);
     }
 
     /**
@@ -99,7 +106,15 @@ public final class SampledResponse {
     }
 
     public int size() {
-        return processValuesPercent.length;
+        return size;
+    }
+
+    /**
+     * The first sample of the held tail: every sample from here on repeats the one before it
+     * ({@link #size} when the run was recorded to its end). At least 1.
+     */
+    public int heldFrom() {
+        return stored;
     }
 
     public double timeSeconds(int k) {
@@ -111,11 +126,17 @@ public final class SampledResponse {
     }
 
     public double processValuePercent(int k) {
-        return processValuesPercent[k];
+        return processValuesPercent[k < stored ? k : checkedTail(k)];
     }
 
     public double controllerOutputPercent(int k) {
-        return controllerOutputsPercent[k];
+        return controllerOutputsPercent[k < stored ? k : checkedTail(k)];
+    }
+
+    /** The stored sample that a held tail's sample {@code k} repeats. */
+    private int checkedTail(int k) {
+        Objects.checkIndex(k, size);
+        return stored - 1;
     }
 
     public double[] timesSeconds() {
@@ -130,25 +151,31 @@ public final class SampledResponse {
     }
 
     public double[] processValuesPercent() {
-        return processValuesPercent.clone();
+        return withTail(processValuesPercent);
     }
 
     public double[] controllerOutputsPercent() {
-        return controllerOutputsPercent.clone();
+        return withTail(controllerOutputsPercent);
+    }
+
+    private double[] withTail(double[] values) {
+        double[] all = values.clone();
+        Arrays.fill(all, stored, size, values[stored - 1]);
+        return all;
     }
 
     @Override
     public boolean equals(Object o) {
         return o instanceof SampledResponse r
-                && Arrays.equals(processValuesPercent, r.processValuesPercent)
-                && Arrays.equals(controllerOutputsPercent, r.controllerOutputsPercent)
+                && Arrays.equals(processValuesPercent(), r.processValuesPercent())
+                && Arrays.equals(controllerOutputsPercent(), r.controllerOutputsPercent())
                 && Arrays.equals(timesSeconds(), r.timesSeconds());
     }
 
     @Override
     public int hashCode() {
-        return Objects.hash(Arrays.hashCode(timesSeconds()), Arrays.hashCode(processValuesPercent),
-                Arrays.hashCode(controllerOutputsPercent));
+        return Objects.hash(Arrays.hashCode(timesSeconds()), Arrays.hashCode(processValuesPercent()),
+                Arrays.hashCode(controllerOutputsPercent()));
     }
 
     @Override
@@ -175,6 +202,8 @@ public final class SampledResponse {
         private double[] processValuesPercent;
         private double[] controllerOutputsPercent;
         private int count;
+        /** Samples stored; below {@code count} once a held tail has been recorded. */
+        private int stored = -1;
 
         private Recorder(int samples, double stepSeconds, double[] offsetsSeconds) {
             if (samples < 2) {
@@ -189,11 +218,15 @@ public final class SampledResponse {
             this.controllerOutputsPercent = new double[samples];
         }
 
-        /** Fills every sample not yet recorded with these values (a settled run's tail). */
-        public void fillRemaining(double processValuePercent, double controllerOutputPercent) {
-            java.util.Arrays.fill(processValuesPercent, count, processValuesPercent.length, processValuePercent);
-            java.util.Arrays.fill(controllerOutputsPercent, count, controllerOutputsPercent.length,
-                    controllerOutputPercent);
+        /**
+         * Every sample not yet recorded repeats the last one recorded (a settled run's tail); they
+         * are not stored. At least one sample must have been recorded.
+         */
+        public void holdRemaining() {
+            if (count < 1) {
+                throw new IllegalStateException("a held tail repeats the last sample: record one first");
+            }
+            stored = count;
             count = processValuesPercent.length;
         }
 
@@ -215,18 +248,19 @@ public final class SampledResponse {
             }
             // x * 0 is 0 for a finite x and NaN otherwise: one sum says whether any sample is not
             // finite, and only then are they searched for the first one
+            int kept = stored < 0 ? count : stored;
             double poison = 0;
-            for (int k = 0; k < count; k++) {
+            for (int k = 0; k < kept; k++) {
                 poison += processValuesPercent[k] * 0.0 + controllerOutputsPercent[k] * 0.0;
             }
             if (poison != 0) {
-                for (int k = 0; k < count; k++) {
+                for (int k = 0; k < kept; k++) {
                     requireFinite("process value", k, processValuesPercent[k]);
                     requireFinite("controller output", k, controllerOutputsPercent[k]);
                 }
             }
             SampledResponse r = new SampledResponse(null, stepSeconds, offsetsSeconds, processValuesPercent,
-                    controllerOutputsPercent);
+                    controllerOutputsPercent, kept);
             processValuesPercent = null;
             controllerOutputsPercent = null;
             return r;

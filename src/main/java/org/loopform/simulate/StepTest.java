@@ -67,7 +67,8 @@ public record StepTest(double operatingPvPercent, double operatingOutputPercent,
         public static OutputExtremes of(SampledResponse run) {
             double low = Double.POSITIVE_INFINITY;
             double high = Double.NEGATIVE_INFINITY;
-            for (int k = 0; k < run.size(); k++) {
+            // a held tail repeats the last stored sample
+            for (int k = 0; k < run.heldFrom(); k++) {
                 double u = run.controllerOutputPercent(k);
                 // comparisons, not Math.min/max calls: a response's samples are finite
                 low = u < low ? u : low;

@@ -147,6 +147,32 @@ class StepMetricsTest {
 
             assertThat(StepMetrics.ofSetpointStep(response, 0, 1).settlingTimeSeconds()).isEmpty();
         }
+
+        /**
+         * Samples on 1 s: PV 50, 55, 58, then held at 58 to t = 9 s; output 40, 45, 47, then held.
+         * Step 50 -> 60: errors 10, 5, 2, then 2 to the end. IAE (10 + 5)/2 + (5 + 2)/2 + 2 (9 - 2) = 25;
+         * travel 5 + 2 = 7; still outside the 2 % band (0.2) at the end: not settled. As a load response
+         * about 60 with a 3 % band it leaves the band for good between 1 s (e = 5) and 2 s (e = 2), at
+         * 1 + (5 - 3)/(5 - 2) s; its peak is 10.
+         */
+        @Test
+        void a_held_tail_counts_as_its_repeated_samples() {
+            SampledResponse.Recorder r = SampledResponse.recorder(10, 1.0);
+            r.add(50, 40);
+            r.add(55, 45);
+            r.add(58, 47);
+            r.holdRemaining();
+            SampledResponse held = r.toResponse();
+
+            StepMetrics sp = StepMetrics.ofSetpointStep(held, 50, 60);
+            assertThat(sp.integralAbsoluteErrorPercentSeconds()).isCloseTo(25.0, within(1e-12));
+            assertThat(sp.outputTravelPercent()).isEqualTo(7.0);
+            assertThat(sp.settlingTimeSeconds()).isEmpty();
+            assertThat(sp.overshootPercent()).hasValue(0.0);
+            StepMetrics load = StepMetrics.ofLoadStep(held, 60, 3);
+            assertThat(load.settlingTimeSeconds().getAsDouble()).isCloseTo(1 + 2.0 / 3, within(1e-12));
+            assertThat(load.peakDeviationPercent()).isEqualTo(10.0);
+        }
     }
 
     @Nested

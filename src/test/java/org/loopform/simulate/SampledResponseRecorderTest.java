@@ -87,4 +87,46 @@ class SampledResponseRecorderTest {
         assertThatThrownBy(() -> SampledResponse.recorder(2, 5.0, new double[] {0.0, 5.0}))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("below the scan time");
     }
+
+    /** Three samples on 1 s recorded, then held to ten: the last seven repeat the third. */
+    static SampledResponse heldTail() {
+        SampledResponse.Recorder r = SampledResponse.recorder(10, 1.0);
+        r.add(50, 40);
+        r.add(55, 45);
+        r.add(58, 47);
+        r.holdRemaining();
+        return r.toResponse();
+    }
+
+    @Test
+    void a_held_tail_repeats_the_last_sample_recorded_to_the_end() {
+        SampledResponse held = heldTail();
+
+        assertThat(held.size()).isEqualTo(10);
+        assertThat(held.heldFrom()).isEqualTo(3);
+        assertThat(held.processValuePercent(9)).isEqualTo(58.0);
+        assertThat(held.controllerOutputPercent(7)).isEqualTo(47.0);
+        assertThat(held.processValuesPercent()).containsExactly(50, 55, 58, 58, 58, 58, 58, 58, 58, 58);
+        assertThat(held.controllerOutputsPercent()).containsExactly(40, 45, 47, 47, 47, 47, 47, 47, 47, 47);
+        assertThatThrownBy(() -> held.processValuePercent(10)).isInstanceOf(IndexOutOfBoundsException.class);
+    }
+
+    @Test
+    void a_held_tail_equals_the_same_samples_given_one_by_one() {
+        double[] t = new double[10];
+        for (int k = 0; k < 10; k++) {
+            t[k] = k;
+        }
+        SampledResponse given = SampledResponse.of(t, new double[] {50, 55, 58, 58, 58, 58, 58, 58, 58, 58},
+                new double[] {40, 45, 47, 47, 47, 47, 47, 47, 47, 47});
+
+        assertThat(heldTail()).isEqualTo(given).hasSameHashCodeAs(given);
+        assertThat(given.heldFrom()).isEqualTo(10);
+    }
+
+    @Test
+    void a_tail_is_held_only_after_a_sample() {
+        SampledResponse.Recorder r = SampledResponse.recorder(4, 1.0);
+        assertThatThrownBy(r::holdRemaining).isInstanceOf(IllegalStateException.class).hasMessageContaining("record one");
+    }
 }
