@@ -138,6 +138,10 @@ final class AuditRunner {
                         }
                     });
             badRows.finish();
+            if (summary.replay() != null && !summary.replay().unmatchedRecords().isEmpty()) {
+                err.println("loopform: " + AuditReplayRows.withoutLoopWords(summary.replay()));
+                err.flush();
+            }
             if (output != null && summary.checked() == 0) {
                 // every row was bad (or there were none): no folder of empty results; close() removes the temporary one
                 err.println("loopform: no loop could be checked, so nothing was written to " + s.out());
