@@ -104,11 +104,16 @@ final class AuditRunner {
     }
 
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
-        return run(rows, s, out, err, "");
+        return run(rows, s, out, err, "", null);
     }
 
-    /** As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the report's summary. */
-    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain) {
+    /**
+     * As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the
+     * report's summary and {@code chainJson} (null: none) as the {@code chain} key of loops.json and of
+     * the printed JSON summary.
+     */
+    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain,
+                   ObjectNode chainJson) {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
@@ -162,6 +167,9 @@ final class AuditRunner {
                 Map<String, ObjectNode> more = new LinkedHashMap<>();
                 more.put("signoff", AuditRows.signOffJson(info));
                 more.put("provenance", AuditRows.provenanceJson(info));
+                if (chainJson != null) {
+                    more.put("chain", chainJson);
+                }
                 output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
                         HtmlReport.writeDocument(doc, summary, info, index, sections, chain));
             }
@@ -174,7 +182,16 @@ final class AuditRunner {
             }
         }
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
-        out.print(s.format().renderer().auditSummary(summary, folder));
+        if (chainJson != null && s.format() == OutputFormat.json) {
+            ObjectNode printed = AuditRows.summaryJson(summary);
+            if (folder != null) {
+                printed.put("out", folder);
+            }
+            printed.set("chain", chainJson);
+            out.print(org.loopform.report.Json.write(printed));
+        } else {
+            out.print(s.format().renderer().auditSummary(summary, folder));
+        }
         out.flush();
         if (summary.badRowCount() > 0 || summary.replay() != null && summary.replay().unreadable() > 0) {
             return ExitCodes.BAD_INPUT;
