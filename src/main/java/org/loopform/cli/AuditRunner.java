@@ -45,8 +45,17 @@ final class AuditRunner {
      * specification), that instant in UTC, so two runs on the same inputs write the same bytes.
      */
     static String writtenAt(String sourceDateEpoch) {
-        if (sourceDateEpoch == null || sourceDateEpoch.isBlank()) {
+        java.time.Instant fixed = sourceDate(sourceDateEpoch);
+        if (fixed == null) {
             return ZonedDateTime.now().withNano(0).format(WRITTEN_AT);
+        }
+        return fixed.atZone(java.time.ZoneId.of("UTC")).format(WRITTEN_AT);
+    }
+
+    /** The instant {@code SOURCE_DATE_EPOCH} names, or null when it is unset or blank; a bad value is bad input. */
+    static java.time.Instant sourceDate(String sourceDateEpoch) {
+        if (sourceDateEpoch == null || sourceDateEpoch.isBlank()) {
+            return null;
         }
         long seconds;
         try {
@@ -58,7 +67,7 @@ final class AuditRunner {
             throw new org.loopform.units.BadInput("the environment variable SOURCE_DATE_EPOCH is '" + sourceDateEpoch
                     + "': it must be a whole number of seconds since 1970-01-01 00:00:00 UTC (unset it to use the clock)");
         }
-        return java.time.Instant.ofEpochSecond(seconds).atZone(java.time.ZoneId.of("UTC")).format(WRITTEN_AT);
+        return java.time.Instant.ofEpochSecond(seconds);
     }
 
     private static void spec(PrintWriter err, String input) {
@@ -117,7 +126,8 @@ final class AuditRunner {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
-                AuditReplayRows.loopColumns(s.records() != null), AuditRows.ENTRY_COLUMNS);
+                AuditReplayRows.loopColumns(s.records() != null), AuditRows.ENTRY_COLUMNS)
+                .fixTimes(sourceDate(reproducibleTime));
         Progress progress = s.progress();
         ProgressBar bar = System.console() != null && System.getenv("CI") == null ? new ProgressBarBuilder()
                 .setTaskName("checking").setInitialMax(progress.total()).setStyle(ProgressBarStyle.ASCII)
