@@ -37,8 +37,16 @@ final class ReproducibleXlsx {
     private ReproducibleXlsx() {
     }
 
-    /** Rewrites {@code file} in place with every time in it set to {@code when}. */
+    /** Rewrites {@code file} in place with every time in it set to {@code when}, its entries deflated. */
     static void fixTimes(Path file, Instant when) throws IOException {
+        fixTimes(file, when, false);
+    }
+
+    /**
+     * As {@link #fixTimes(Path, Instant)}; with {@code stored} the entries are stored uncompressed, so
+     * the bytes depend on no compressor's version either (for a small file kept in the repository).
+     */
+    static void fixTimes(Path file, Instant when, boolean stored) throws IOException {
         LocalDateTime local = LocalDateTime.ofInstant(when, ZoneOffset.UTC);
         String created = W3CDTF.format(when);
         Path copy = file.resolveSibling(file.getFileName() + ".fixing");
@@ -49,12 +57,25 @@ final class ReproducibleXlsx {
                 ZipEntry entry = e.nextElement();
                 ZipEntry fixed = new ZipEntry(entry.getName());
                 fixed.setTimeLocal(local);
-                out.putNextEntry(fixed);
-                if (entry.getName().equals(CORE)) {
-                    String xml = new String(in.getInputStream(entry).readAllBytes(), StandardCharsets.UTF_8);
-                    out.write(CREATED.matcher(xml).replaceAll(m -> Matcher.quoteReplacement(m.group(1) + created
-                            + m.group(4))).getBytes(StandardCharsets.UTF_8));
+                if (entry.getName().equals(CORE) || stored) {
+                    byte[] bytes = in.getInputStream(entry).readAllBytes();
+                    if (entry.getName().equals(CORE)) {
+                        String xml = new String(bytes, StandardCharsets.UTF_8);
+                        bytes = CREATED.matcher(xml).replaceAll(m -> Matcher.quoteReplacement(m.group(1) + created
+                                + m.group(4))).getBytes(StandardCharsets.UTF_8);
+                    }
+                    if (stored) {
+                        java.util.zip.CRC32 crc = new java.util.zip.CRC32();
+                        crc.update(bytes);
+                        fixed.setMethod(ZipEntry.STORED);
+                        fixed.setSize(bytes.length);
+                        fixed.setCompressedSize(bytes.length);
+                        fixed.setCrc(crc.getValue());
+                    }
+                    out.putNextEntry(fixed);
+                    out.write(bytes);
                 } else {
+                    out.putNextEntry(fixed);
                     in.getInputStream(entry).transferTo(out);
                 }
                 out.closeEntry();
