@@ -118,11 +118,11 @@ final class AuditRunner {
 
     /**
      * As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the
-     * report's summary and {@code chainJson} (null: none) as the {@code chain} key of loops.json and of
+     * report's summary and {@code chainData} (null: none) as the {@code chain} key of loops.json and of
      * the printed JSON summary.
      */
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain,
-                   ObjectNode chainJson) {
+                   org.loopform.report.ChainSection.Chain chainData) {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
@@ -177,8 +177,8 @@ final class AuditRunner {
                 Map<String, ObjectNode> more = new LinkedHashMap<>();
                 more.put("signoff", AuditRows.signOffJson(info));
                 more.put("provenance", AuditRows.provenanceJson(info));
-                if (chainJson != null) {
-                    more.put("chain", chainJson);
+                if (chainData != null) {
+                    more.put("chain", org.loopform.report.ChainSection.json(chainData));
                 }
                 output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
                         HtmlReport.writeDocument(doc, summary, info, index, sections, chain));
@@ -192,13 +192,8 @@ final class AuditRunner {
             }
         }
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
-        if (chainJson != null && s.format() == OutputFormat.json) {
-            ObjectNode printed = AuditRows.summaryJson(summary);
-            if (folder != null) {
-                printed.put("out", folder);
-            }
-            printed.set("chain", chainJson);
-            out.print(org.loopform.report.Json.write(printed));
+        if (chainData != null && s.format() == OutputFormat.json) {
+            out.print(org.loopform.report.ChainSection.summaryJsonText(summary, folder, chainData));
         } else {
             out.print(s.format().renderer().auditSummary(summary, folder));
         }

@@ -177,6 +177,16 @@ public final class ChainSection {
         return n;
     }
 
+    /** The audit's JSON summary ({@code out} when {@code folder} is given) with the chain under {@code chain}. */
+    public static String summaryJsonText(org.loopform.audit.AuditSummary s, String folder, Chain c) {
+        com.fasterxml.jackson.databind.node.ObjectNode n = AuditRows.summaryJson(s);
+        if (folder != null) {
+            n.put("out", folder);
+        }
+        n.set("chain", json(c));
+        return Json.write(n);
+    }
+
     /** Two lines for the printed summary: the chain in short, and where the report shows it. */
     public static String summaryText(Chain c) {
         ModelFit f = c.fit().recommendedFit();
