@@ -41,8 +41,9 @@ final class RecordColumnOptions {
 
     /** The columns as given. */
     TrendColumns columns() {
+        List<String> given = java.util.Arrays.asList(time, setpoint, pv, output, mode, tracking);
         for (int k = 0; k < NAMES.size(); k++) {
-            String c = List.of(time, setpoint, pv, output, mode, tracking).get(k);
+            String c = given.get(k);
             if (c == null || c.isBlank()) {
                 throw new org.loopform.io.InputException(NAMES.get(k) + ": needs a column name (got an empty one);"
                         + " give the header of the record's column, or leave the option out for '"
