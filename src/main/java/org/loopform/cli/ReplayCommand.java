@@ -187,6 +187,8 @@ final class ReplayCommand implements Callable<Integer> {
             // the reader audit uses: the same columns and checks, every message with its file:sheet!cell
             try (LoopXlsxReader reader = LoopXlsxReader.open(listFile, listFile.toString(), sheetOption.sheet,
                     defaults)) {
+                spec.commandLine().getErr().println("loopform: " + listFile + ": reading " + reader.description());
+                spec.commandLine().getErr().flush();
                 reader.forEachRemaining(rows::add);
             }
             return rows.iterator();

@@ -54,6 +54,7 @@ class ReplayXlsxListTest {
         CliRun r = CliRun.of("replay", RECORDS, "--list", xlsx.toString(), "--to", TARGET);
         assertThat(r.exitCode()).as(r.err()).isEqualTo(1);
         assertThat(r.out()).contains("FIC-105").contains("TIC-301");
+        assertThat(r.err()).contains("reading sheet 'Loops' (2 of 2), header in row 3");
     }
 
     @Test
