@@ -71,6 +71,9 @@ public final class Audit {
             int window = n * WINDOW_PER_THREAD;
             while (rows.hasNext()) {
                 LoopRow row = rows.next();
+                if (records != null) {
+                    records.source().seen(row.tag());
+                }
                 inFlight.add(pool.submit(() -> {
                     LoopOutcome o = check(row, policy, records);
                     return new Prepared<>(o, prepare.apply(o));
@@ -81,6 +84,9 @@ public final class Audit {
             }
             while (!inFlight.isEmpty()) {
                 deliver(inFlight.poll(), summary, sink);
+            }
+            if (records != null) {
+                summary.replay().unmatched(records.source().unmatched());
             }
         } finally {
             pool.shutdownNow();
@@ -124,7 +130,8 @@ public final class Audit {
             if (trend.isEmpty()) {
                 return ReplayEvidence.NONE;
             }
-            return ReplayEvidence.replayed(LoopReplay.run(row.loop(), trend.get(), records.catalog(), policy));
+            return ReplayEvidence.replayed(LoopReplay.run(row.loop(), trend.get(), records.catalog(), policy,
+                    records.fitTuning()));
         } catch (BadInput e) {
             // a record that cannot be read or replayed is this loop's problem, not the audit's
             return ReplayEvidence.unreadable(e.problems().stream()

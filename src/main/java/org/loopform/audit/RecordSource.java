@@ -22,4 +22,16 @@ public interface RecordSource {
     default java.util.List<InputFile> filesRead() {
         return java.util.List.of();
     }
+
+    /**
+     * Told, on the audit's calling thread, of every tag the list holds (bad rows' too), so that the
+     * source can later name the records that match no loop; nothing by default.
+     */
+    default void seen(String tag) {
+    }
+
+    /** The records that matched no tag {@link #seen} so far, by name in name order; none by default. */
+    default java.util.List<String> unmatched() {
+        return java.util.List.of();
+    }
 }

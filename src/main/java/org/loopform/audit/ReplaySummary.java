@@ -29,6 +29,7 @@ public final class ReplaySummary {
     private int unreadable;
     private long problemCount;
     private final List<String> problems = new ArrayList<>();
+    private List<String> unmatched = List.of();
 
     ReplaySummary(String recordsName) {
         this.recordsName = recordsName;
@@ -68,6 +69,18 @@ public final class ReplaySummary {
                 }
             }
         }
+    }
+
+    void unmatched(List<String> records) {
+        unmatched = List.copyOf(records);
+    }
+
+    /**
+     * The records of the folder that match no loop of the list (named {@code FOLDER/NAME.csv}, in
+     * name order): nothing was replayed from them. A folder holds few enough files to name each.
+     */
+    public List<String> unmatchedRecords() {
+        return unmatched;
     }
 
     /** The records' folder as the user named it. */

@@ -12,7 +12,6 @@ import org.loopform.audit.LoopDefaults;
 import org.loopform.audit.SignOff;
 import org.loopform.audit.AuditRecords;
 import org.loopform.io.RecordFolder;
-import org.loopform.io.TrendColumns;
 import org.loopform.io.Fingerprint;
 import org.loopform.audit.LoopRow;
 import org.loopform.findings.CheckPolicy;
@@ -51,9 +50,8 @@ final class AuditCommand implements Callable<Integer> {
     @Parameters(paramLabel = "LOOPS", description = "The loop list: .csv, .xlsx, or .yaml/.yml with a 'loops:' list.")
     Path input;
 
-    @Option(names = "--sheet", paramLabel = "NAME|INDEX", description = "The sheet of an .xlsx list, by name or"
-            + " number from 1 (default: the first visible sheet with a header row naming tag and form).")
-    String sheet;
+    @Mixin
+    SheetOption sheetOption;
 
     @Option(names = "--to", paramLabel = "ID|FILE", description = "Target form for every loop (overrides the list).")
     String to;
@@ -80,9 +78,18 @@ final class AuditCommand implements Callable<Integer> {
     Path policyFile;
 
     @Option(names = "--records", paramLabel = "DIR", description = "A folder of logged records, one TAG.csv per loop"
-            + " (columns time, setpoint, pv, output, optional mode and tracking; see 'loopform replay --help'): each"
-            + " loop with a record is also replayed, as found and as left, and its findings join the loop's.")
+            + " (columns time, setpoint, pv, output, optional mode and tracking, or those named by --time, --setpoint,"
+            + " --pv, --output, --mode, --tracking; see 'loopform replay --help'): each loop with a record is also"
+            + " replayed, as found and as left, and its findings join the loop's. A record that matches no loop of"
+            + " the list is named once.")
     Path recordsDir;
+
+    @Mixin
+    RecordColumnOptions recordColumns;
+
+    @Option(names = "--fit-tuning", description = "With --records: also fit each replayed loop's old gain, integral"
+            + " and derivative values (in its form's units) to its logged output by least squares, with 95 % intervals.")
+    boolean fitTuning;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     Integer threads;
@@ -109,10 +116,14 @@ final class AuditCommand implements Callable<Integer> {
                 : PolicyFileReader.read(policyFile, policyFile.toString());
         String name = input.toString();
         String lower = name.toLowerCase(Locale.ROOT);
-        boolean xlsx = lower.endsWith(".xlsx");
-        if (sheet != null && !xlsx) {
-            throw new org.loopform.units.UnitException("--sheet: applies to an .xlsx loop list only (got " + name
-                    + "); leave --sheet out, or give the .xlsx workbook");
+        boolean xlsx = SheetOption.isXlsx(name);
+        sheetOption.checkApplies(name);
+        if (recordsDir == null) {
+            String given = fitTuning ? "--fit-tuning" : RecordColumnOptions.firstGiven(spec.commandLine().getParseResult());
+            if (given != null) {
+                throw new org.loopform.units.UnitException(given + ": applies to the records of --records only; give"
+                        + " --records DIR (one TAG.csv per loop), or leave " + given + " out");
+            }
         }
         List<Path> inputs = new ArrayList<>(List.of(input));
         if (policyFile != null) {
@@ -137,8 +148,8 @@ final class AuditCommand implements Callable<Integer> {
             inputs.add(signOffOptions.file);
         }
         if (recordsDir != null) {
-            RecordFolder folder = RecordFolder.open(recordsDir, recordsDir.toString(), TrendColumns.DEFAULT);
-            records = new AuditRecords(folder, recordsDir.toString(), CatalogLoader.bundled().all());
+            RecordFolder folder = RecordFolder.open(recordsDir, recordsDir.toString(), recordColumns.columns());
+            records = new AuditRecords(folder, recordsDir.toString(), CatalogLoader.bundled().all(), fitTuning);
             inputs.add(recordsDir);
         }
         this.files = files;
@@ -146,7 +157,8 @@ final class AuditCommand implements Callable<Integer> {
         String settings = (to != null ? "target " + target.id() : "targets from the list")
                 + (scanSeconds != null ? ", scan " + Numbers.plain(scanSeconds) + " s" : "")
                 + (policyFile != null ? ", policy " + policyFile : ", default policy")
-                + (recordsDir != null ? ", records from " + recordsDir : "");
+                + (recordsDir != null ? ", records from " + recordsDir + (fitTuning ? ", old tunings fitted to them" : "")
+                : "");
         int n = threads != null ? Math.max(1, threads) : Runtime.getRuntime().availableProcessors();
         // progress by bytes read: a pipe (/dev/stdin) can be read only once, so it is never counted ahead
         long size = Files.isRegularFile(input) ? sizeOf(input) : -1;
@@ -158,7 +170,7 @@ final class AuditCommand implements Callable<Integer> {
             }
         }
         if (xlsx) {
-            try (LoopXlsxReader reader = LoopXlsxReader.open(input, name, sheet, defaults)) {
+            try (LoopXlsxReader reader = LoopXlsxReader.open(input, name, sheetOption.sheet, defaults)) {
                 spec.commandLine().getErr().println("loopform: " + name + ": reading " + reader.description());
                 spec.commandLine().getErr().flush();
                 return AuditRunner.run(reader, settings(name, fail, policy, n, inputs, settings + ", sheet "

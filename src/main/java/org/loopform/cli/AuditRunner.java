@@ -45,8 +45,17 @@ final class AuditRunner {
      * specification), that instant in UTC, so two runs on the same inputs write the same bytes.
      */
     static String writtenAt(String sourceDateEpoch) {
-        if (sourceDateEpoch == null || sourceDateEpoch.isBlank()) {
+        java.time.Instant fixed = sourceDate(sourceDateEpoch);
+        if (fixed == null) {
             return ZonedDateTime.now().withNano(0).format(WRITTEN_AT);
+        }
+        return fixed.atZone(java.time.ZoneId.of("UTC")).format(WRITTEN_AT);
+    }
+
+    /** The instant {@code SOURCE_DATE_EPOCH} names, or null when it is unset or blank; a bad value is bad input. */
+    static java.time.Instant sourceDate(String sourceDateEpoch) {
+        if (sourceDateEpoch == null || sourceDateEpoch.isBlank()) {
+            return null;
         }
         long seconds;
         try {
@@ -58,7 +67,7 @@ final class AuditRunner {
             throw new org.loopform.units.BadInput("the environment variable SOURCE_DATE_EPOCH is '" + sourceDateEpoch
                     + "': it must be a whole number of seconds since 1970-01-01 00:00:00 UTC (unset it to use the clock)");
         }
-        return java.time.Instant.ofEpochSecond(seconds).atZone(java.time.ZoneId.of("UTC")).format(WRITTEN_AT);
+        return java.time.Instant.ofEpochSecond(seconds);
     }
 
     private static void spec(PrintWriter err, String input) {
@@ -104,15 +113,21 @@ final class AuditRunner {
     }
 
     static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err) {
-        return run(rows, s, out, err, "");
+        return run(rows, s, out, err, "", null);
     }
 
-    /** As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the report's summary. */
-    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain) {
+    /**
+     * As {@link #run(Iterator, Settings, PrintWriter, PrintWriter)}, with {@code chain} (HTML) under the
+     * report's summary and {@code chainData} (null: none) as the {@code chain} key of loops.json and of
+     * the printed JSON summary.
+     */
+    static int run(Iterator<LoopRow> rows, Settings s, PrintWriter out, PrintWriter err, String chain,
+                   org.loopform.report.ChainSection.Chain chainData) {
         String reproducibleTime = System.getenv("SOURCE_DATE_EPOCH");
         writtenAt(reproducibleTime); // a bad value is refused before anything is written
         AuditOutput output = s.out() == null ? null : AuditOutput.create(s.out(), s.force(), s.html(), s.inputs(),
-                AuditReplayRows.loopColumns(s.records() != null), AuditRows.ENTRY_COLUMNS);
+                AuditReplayRows.loopColumns(s.records() != null), AuditRows.ENTRY_COLUMNS)
+                .fixTimes(sourceDate(reproducibleTime));
         Progress progress = s.progress();
         ProgressBar bar = System.console() != null && System.getenv("CI") == null ? new ProgressBarBuilder()
                 .setTaskName("checking").setInitialMax(progress.total()).setStyle(ProgressBarStyle.ASCII)
@@ -138,6 +153,10 @@ final class AuditRunner {
                         }
                     });
             badRows.finish();
+            if (summary.replay() != null && !summary.replay().unmatchedRecords().isEmpty()) {
+                err.println("loopform: " + AuditReplayRows.withoutLoopWords(summary.replay()));
+                err.flush();
+            }
             if (output != null && summary.checked() == 0) {
                 // every row was bad (or there were none): no folder of empty results; close() removes the temporary one
                 err.println("loopform: no loop could be checked, so nothing was written to " + s.out());
@@ -158,6 +177,9 @@ final class AuditRunner {
                 Map<String, ObjectNode> more = new LinkedHashMap<>();
                 more.put("signoff", AuditRows.signOffJson(info));
                 more.put("provenance", AuditRows.provenanceJson(info));
+                if (chainData != null) {
+                    more.put("chain", org.loopform.report.ChainSection.json(chainData));
+                }
                 output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
                         HtmlReport.writeDocument(doc, summary, info, index, sections, chain));
             }
@@ -170,7 +192,11 @@ final class AuditRunner {
             }
         }
         String folder = output == null || summary.checked() == 0 ? null : output.folder().toString();
-        out.print(s.format().renderer().auditSummary(summary, folder));
+        if (chainData != null && s.format() == OutputFormat.json) {
+            out.print(org.loopform.report.ChainSection.summaryJsonText(summary, folder, chainData));
+        } else {
+            out.print(s.format().renderer().auditSummary(summary, folder));
+        }
         out.flush();
         if (summary.badRowCount() > 0 || summary.replay() != null && summary.replay().unreadable() > 0) {
             return ExitCodes.BAD_INPUT;

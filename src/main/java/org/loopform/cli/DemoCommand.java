@@ -75,7 +75,7 @@ final class DemoCommand implements Callable<Integer> {
                     + RECORDS + " (invented)",
                     AuditRunner.Progress.UNKNOWN, signOffOptions.signOff(), files, CatalogLoader.formReadMark())
                     .withRecords(records()), spec.commandLine().getOut(), spec.commandLine().getErr(),
-                    ChainSection.html(chain));
+                    ChainSection.html(chain), chain);
             if (format.format == OutputFormat.text) {
                 spec.commandLine().getOut().print(System.lineSeparator() + ChainSection.summaryText(chain));
                 spec.commandLine().getOut().println("Open " + out.resolve("report.html").toAbsolutePath()

@@ -19,7 +19,7 @@ import org.loopform.io.FolderOutput;
 import org.loopform.io.InputException;
 import org.loopform.io.LoopCsvReader;
 import org.loopform.io.LoopFileReader;
-import org.loopform.io.LoopYamlReader;
+import org.loopform.io.LoopXlsxReader;
 import org.loopform.io.PolicyFileReader;
 import org.loopform.io.TrendColumns;
 import org.loopform.io.TrendCsvReader;
@@ -43,7 +43,8 @@ import picocli.CommandLine.Spec;
                 + " of the list (units, action, filter, scan, other catalog forms) and reports those that reproduce"
                 + " the log best. Then runs the target as it will be entered on the same signals (as left) and"
                 + " reports how its output would differ. Open loop: the PV is the logged one."},
-        footer = {"", "RECORD is a CSV with a header: time (seconds or ISO-8601 timestamps), setpoint, pv, output in"
+        footer = {"", "LIST may be a CSV, .xlsx (with --sheet) or YAML loop list, read as 'audit' reads it.",
+                "", "RECORD is a CSV with a header: time (seconds or ISO-8601 timestamps), setpoint, pv, output in"
                 + " the loop's ranges, optional mode (auto/manual/cascade) and tracking (on/off). Empty cells are"
                 + " points not logged. With --list, RECORD is a folder holding one TAG.csv per loop.",
                 "", "Exit codes: 0 nothing failed; 1 a finding of severity fail; 2 bad input.", "", Cautions.SHORT})
@@ -58,26 +59,14 @@ final class ReplayCommand implements Callable<Integer> {
     @Option(names = "--loop", paramLabel = "LOOP.yaml", description = "The loop file (one loop).")
     Path loopFile;
 
-    @Option(names = "--list", paramLabel = "LIST", description = "A loop list (CSV or YAML) replayed against RECORD/TAG.csv.")
+    @Option(names = "--list", paramLabel = "LIST", description = "A loop list (CSV, .xlsx or YAML) replayed against RECORD/TAG.csv.")
     Path listFile;
 
-    @Option(names = "--time", paramLabel = "COLUMN", defaultValue = "time", description = "Time column (default: ${DEFAULT-VALUE}).")
-    String time;
+    @Mixin
+    RecordColumnOptions columnOptions;
 
-    @Option(names = "--setpoint", paramLabel = "COLUMN", defaultValue = "setpoint", description = "Setpoint column (default: ${DEFAULT-VALUE}).")
-    String setpoint;
-
-    @Option(names = "--pv", paramLabel = "COLUMN", defaultValue = "pv", description = "PV column (default: ${DEFAULT-VALUE}).")
-    String pv;
-
-    @Option(names = "--output", paramLabel = "COLUMN", defaultValue = "output", description = "Controller output column (default: ${DEFAULT-VALUE}).")
-    String output;
-
-    @Option(names = "--mode", paramLabel = "COLUMN", defaultValue = "mode", description = "Mode column, used when present (default: ${DEFAULT-VALUE}).")
-    String mode;
-
-    @Option(names = "--tracking", paramLabel = "COLUMN", defaultValue = "tracking", description = "Output-tracking column, used when present (default: ${DEFAULT-VALUE}).")
-    String tracking;
+    @Mixin
+    SheetOption sheetOption;
 
     @Option(names = "--plot", paramLabel = "FILE.svg", description = "Write an SVG of the logged output and both replays (one loop).")
     Path plot;
@@ -105,6 +94,10 @@ final class ReplayCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (sheetOption.sheet != null && listFile == null) {
+            throw new org.loopform.units.UnitException("--sheet: applies to an .xlsx loop list given with --list;"
+                    + " leave --sheet out, or give --list LIST.xlsx");
+        }
         if ((loopFile == null) == (listFile == null)) {
             throw new InputException("replay: give exactly one of --loop LOOP.yaml (RECORD is a file) or --list LIST"
                     + " (RECORD is a folder of TAG.csv records)");
@@ -113,7 +106,7 @@ final class ReplayCommand implements Callable<Integer> {
                 : new LoopDefaults(CatalogLoader.resolve(to, "--to"), null);
         CheckPolicy policy = policyFile == null ? CheckPolicy.DEFAULT
                 : PolicyFileReader.read(policyFile, policyFile.toString());
-        TrendColumns columns = new TrendColumns(time, setpoint, pv, output, mode, tracking);
+        TrendColumns columns = columnOptions.columns();
         List<FormDefinition> catalog = CatalogLoader.bundled().all();
         var out = spec.commandLine().getOut();
         boolean json = format.format == OutputFormat.json;
@@ -138,6 +131,7 @@ final class ReplayCommand implements Callable<Integer> {
         if (plot != null) {
             throw new InputException("--plot: draws one loop; use it with --loop");
         }
+        sheetOption.checkApplies(listFile.toString());
         if (!Files.isDirectory(record)) {
             throw new InputException(record + ": with --list, RECORD is a folder holding one TAG.csv per loop");
         }
@@ -189,6 +183,16 @@ final class ReplayCommand implements Callable<Integer> {
             return LoopFileReader.rows(listFile, listFile.toString(), defaults).iterator();
         }
         List<LoopRow> rows = new ArrayList<>();
+        if (SheetOption.isXlsx(lower)) {
+            // the reader audit uses: the same columns and checks, every message with its file:sheet!cell
+            try (LoopXlsxReader reader = LoopXlsxReader.open(listFile, listFile.toString(), sheetOption.sheet,
+                    defaults)) {
+                spec.commandLine().getErr().println("loopform: " + listFile + ": reading " + reader.description());
+                spec.commandLine().getErr().flush();
+                reader.forEachRemaining(rows::add);
+            }
+            return rows.iterator();
+        }
         try (LoopCsvReader reader = LoopCsvReader.open(listFile, listFile.toString(), defaults)) {
             reader.forEachRemaining(rows::add);
         }

@@ -57,8 +57,19 @@ public final class AuditOutput implements AutoCloseable {
     private final java.io.OutputStream xlsxFile;
     private final EntrySheetXlsx xlsx;
     private int plotted;
+    /** The time written into the entry sheet's workbook (null: the clock's, as the xlsx writer takes it). */
+    private java.time.Instant fixedTime;
     private boolean finished;
     private boolean abandoned;
+
+    /**
+     * Writes {@code when} as the entry sheet workbook's creation time and its zip entries' times, so that
+     * the whole folder is the same bytes on every run (the audit passes {@code SOURCE_DATE_EPOCH}).
+     */
+    public AuditOutput fixTimes(java.time.Instant when) {
+        this.fixedTime = when;
+        return this;
+    }
 
     /** Writes the report document around its index lines and loop sections, read from {@code index} and {@code sections}. */
     @FunctionalInterface
@@ -200,6 +211,9 @@ public final class AuditOutput implements AutoCloseable {
             entrySheet.close();
             xlsx.finish();
             xlsxFile.close();
+            if (fixedTime != null) {
+                ReproducibleXlsx.fixTimes(temp.resolve("entry-sheet.xlsx"), fixedTime);
+            }
             if (sections != null) {
                 sections.close();
                 index.close();

@@ -32,6 +32,9 @@ public final class RecordFolder implements RecordSource {
     private final java.util.concurrent.ConcurrentSkipListMap<String, String> read =
             new java.util.concurrent.ConcurrentSkipListMap<>();
 
+    /** The records some tag of the list matched (read or not). */
+    private final java.util.Set<Path> matched = java.util.concurrent.ConcurrentHashMap.newKeySet();
+
     private RecordFolder(String shown, TrendColumns columns) {
         this.shown = shown;
         this.columns = columns;
@@ -113,6 +116,30 @@ public final class RecordFolder implements RecordSource {
         String name = shown + "/" + p.getFileName();
         read.put(name, Fingerprint.sha256(p, name));
         return Optional.of(TrendCsvReader.read(p, name, columns));
+    }
+
+    /**
+     * Marks the record {@code tag} would take as matched: {@code TAG.csv}, or when there is none every
+     * file that equals it without regard to case (one is taken; two or more are that loop's problem).
+     */
+    @Override
+    public void seen(String tag) {
+        if (tag == null) {
+            return;
+        }
+        Path p = exact.get(tag);
+        if (p != null) {
+            matched.add(p);
+        } else {
+            matched.addAll(folded.getOrDefault(tag.toLowerCase(Locale.ROOT), List.of()));
+        }
+    }
+
+    /** The records no tag of the list matched, each as {@code FOLDER/NAME.csv}, in name order. */
+    @Override
+    public List<String> unmatched() {
+        return exact.values().stream().filter(p -> !matched.contains(p))
+                .map(p -> shown + "/" + p.getFileName()).sorted().toList();
     }
 
     @Override

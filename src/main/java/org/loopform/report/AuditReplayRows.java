@@ -130,6 +130,8 @@ public final class AuditReplayRows {
         n.put("unreadable", s.unreadable());
         ArrayNode p = n.putArray("problems");
         s.problems().forEach(p::add);
+        ArrayNode u = n.putArray("records_without_loop");
+        s.unmatchedRecords().forEach(u::add);
         return n;
     }
 
@@ -144,6 +146,9 @@ public final class AuditReplayRows {
                 .append(s.explainedByAlternative() > 0 ? "; " + s.explainedByAlternative()
                         + " explained better by another reading" : "").append('.').append(nl);
         sb.append("  ").append(withoutRecordWords(s)).append(nl);
+        if (!s.unmatchedRecords().isEmpty()) {
+            sb.append("  ").append(withoutLoopWords(s)).append(nl);
+        }
         if (s.unreadable() > 0) {
             sb.append("  ").append(s.unreadable()).append(s.unreadable() == 1 ? " record" : " records")
                     .append(" could not be read or replayed:").append(nl);
@@ -165,6 +170,20 @@ public final class AuditReplayRows {
                 ? " and " + (s.withoutRecord() - s.withoutRecordTags().size()) + " more" : "");
         return s.withoutRecord() + (s.withoutRecord() == 1 ? " loop has" : " loops have") + " no record (no TAG.csv"
                 + " in " + s.recordsName() + "), so no replay evidence: " + tags + ".";
+    }
+
+    /**
+     * The one sentence on records that match no loop of the list (empty when every record matched):
+     * they were not replayed, most often because the file's name is not its loop's tag.
+     */
+    public static String withoutLoopWords(ReplaySummary s) {
+        List<String> u = s.unmatchedRecords();
+        if (u.isEmpty()) {
+            return "";
+        }
+        return u.size() + (u.size() == 1 ? " record matches" : " records match") + " no loop of the list, so "
+                + (u.size() == 1 ? "it was" : "they were") + " not replayed: " + String.join(", ", u)
+                + "; name each record TAG.csv after its loop's tag, or take it out of " + s.recordsName() + ".";
     }
 
     private static String num(double v) {

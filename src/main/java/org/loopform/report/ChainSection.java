@@ -160,6 +160,33 @@ public final class ChainSection {
         return sb.toString();
     }
 
+    /**
+     * The chain for a JSON document (the demo's printed summary and loops.json): {@code tag},
+     * {@code record}, {@code origin}, {@code fit} as {@code fit --format json} writes it, and
+     * {@code tune} as {@code tune --rule ... --to TARGET --scan S --robust BOX --format json} writes it
+     * (the check of the converted tuning at the target's scan, and the check at the box's corners).
+     */
+    public static com.fasterxml.jackson.databind.node.ObjectNode json(Chain c) {
+        com.fasterxml.jackson.databind.node.ObjectNode n = Json.object();
+        n.put("tag", c.loop().tag());
+        n.put("record", c.recordName());
+        n.put("origin", c.origin());
+        n.set("fit", FitReport.jsonNode(c.fit()));
+        n.set("tune", TuneReport.jsonNode(c.tuning(), c.check().conversion(),
+                org.loopform.findings.ConversionRules.findings(c.check().conversion()), null, c.check(), c.robust()));
+        return n;
+    }
+
+    /** The audit's JSON summary ({@code out} when {@code folder} is given) with the chain under {@code chain}. */
+    public static String summaryJsonText(org.loopform.audit.AuditSummary s, String folder, Chain c) {
+        com.fasterxml.jackson.databind.node.ObjectNode n = AuditRows.summaryJson(s);
+        if (folder != null) {
+            n.put("out", folder);
+        }
+        n.set("chain", json(c));
+        return Json.write(n);
+    }
+
     /** Two lines for the printed summary: the chain in short, and where the report shows it. */
     public static String summaryText(Chain c) {
         ModelFit f = c.fit().recommendedFit();

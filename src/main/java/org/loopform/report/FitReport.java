@@ -91,6 +91,11 @@ public final class FitReport {
     }
 
     public static String json(StepTestResult r) {
+        return Json.write(jsonNode(r));
+    }
+
+    /** {@code fit}'s JSON of a step test as a node, for documents that carry a fit (the demo's chain). */
+    public static ObjectNode jsonNode(StepTestResult r) {
         ObjectNode n = Json.object();
         n.put("test", "step");
         put(n, "step_pct", r.stepPercent());
@@ -138,7 +143,7 @@ public final class FitReport {
         }
         n.put("reason", r.reason());
         n.set("findings", findingsJson(r.findings()));
-        return Json.write(n);
+        return n;
     }
 
     public static String relayText(RelayResult r) {

@@ -82,6 +82,9 @@ final class HtmlReplaySection {
                     .append(Numbers.significant(best.scanSeconds(), 4)).append(" s). If it is right, correct the loop"
                             + " list and audit again.</p>\n");
         }
+        if (r.fittedTuning() != null) {
+            sb.append(fitted(r.fittedTuning()));
+        }
         sb.append("<p class=\"note\">").append(Html.esc(CAVEAT)).append(" Read: ").append(Html.esc(r.resampling()))
                 .append(".</p>\n");
         if (withPlot) {
@@ -93,6 +96,25 @@ final class HtmlReplaySection {
         }
         sb.append("</div>\n");
         w.write(sb.toString());
+    }
+
+    /** The old tuning fitted to the log ({@code --fit-tuning}): each value with its 95 % interval and unit. */
+    private static String fitted(org.loopform.replay.FittedTuning f) {
+        StringBuilder sb = new StringBuilder("<table class=\"figures replay-fit\"><caption>Old controller fitted to the"
+                + " log (least squares, ").append(Html.esc(f.formId())).append(", scan ")
+                .append(Numbers.significant(f.scanSeconds(), 4)).append(" s, from ").append(Html.esc(f.start()))
+                .append(")</caption>\n<thead><tr><th>parameter</th><th class=\"num\">value</th>"
+                        + "<th class=\"num\">95 % interval</th><th>unit</th></tr></thead><tbody>\n");
+        for (org.loopform.replay.FittedTuning.Value v : f.values()) {
+            sb.append("<tr><th>").append(Html.esc(v.name())).append("</th><td class=\"num\">")
+                    .append(Numbers.significant(v.value(), 6)).append("</td><td class=\"num\">")
+                    .append(Numbers.significant(v.low(), 6)).append(" .. ").append(Numbers.significant(v.high(), 6))
+                    .append("</td><td class=\"unit\">").append(Html.esc(v.unit())).append("</td></tr>\n");
+        }
+        sb.append("</tbody></table>\n<p>Fitted controller vs logged output: ")
+                .append(Html.esc(ReplayReport.figures(f.agreement()))).append(". The intervals hold only if the form,"
+                        + " scan, filter and action are the ones the controller ran.</p>\n");
+        return sb.toString();
     }
 
     private static String verdictWords(ReplayResult r) {
@@ -131,6 +153,9 @@ final class HtmlReplaySection {
                 .append(s.explainedByAlternative() > 0 ? "; for " + s.explainedByAlternative()
                         + " another reading of the list explains the log better (see the loop)" : "")
                 .append(".</p>\n<p>").append(Html.esc(AuditReplayRows.withoutRecordWords(s))).append("</p>\n");
+        if (!s.unmatchedRecords().isEmpty()) {
+            sb.append("<p class=\"unmatched\">").append(Html.esc(AuditReplayRows.withoutLoopWords(s))).append("</p>\n");
+        }
         if (s.unreadable() > 0) {
             sb.append("<p>").append(s.unreadable()).append(s.unreadable() == 1 ? " record" : " records")
                     .append(" could not be read or replayed (the loops were still checked):</p>\n<ul class=\"badrows\">\n");

@@ -103,6 +103,12 @@ public final class TuneReport {
     /** As above, with {@code "robust"} ({@link RobustReport#json}) when {@code robust} is given. */
     public static String json(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings, CheckResult design,
                               CheckResult check, org.loopform.tuning.RobustResult robust) {
+        return Json.write(jsonNode(t, c, convFindings, design, check, robust));
+    }
+
+    /** {@code tune}'s JSON as a node, for documents that carry a tuning by rule (the demo's chain). */
+    public static ObjectNode jsonNode(PublishedTuning t, Conversion c, java.util.List<Finding> convFindings,
+                                      CheckResult design, CheckResult check, org.loopform.tuning.RobustResult robust) {
         ObjectNode n = Json.object();
         RuleTuningText.put(n, t);
         n.put("from", c.from().id());
@@ -130,7 +136,7 @@ public final class TuneReport {
         if (robust != null) {
             n.set("robust", RobustReport.json(robust));
         }
-        return Json.write(n);
+        return n;
     }
 
     /** True when the published structure is the series one (its catalog form then needs n=off). */

@@ -112,4 +112,64 @@ class DemoChainTest {
         assertThat(targetKc).isCloseTo(kc, within(1e-4 * kc));
         assertThat(targetTiMinutes).isCloseTo(ti / 60, within(1e-4 * ti / 60));
     }
+
+    @Test
+    void the_json_summary_carries_the_chain_as_fit_and_tune_write_it(@TempDir Path dir) throws Exception {
+        Path out = dir.resolve("demo-json");
+        CliRun json = CliRun.of("demo", "--format", "json", "--out", out.toString());
+        assertThat(json.exitCode()).as(json.err()).isEqualTo(0);
+        JsonNode chain = new ObjectMapper().readTree(json.out()).get("chain");
+        assertThat(chain.get("tag").asText()).isEqualTo("TIC-104");
+        assertThat(chain.get("record").asText()).isEqualTo("examples/records/tic-104-bump.csv");
+        assertThat(chain.get("origin").asText()).startsWith("Invented");
+        // the fit as `fit --format json` writes it for the same record and spans
+        assertThat(chain.get("fit").get("models").get(0)).isEqualTo(fitted);
+        assertThat(chain.get("fit").get("recommended").asText()).isEqualTo("fopdt");
+        // the tuning as `tune` writes it: SIMC PI (Skogestad 2003, tau_c = theta): Kc = T/(2 K L), tauI = min(T, 8 L)
+        JsonNode tune = chain.get("tune");
+        double gain = fitted.get("parameters").get("gain").asDouble();
+        double lag = fitted.get("parameters").get("time_constant_s").asDouble();
+        double dead = fitted.get("parameters").get("dead_time_s").asDouble();
+        double kc = lag / (2 * gain * dead);
+        double tiSeconds = Math.min(lag, 8 * dead);
+        assertThat(tune.get("rule").asText()).isEqualTo("simc");
+        assertThat(tune.get("published").get("kc").asDouble()).isCloseTo(kc, within(1e-6 * kc));
+        assertThat(tune.get("published").get("ti_s").asDouble()).isCloseTo(tiSeconds, within(1e-6 * tiSeconds));
+        // carried into the target (ideal, gain and minutes: common practice): the same gain, ti in minutes
+        assertThat(tune.get("to").asText()).isEqualTo("plant-k7-target");
+        assertThat(tune.get("parameters").get("kc").asDouble()).isCloseTo(kc, within(1e-6 * kc));
+        assertThat(tune.get("parameters").get("ti").asDouble()).isCloseTo(tiSeconds / 60, within(1e-6 * tiSeconds));
+        assertThat(tune.get("check").get("verdict").asText()).isEqualTo("pass");
+        assertThat(tune.get("robust").isObject()).isTrue();
+        // the same keys, in the same order, as `tune` prints for that model, target and scan
+        String model = "{model: fopdt, gain: " + gain + ", time_constant: " + lag + " s, dead_time: " + dead + " s}";
+        CliRun t = CliRun.of("tune", "--process", model, "--rule", "simc", "--to", "examples/plant-k7-target.yaml",
+                "--scan", "0.5 s", "--pv-range", "0..150", "--out-range", "0..100", "--format", "json");
+        assertThat(t.exitCode()).as(t.err()).isEqualTo(0);
+        JsonNode alone = new ObjectMapper().readTree(t.out());
+        List<String> keys = new java.util.ArrayList<>();
+        tune.fieldNames().forEachRemaining(keys::add);
+        List<String> aloneKeys = new java.util.ArrayList<>();
+        alone.fieldNames().forEachRemaining(aloneKeys::add);
+        keys.remove("robust");
+        assertThat(keys).isEqualTo(aloneKeys);
+        // the model went to `tune` with the 10 digits JSON keeps, so its values agree to about that
+        for (String k : List.of("published", "parameters", "units", "entered")) {
+            tune.get(k).fields().forEachRemaining(e -> {
+                JsonNode other = alone.get(k).get(e.getKey());
+                if (e.getValue().isNumber()) {
+                    assertThat(e.getValue().asDouble()).as(k + "." + e.getKey())
+                            .isCloseTo(other.asDouble(), within(1e-8 * Math.max(1, Math.abs(other.asDouble()))));
+                } else {
+                    assertThat(e.getValue()).as(k + "." + e.getKey()).isEqualTo(other);
+                }
+            });
+        }
+        // loops.json carries the same chain (its numbers at full precision, the printed summary's at 10 digits)
+        JsonNode saved = new ObjectMapper().readTree(out.resolve("loops.json").toFile()).get("chain");
+        assertThat(saved.get("tag")).isEqualTo(chain.get("tag"));
+        assertThat(saved.get("fit").get("recommended")).isEqualTo(chain.get("fit").get("recommended"));
+        assertThat(saved.get("tune").get("check").get("verdict")).isEqualTo(tune.get("check").get("verdict"));
+        assertThat(saved.get("tune").get("parameters").get("kc").asDouble()).isCloseTo(kc, within(1e-6 * kc));
+    }
 }
