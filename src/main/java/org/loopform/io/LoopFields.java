@@ -25,9 +25,22 @@ final class LoopFields {
      */
     static FormDefinition form(String idOrPath, Path folder, String column) {
         String p = idOrPath;
-        if (CatalogLoader.bundled().find(p).isEmpty() && folder != null && !UserPath.of(p, column, "a catalog id or the path of a form file").isAbsolute()
-                && Files.isRegularFile(folder.resolve(p))) {
-            p = folder.resolve(p).toString();
+        if (CatalogLoader.bundled().find(p.trim()).isEmpty() && folder != null) {
+            Path given = UserPath.of(p, column, "a catalog id or the path of a form file");
+            if (!given.isAbsolute()) {
+                Path beside = folder.resolve(given);
+                if (Files.isRegularFile(beside)) {
+                    p = beside.toString();
+                } else if (Files.isRegularFile(given)) {
+                    // never the current folder instead: the same file would then mean different forms
+                    // depending on where loopform is run, and a stray file of that name would be used silently
+                    Path folderAbs = folder.toAbsolutePath().normalize();
+                    String relative = folderAbs.relativize(given.toAbsolutePath().normalize()).toString();
+                    throw new InputException(column + ": form file '" + UserPath.visible(idOrPath) + "' is not in "
+                            + folderAbs + " (a path in a loop file or list is read from that file's folder, not from"
+                            + " the current folder); write '" + relative + "' or an absolute path");
+                }
+            }
         }
         return CatalogLoader.resolve(p, column);
     }

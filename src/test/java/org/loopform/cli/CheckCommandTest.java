@@ -226,6 +226,30 @@ class CheckCommandTest {
     @DisplayName("rejects a bad loop file with exit 2, its line and field, and nothing on stdout")
     class BadLoopFile {
 
+        /**
+         * A form named by a relative path is read from the loop file's folder only: a file of that name
+         * reached from the current folder (the tests run in the project folder, where
+         * examples/plant-k7-target.yaml exists) is refused with the path to write instead (common
+         * practice: paths in a file are relative to that file, so it means the same wherever it is run).
+         */
+        @Test
+        void a_form_path_is_read_from_the_loop_files_folder_never_from_the_current_folder() throws IOException {
+            Path sub = Files.createDirectories(dir.resolve("sub"));
+            Path loop = Files.writeString(sub.resolve("loop.yaml"),
+                    LOOP.replace("form: ideal-pb-repeats", "form: examples/plant-k7-target.yaml"));
+            CliRun run = check(loop);
+            assertThat(run.exitCode()).isEqualTo(2);
+            assertThat(run.err()).contains("loop.yaml:4: target.form:", "is not in " + sub.toAbsolutePath().normalize(),
+                    "not from the current folder");
+            assertThat(run.out()).isEmpty();
+
+            Files.copy(Path.of("examples/plant-k7-target.yaml"), dir.resolve("k7.yaml"));
+            CliRun beside = check(Files.writeString(sub.resolve("loop2.yaml"),
+                    LOOP.replace("form: ideal-pb-repeats", "form: ../k7.yaml")));
+            assertThat(beside.exitCode()).as(beside.err()).isIn(0, 1);
+            assertThat(beside.out()).contains("TIC-7: ideal -> plant-k7-target");
+        }
+
         /** Each row: what to replace in LOOP, its replacement, the line and the field the message must name. */
         @ParameterizedTest(name = "{4}")
         @CsvSource(delimiter = '|', textBlock = """
