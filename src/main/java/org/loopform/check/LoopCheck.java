@@ -106,8 +106,9 @@ public final class LoopCheck {
 
     private static double targetScan(LoopSpec loop) {
         if (loop.targetScanSeconds() == null) {
-            throw new FormException(loop.where() + ": target.scan: required; give the target's scan time, e.g."
-                    + " 'scan: 0.5 s' (or --scan)");
+            throw new FormException(loop.where() + ": target.scan: required; give the new controller's scan time:"
+                    + " 'scan: 0.5 s' under target in a loop file, a target_scan (or scan) column in a CSV list, or"
+                    + " --scan for every loop");
         }
         return loop.targetScanSeconds();
     }

@@ -220,6 +220,10 @@ final class OutputFolder {
 
     static void checkReplaceable(Path out, Path target, boolean force, List<Path> inputs) {
         for (Path in : inputs) {
+            if (in.equals(target)) {
+                throw new InputException(out + ": is an input of this run; --out needs a new folder for the outputs"
+                        + " (choose another --out)");
+            }
             if (in.startsWith(target)) {
                 throw new InputException(out + ": the output folder holds an input (" + in + "); choose another --out");
             }

@@ -20,6 +20,11 @@ public final class CheckReport {
     }
 
     public static String text(CheckResult r) {
+        return text(r, "as-found");
+    }
+
+    /** As {@link #text(CheckResult)}, the old loop's column headed {@code oldColumn} (a new loop has no as-found one). */
+    public static String text(CheckResult r, String oldColumn) {
         String nl = System.lineSeparator();
         Conversion c = r.conversion();
         StringBuilder sb = new StringBuilder();
@@ -41,7 +46,7 @@ public final class CheckReport {
         sb.append("  new controller as run vs old law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
                 .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
-            TextTable t = new TextTable("figure", "as-found", "as-left", "unit");
+            TextTable t = new TextTable("figure", oldColumn, "as-left", "unit");
             LoopSide d = LoopSide.design(r);
             LoopSide g = LoopSide.target(r);
             for (LoopFigure f : LoopFigure.tableOrder()) {
