@@ -115,6 +115,20 @@ class FitSpansTest {
     }
 
     @Test
+    void a_relay_test_needs_its_spans_and_a_pv_beyond_its_span_fails_it() {
+        // the bundled relay test's PV runs 57.2..62.8 degC: over a span given as 0..60 degC, the samples above
+        // 60 degC lie beyond 100 % of span, so Ku in %/% read from them is wrong by the span's error
+        CliRun none = CliRun.of("fit", "examples/records/tic-104-relay.csv", "--relay");
+        assertThat(none.exitCode()).isEqualTo(2);
+        assertThat(none.err()).contains("--pv-range LO..HI and --out-range LO..HI");
+        CliRun wrong = CliRun.of("fit", "examples/records/tic-104-relay.csv", "--relay", "--pv-range", "0..60",
+                "--out-range", "0..100");
+        assertThat(wrong.exitCode()).isEqualTo(1);
+        assertThat(wrong.out()).contains("[fail] outside-span:").contains("of the PV lie outside its span")
+                .startsWith("Record read: PV span 0..60 and output span 0..100");
+    }
+
+    @Test
     void a_time_column_in_minutes_is_read_with_time_unit_and_its_name_warns_without(@TempDir Path dir)
             throws Exception {
         // times logged in minutes (t / 60): T = 60 s is 1 min; read as seconds it would be 1 s, 60 times too short
