@@ -88,7 +88,7 @@ final class AuditCommand implements Callable<Integer> {
     RecordColumnOptions recordColumns;
 
     @Option(names = "--fit-tuning", description = "With --records: also fit each replayed loop's old gain, integral"
-            + " and derivative values (in its form's units) to its logged output by least squares, with 95 % intervals.")
+            + " and derivative values (in its form's units) to its logged output by least squares, with 95 %% intervals.")
     boolean fitTuning;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")

@@ -19,6 +19,7 @@ import org.loopform.report.Cautions;
 import org.loopform.report.FitPlot;
 import org.loopform.report.FitReport;
 import org.loopform.units.Span;
+import org.loopform.units.TimeUnit;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -33,8 +34,8 @@ import picocli.CommandLine.Spec;
                 + " output, with 95 %% intervals, and recommends one; or, with --relay, reads the ultimate gain and"
                 + " period from a relay-feedback test. Says when the record cannot support a model."},
         footer = {"", "Examples:",
-                "  loopform fit bump.csv --time time --output out --pv pv",
                 "  loopform fit bump.csv --pv-range 0..150 --out-range 0..100 --write-process tic104-process.yaml",
+                "  loopform fit bump.csv --percent-of-span --time t_min --time-unit min --output out --pv pv",
                 "", "Exit codes: 0 done; 1 the record cannot support a model (a finding of severity fail); 2 bad"
                         + " input.", "", Cautions.SHORT})
 final class FitCommand implements Callable<Integer> {
@@ -46,8 +47,13 @@ final class FitCommand implements Callable<Integer> {
     Path record;
 
     @Option(names = "--time", paramLabel = "COLUMN", defaultValue = "time",
-            description = "Time column: seconds or ISO-8601 timestamps (default: ${DEFAULT-VALUE}).")
+            description = "Time column: numbers (seconds, or the unit of --time-unit) or ISO-8601 timestamps"
+                    + " (default: ${DEFAULT-VALUE}).")
     String time;
+
+    @Option(names = "--time-unit", paramLabel = "s|min|h", converter = TimeUnitConverter.class,
+            description = "The unit of a time column of numbers (default: s).")
+    TimeUnit timeUnit;
 
     @Option(names = "--output", paramLabel = "COLUMN", defaultValue = "output",
             description = "Controller output column (default: ${DEFAULT-VALUE}).")
@@ -58,12 +64,18 @@ final class FitCommand implements Callable<Integer> {
     String pv;
 
     @Option(names = "--pv-range", paramLabel = "LO..HI", converter = SpanConverter.class,
-            description = "PV range when the record is in engineering units (else the PV is % of span).")
+            description = "The PV's span in the record's units, such as 0..25 for a transmitter of 0 to 25 bar."
+                    + " Required with --out-range, unless --percent-of-span.")
     Span pvRange;
 
     @Option(names = "--out-range", paramLabel = "LO..HI", converter = SpanConverter.class,
-            description = "Output range when the record is in engineering units (else the output is %).")
+            description = "The output's span in the record's units (0..100 when the output is logged in %%)."
+                    + " Required with --pv-range, unless --percent-of-span.")
     Span outRange;
+
+    @Option(names = "--percent-of-span", description = "The record's PV and output are both already in percent"
+            + " of their spans (0..100); instead of --pv-range and --out-range.")
+    boolean percentOfSpan;
 
     @Option(names = "--relay", description = "The record is a relay-feedback test: read Ku and Tu.")
     boolean relay;
@@ -89,29 +101,45 @@ final class FitCommand implements Callable<Integer> {
                 .equals(writeProcess.toAbsolutePath().normalize())) {
             throw new InputException(plot + ": --plot and --write-process name the same file; give two names");
         }
-        PlantRecord r = RecordCsvReader.read(record, record.toString(), time, output, pv, outRange, pvRange);
-        var out = spec.commandLine().getOut();
-        boolean json = format.format == OutputFormat.json;
         if (relay && plot != null) {
             throw new InputException("--plot: draws a step test's fits; leave it out with --relay");
         }
+        requireSpans();
+        Span pvSpan = percentOfSpan ? PERCENT : pvRange;
+        Span outSpan = percentOfSpan ? PERCENT : outRange;
+        RecordCsvReader.Reading read = RecordCsvReader.read(record, record.toString(), time, output, pv, outSpan,
+                pvSpan, timeUnit);
+        PlantRecord r = read.record();
+        FitReport.Reading reading = new FitReport.Reading(pvSpan, outSpan, percentOfSpan, time.strip(),
+                read.timeReadAs());
+        DataFinding timeFinding = read.timestamps() ? null : timeUnitFinding(time, timeUnit);
+        var out = spec.commandLine().getOut();
+        boolean json = format.format == OutputFormat.json;
         if (relay) {
             RelayResult rr = RelayAnalysis.analyze(r);
-            out.print(json ? FitReport.relayJson(rr) : FitReport.relayText(rr));
+            if (timeFinding != null) {
+                rr = new RelayResult(rr.ultimateGain(), rr.ultimatePeriodSeconds(), rr.relayAmplitudePercent(),
+                        rr.pvAmplitudePercent(), rr.cycles(), with(rr.findings(), timeFinding));
+            }
+            out.print(json ? FitReport.relayJson(rr, reading) : FitReport.relayText(rr, reading));
             out.flush();
             return failed(rr.findings()) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
         }
-        StepTestResult res = StepIdentification.identify(r, pvRange != null && outRange != null);
+        StepTestResult res = StepIdentification.identify(r, true);
+        if (timeFinding != null) {
+            res = new StepTestResult(with(res.findings(), timeFinding), res.estimates(), res.fits(), res.recommended(),
+                    res.reason(), res.noisePercent(), res.stepPercent());
+        }
         ModelFit best = res.recommendedFit();
         // the plot first: its checks (a file loopform did not write) can still refuse; the process file's were made
         if (plot != null) {
             AtomicFiles.write(plot, AtomicFiles.markedSvg(FitPlot.svg(r, res)), List.of(record));
         }
         if (writeProcess != null && best != null) {
-            AtomicFiles.write(writeProcess, FitReport.processBlock(best, record.getFileName().toString()),
+            AtomicFiles.write(writeProcess, FitReport.processBlock(best, record.getFileName().toString(), reading),
                     List.of(record));
         }
-        out.print(json ? FitReport.json(res) : FitReport.text(res));
+        out.print(json ? FitReport.json(res, reading) : FitReport.text(res, reading));
         if (plot != null && !json) {
             out.println("Plot written to " + plot);
         }
@@ -121,6 +149,56 @@ final class FitCommand implements Callable<Integer> {
         }
         out.flush();
         return failed(res.findings()) || best == null ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
+    }
+
+    /** A record declared in percent of span is read over this span. */
+    private static final Span PERCENT = new Span(0, 100);
+
+    /** Refuses to guess the record's scaling: both spans, or the declaration that it is in percent, never neither. */
+    private void requireSpans() {
+        if (percentOfSpan) {
+            if (pvRange != null || outRange != null) {
+                throw new InputException("--percent-of-span: says the record is already in percent of span, so it"
+                        + " takes no " + (pvRange != null ? "--pv-range" : "--out-range") + "; give either both"
+                        + " ranges (for a column logged in %, the range 0..100) or --percent-of-span alone");
+            }
+            return;
+        }
+        if (pvRange == null && outRange == null) {
+            throw new InputException(record + ": fit needs the record's spans to read its PV and output as percent"
+                    + " of span, and will not assume them: give --pv-range LO..HI and --out-range LO..HI in the"
+                    + " record's units (--out-range 0..100 when the output is logged in %), or --percent-of-span when"
+                    + " both columns are already in percent of span");
+        }
+        if (pvRange == null || outRange == null) {
+            String missing = pvRange == null ? "--pv-range" : "--out-range";
+            throw new InputException(missing + ": missing; fit needs both spans, the PV's and the output's, in the"
+                    + " record's units (" + (pvRange == null ? "the PV's transmitter range, such as 0..150"
+                    : "0..100 when the output is logged in %") + ")");
+        }
+    }
+
+    /**
+     * A warning when the time column's name suggests a unit other than the one it was read in (such as
+     * {@code time_min} read as seconds); null when it suggests none or the same.
+     */
+    static DataFinding timeUnitFinding(String column, TimeUnit given) {
+        String readAs = given == null ? "s" : given.symbol();
+        String suggested = RecordCsvReader.unitSuggestedBy(column).orElse(null);
+        if (suggested == null || suggested.equals(readAs)) {
+            return null;
+        }
+        return new DataFinding("time-unit", Severity.WARN, "The time column '" + column.strip() + "' was read in "
+                + readAs + (given == null ? " (the default)" : "") + ", but its name suggests " + suggested + ": if its"
+                + " numbers are in " + suggested + ", every time constant and dead time above is off by the same"
+                + " factor; give --time-unit with the column's unit and fit again.");
+    }
+
+    private static List<DataFinding> with(List<DataFinding> findings, DataFinding added) {
+        List<DataFinding> all = new java.util.ArrayList<>(findings);
+        all.add(added);
+        all.sort((a, b) -> b.severity().compareTo(a.severity()));
+        return all;
     }
 
     private static boolean failed(List<DataFinding> findings) {

@@ -83,7 +83,7 @@ final class ReplayCommand implements Callable<Integer> {
     boolean force;
 
     @Option(names = "--fit-tuning", description = "Also fit the old controller's gain, integral and derivative values"
-            + " (in its form's units) to the logged output by least squares, with 95 % intervals.")
+            + " (in its form's units) to the logged output by least squares, with 95 %% intervals.")
     boolean fitTuning;
 
     @Option(names = "--policy", paramLabel = "FILE", description = "A YAML file of thresholds (the replay_* keys among them; see 'loopform check --help').")

@@ -6,7 +6,8 @@ import org.loopform.findings.Severity;
  * Something about a record that limits what can be fitted to it: {@code fail} when no model can be
  * trusted, {@code warn} when the fit stands but with a caveat.
  *
- * @param code a stable id: no-step, unsteady-baseline, too-short, noise, saturation, small-step, no-oscillation
+ * @param code a stable id: no-step, unsteady-baseline, too-short, noise, saturation, outside-span, small-step,
+ *             no-oscillation, time-unit
  * @param severity warn or fail
  * @param message what was found, with its figures and units, and what to do
  */

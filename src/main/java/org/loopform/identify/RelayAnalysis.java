@@ -20,10 +20,12 @@ public final class RelayAnalysis {
     /**
      * The relay's amplitude is half the output's swing; the PV's amplitude half its mean peak-to-peak over the
      * whole cycles after the first (the first is a transient); Tu the mean time between upward crossings of
-     * the PV's mean over the same cycles.
+     * the PV's mean over the same cycles. Samples outside their spans are a finding of severity fail
+     * (the spans, and so Ku in %/%, are wrong).
      */
     public static RelayResult analyze(PlantRecord r) {
         List<DataFinding> findings = new ArrayList<>();
+        StepIdentification.outsideSpan(r, findings);
         int n = r.size();
         double uMin = Double.POSITIVE_INFINITY;
         double uMax = Double.NEGATIVE_INFINITY;

@@ -30,8 +30,8 @@ public final class StepIdentification {
     }
 
     /**
-     * Identifies {@code r}; {@code outputLimits} and {@code pvLimits} are the spans' ends in percent (0 and 100
-     * when the record was scaled by ranges), null when unknown (no saturation check then).
+     * Identifies {@code r}; with {@code checkLimits} (the record was put in percent of spans that are known)
+     * samples at the spans' ends are saturation and samples beyond them a wrong span (findings).
      */
     public static StepTestResult identify(PlantRecord r, boolean checkLimits) {
         List<DataFinding> findings = new ArrayList<>();
@@ -247,13 +247,14 @@ public final class StepIdentification {
     }
 
     private static void saturation(PlantRecord r, List<DataFinding> findings) {
+        outsideSpan(r, findings);
         int outAtLimit = 0;
         int pvAtLimit = 0;
         for (int k = 0; k < r.size(); k++) {
-            if (r.output(k) <= 0 || r.output(k) >= 100) {
+            if (r.output(k) == 0 || r.output(k) == 100) {
                 outAtLimit++;
             }
-            if (r.pv(k) <= 0 || r.pv(k) >= 100) {
+            if (r.pv(k) == 0 || r.pv(k) == 100) {
                 pvAtLimit++;
             }
         }
@@ -266,6 +267,36 @@ public final class StepIdentification {
             findings.add(new DataFinding("saturation", Severity.FAIL, pvAtLimit + " sample(s) of the PV sit at the end"
                     + " of its range: the transmitter clipped the response, and a fit would read the clipping as"
                     + " dynamics; repeat the test with a smaller step or check the PV range."));
+        }
+    }
+
+    /**
+     * Samples outside 0..100 % of their span: a controller output cannot leave its range and a PV beyond its
+     * span is beyond what the transmitter reports, so the span given (or the record's units) is wrong, and the
+     * gain in %/% with it (loopform policy: fail, since a wrong gain gives a wrong tuning a false pass).
+     */
+    static void outsideSpan(PlantRecord r, List<DataFinding> findings) {
+        outside(findings, "output", r.outputs());
+        outside(findings, "PV", r.pvs());
+    }
+
+    private static void outside(List<DataFinding> findings, String what, double[] percent) {
+        int count = 0;
+        double low = Double.POSITIVE_INFINITY;
+        double high = Double.NEGATIVE_INFINITY;
+        for (double x : percent) {
+            low = Math.min(low, x);
+            high = Math.max(high, x);
+            if (x < 0 || x > 100) {
+                count++;
+            }
+        }
+        if (count > 0) {
+            findings.add(new DataFinding("outside-span", Severity.FAIL, count + " sample(s) of the " + what
+                    + " lie outside its span (the " + what + " runs from " + Numbers.significant(low, 4) + " % to "
+                    + Numbers.significant(high, 4) + " % of span): the span given is not the " + what + "'s, or the"
+                    + " record is not in the span's units, and every gain read from it would be off by the same"
+                    + " factor; give the " + what + "'s span in the record's units."));
         }
     }
 

@@ -24,27 +24,61 @@ import org.loopform.units.Span;
 /**
  * Reads a logged record from CSV: a header row naming the columns, one sample a row. The time column
  * holds seconds (any origin) or ISO-8601 timestamps ({@code 2024-05-01T10:00:00}, with or without an
- * offset; without one they are read as UTC, which only their differences use). With ranges the output
- * and PV are in engineering units and are scaled to percent of span; without them they are percent.
+ * offset; without one they are read as UTC, which only their differences use); numbers are read in the
+ * unit given (seconds unless told otherwise). The output and PV are put in percent of the spans given,
+ * {@code 100 (x - low) / (high - low)}; both spans are required (a record already in percent of span is
+ * read over {@code 0..100}), so that no scaling is ever assumed.
  */
 public final class RecordCsvReader {
 
     private RecordCsvReader() {
     }
 
+    /**
+     * The record read, and how its time column was read.
+     *
+     * @param record the samples, in seconds and percent of span
+     * @param timestamps true when the time column held ISO-8601 timestamps, false when it held numbers
+     * @param timeUnit the unit the numbers were read in (seconds when the column held timestamps)
+     */
+    public record Reading(PlantRecord record, boolean timestamps, org.loopform.units.TimeUnit timeUnit) {
+
+        /** How the time column was read, in words: "ISO-8601 timestamps" or "numbers in s". */
+        public String timeReadAs() {
+            return timestamps ? "ISO-8601 timestamps" : "numbers in " + timeUnit.symbol();
+        }
+    }
+
     public static PlantRecord read(Path file, String name, String timeColumn, String outputColumn, String pvColumn,
                                    Span outRange, Span pvRange) {
-        return read(() -> TextInput.open(file, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange);
+        return read(file, name, timeColumn, outputColumn, pvColumn, outRange, pvRange, null).record();
+    }
+
+    /**
+     * Reads {@code file}; {@code timeUnit} is the unit of a numeric time column (null: seconds); a time column
+     * of timestamps with a unit given is refused (timestamps carry their own).
+     */
+    public static Reading read(Path file, String name, String timeColumn, String outputColumn, String pvColumn,
+                               Span outRange, Span pvRange, org.loopform.units.TimeUnit timeUnit) {
+        return read(() -> TextInput.open(file, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange,
+                timeUnit);
     }
 
     /** As {@link #read(Path, String, String, String, String, Span, Span)}, from a stream (a record bundled in the jar). */
     public static PlantRecord read(java.io.InputStream stream, String name, String timeColumn, String outputColumn,
                                    String pvColumn, Span outRange, Span pvRange) {
-        return read(() -> new Utf8Reader(stream, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange);
+        return read(() -> new Utf8Reader(stream, name), name, timeColumn, outputColumn, pvColumn, outRange, pvRange,
+                null).record();
     }
 
-    private static PlantRecord read(java.util.function.Supplier<Utf8Reader> open, String name, String timeColumn,
-                                    String outputColumn, String pvColumn, Span outRange, Span pvRange) {
+    private static Reading read(java.util.function.Supplier<Utf8Reader> open, String name, String timeColumn,
+                                String outputColumn, String pvColumn, Span outRange, Span pvRange,
+                                org.loopform.units.TimeUnit timeUnit) {
+        if (outRange == null || pvRange == null) {
+            throw new IllegalArgumentException("a record is read over both spans (0..100 when already in percent)");
+        }
+        double unitSeconds = timeUnit == null ? 1.0 : timeUnit.seconds();
+        Boolean timestamps = null;
         List<Double> t = new ArrayList<>();
         List<Double> u = new ArrayList<>();
         List<Double> y = new ArrayList<>();
@@ -77,14 +111,30 @@ public final class RecordCsvReader {
                 }
                 String ts = rec.get(tc);
                 double seconds;
-                try {
-                    seconds = Double.parseDouble(ts);
-                } catch (NumberFormatException e) {
+                Double number = parseNumber(ts);
+                if (number != null) {
+                    if (Boolean.TRUE.equals(timestamps)) {
+                        throw new InputException(name + ":" + line + ": " + tc + ": a number among ISO-8601"
+                                + " timestamps (got '" + ts + "'); write every time the same way");
+                    }
+                    timestamps = false;
+                    seconds = number * unitSeconds;
+                } else {
                     Instant at = instant(ts);
                     if (at == null) {
-                        throw new InputException(name + ":" + line + ": " + tc + ": must be seconds or an ISO-8601"
-                                + " timestamp such as 2024-05-01T10:00:00 (got '" + ts + "')");
+                        throw new InputException(name + ":" + line + ": " + tc + ": must be a number (seconds, or the"
+                                + " unit of --time-unit) or an ISO-8601 timestamp such as 2024-05-01T10:00:00 (got '"
+                                + ts + "')");
                     }
+                    if (Boolean.FALSE.equals(timestamps)) {
+                        throw new InputException(name + ":" + line + ": " + tc + ": an ISO-8601 timestamp among"
+                                + " numbers (got '" + ts + "'); write every time the same way");
+                    }
+                    if (timeUnit != null) {
+                        throw new InputException(name + ":" + line + ": " + tc + ": holds ISO-8601 timestamps, which"
+                                + " carry their own unit; leave --time-unit out");
+                    }
+                    timestamps = true;
                     origin = origin == null ? at : origin;
                     seconds = java.time.Duration.between(origin, at).toNanos() / 1e9;
                 }
@@ -95,8 +145,8 @@ public final class RecordCsvReader {
                             + " after the previous row); sort the record by time and remove repeated rows");
                 }
                 t.add(seconds);
-                u.add(outRange == null ? out : 100 * (out - outRange.low()) / outRange.width());
-                y.add(pvRange == null ? pv : 100 * (pv - pvRange.low()) / pvRange.width());
+                u.add(100 * (out - outRange.low()) / outRange.width());
+                y.add(100 * (pv - pvRange.low()) / pvRange.width());
             }
         } catch (NotUtf8Exception e) {
             throw e.toInput();
@@ -117,7 +167,17 @@ public final class RecordCsvReader {
             ua[k] = u.get(k);
             ya[k] = y.get(k);
         }
-        return new PlantRecord(ta, ua, ya);
+        return new Reading(new PlantRecord(ta, ua, ya), Boolean.TRUE.equals(timestamps),
+                timeUnit == null ? org.loopform.units.TimeUnit.SECONDS : timeUnit);
+    }
+
+    private static Double parseNumber(String text) {
+        try {
+            double v = Double.parseDouble(text);
+            return Double.isFinite(v) ? v : null;
+        } catch (NumberFormatException e) {
+            return null;
+        }
     }
 
     private static String column(Map<String, Integer> header, String wanted, String option, String name) {
@@ -154,6 +214,34 @@ public final class RecordCsvReader {
                 return null;
             }
         }
+    }
+
+    /**
+     * The time unit a column's name suggests, from its words ({@code time_min}, {@code t [h]}, {@code Hours},
+     * {@code elapsed_ms}): "s", "min", "h" or "ms"; empty when it names none.
+     */
+    public static java.util.Optional<String> unitSuggestedBy(String column) {
+        String spaced = column.replaceAll("([a-z])([A-Z])", "$1 $2");
+        for (String word : lower(spaced).split("[^a-z]+")) {
+            switch (word) {
+                case "s", "sec", "secs", "second", "seconds" -> {
+                    return java.util.Optional.of("s");
+                }
+                case "min", "mins", "minute", "minutes" -> {
+                    return java.util.Optional.of("min");
+                }
+                case "h", "hr", "hrs", "hour", "hours" -> {
+                    return java.util.Optional.of("h");
+                }
+                case "ms", "msec", "millis", "milliseconds" -> {
+                    return java.util.Optional.of("ms");
+                }
+                default -> {
+                    // not a unit
+                }
+            }
+        }
+        return java.util.Optional.empty();
     }
 
     static String lower(String s) {

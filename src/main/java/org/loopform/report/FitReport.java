@@ -10,11 +10,51 @@ import org.loopform.identify.ModelKind;
 import org.loopform.identify.RelayResult;
 import org.loopform.identify.StepTestResult;
 import org.loopform.units.Numbers;
+import org.loopform.units.Span;
 
 /** What {@code loopform fit} found: models with intervals, estimates, findings; or a relay test's cycle. */
 public final class FitReport {
 
     private FitReport() {
+    }
+
+    /**
+     * How {@code fit} read its record, stated in every output so that no scaling or time unit is assumed unseen.
+     *
+     * @param pvSpan the PV's span in the record's units (0..100 when the record was declared in percent)
+     * @param outputSpan the output's span in the record's units
+     * @param percentDeclared true when the record was declared already in percent of span (--percent-of-span)
+     * @param timeColumn the time column's name
+     * @param timeReadAs how it was read: "ISO-8601 timestamps" or "numbers in s" (min, h)
+     */
+    public record Reading(Span pvSpan, Span outputSpan, boolean percentDeclared, String timeColumn,
+                          String timeReadAs) {
+
+        /** One line of text, ending with a line separator. */
+        String text() {
+            String nl = System.lineSeparator();
+            String spans = percentDeclared
+                    ? "PV and output declared already in % of span (--percent-of-span)"
+                    : "PV span " + pvSpan + " and output span " + outputSpan + " in the record's units (--pv-range,"
+                    + " --out-range), put in % of span";
+            return "Record read: " + spans + "; time column '" + timeColumn + "' read as " + timeReadAs + "." + nl;
+        }
+
+        ObjectNode json() {
+            ObjectNode o = Json.object();
+            o.put("spans_from", percentDeclared ? "percent-of-span" : "ranges");
+            o.put("pv_span", pvSpan.toString());
+            o.put("output_span", outputSpan.toString());
+            o.put("time_column", timeColumn);
+            o.put("time_read_as", timeReadAs);
+            return o;
+        }
+
+        String comment() {
+            return percentDeclared ? "# the record was declared already in % of span (--percent-of-span)\n"
+                    : "# the record was read with PV span " + pvSpan + " and output span " + outputSpan
+                    + " (its units), time as " + timeReadAs + "\n";
+        }
     }
 
     private static String v(double x) {
@@ -25,9 +65,9 @@ public final class FitReport {
         return Double.isFinite(lo) && Double.isFinite(hi) ? v(lo) + " .. " + v(hi) : "not determined";
     }
 
-    public static String text(StepTestResult r) {
+    public static String text(StepTestResult r, Reading reading) {
         String nl = System.lineSeparator();
-        StringBuilder sb = new StringBuilder();
+        StringBuilder sb = new StringBuilder(reading.text());
         sb.append("Step test: first output step ").append(v(r.stepPercent())).append(" % of span; PV noise ")
                 .append(v(r.noisePercent())).append(" % of span (standard deviation)").append(nl);
         for (GraphicalEstimate e : r.estimates()) {
@@ -90,8 +130,10 @@ public final class FitReport {
         return a;
     }
 
-    public static String json(StepTestResult r) {
-        return Json.write(jsonNode(r));
+    public static String json(StepTestResult r, Reading reading) {
+        ObjectNode n = jsonNode(r);
+        n.set("record", reading.json());
+        return Json.write(n);
     }
 
     /** {@code fit}'s JSON of a step test as a node, for documents that carry a fit (the demo's chain). */
@@ -146,9 +188,9 @@ public final class FitReport {
         return n;
     }
 
-    public static String relayText(RelayResult r) {
+    public static String relayText(RelayResult r, Reading reading) {
         String nl = System.lineSeparator();
-        StringBuilder sb = new StringBuilder("Relay test: ");
+        StringBuilder sb = new StringBuilder(reading.text()).append("Relay test: ");
         if (r.cycles() == 0) {
             sb.append("no ultimate cycle could be read.").append(nl);
         } else {
@@ -164,9 +206,10 @@ public final class FitReport {
         return sb.toString();
     }
 
-    public static String relayJson(RelayResult r) {
+    public static String relayJson(RelayResult r, Reading reading) {
         ObjectNode n = Json.object();
         n.put("test", "relay");
+        n.set("record", reading.json());
         if (r.cycles() > 0) {
             n.put("ku", r.ultimateGain());
             n.put("tu_s", r.ultimatePeriodSeconds());
@@ -193,10 +236,10 @@ public final class FitReport {
     }
 
     /** A loop file's process block for {@code f}, marked as written by loopform. */
-    public static String processBlock(ModelFit f, String recordName) {
+    public static String processBlock(ModelFit f, String recordName, Reading reading) {
         String nl = "\n";
         StringBuilder sb = new StringBuilder("# written by loopform fit from " + recordName + "; gains in %/% of the"
-                + " spans" + nl + "process:" + nl);
+                + " spans" + nl + reading.comment() + "process:" + nl);
         sb.append("  model: ").append(f.kind().id()).append(nl);
         sb.append("  gain: ").append(Numbers.significant(f.gain(), 6)).append(nl);
         if (f.kind() != ModelKind.IPDT) {

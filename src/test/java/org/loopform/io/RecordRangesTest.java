@@ -33,7 +33,7 @@ class RecordRangesTest {
     void a_repeated_time_is_refused(@TempDir Path dir) throws Exception {
         Path f = dir.resolve("r.csv");
         Files.writeString(f, "time,output,pv\n0,1,1\n1,1,1\n1,1,1\n2,1,1\n");
-        assertThatThrownBy(() -> RecordCsvReader.read(f, "r.csv", "time", "output", "pv", null, null))
+        assertThatThrownBy(() -> RecordCsvReader.read(f, "r.csv", "time", "output", "pv", new Span(0, 100), new Span(0, 100)))
                 .hasMessageContaining("r.csv:4: time: times must increase");
     }
 }
