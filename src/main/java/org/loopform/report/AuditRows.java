@@ -172,21 +172,25 @@ public final class AuditRows {
         String oldForm = rule == null ? v.from().id() : "rule " + RuleTuningText.title(rule) + " (" + v.from().id() + ")";
         String ruleNote = rule == null ? "" : "new loop, no as-found value: old_* are rule " + RuleTuningText.title(rule)
                 + "'s values as published (" + rule.rule().source() + ")";
+        // a loop that fails is never entered: every one of its rows carries the flag and says why
+        boolean loopFails = c.verdict() == Verdict.FAIL;
+        String failNote = loopFails ? EntryNotes.loopFails(c.findings()) : "";
         v.entered().values().forEach((k, x) -> {
             String src = oldFor.get(k);
             String[] oldValue = src == null ? new String[] {"", ""} : rule != null
                     ? RuleTuningText.valueAndUnit(rule, src) : valueAndUnit(old.get(src), v, src);
             boolean refused = v.refusal(k) != null;
-            String note = refused ? "do not enter: " + v.refusal(k) + (ruleNote.isEmpty() ? "" : "; " + ruleNote)
-                    : ruleNote;
+            String note = EntryNotes.join(refused ? "do not enter: " + v.refusal(k) : failNote, ruleNote);
             rows.add(List.of(c.loop().tag(), v.to().id(), k, refused ? "" : FormCodec.show(v.to(), k, x, 6),
                     FormUnits.of(v.to(), k), c.verdict().id(), note,
-                    oldForm, src == null ? "" : src, oldValue[0], oldValue[1], refused ? "yes" : "", "", "", ""));
+                    oldForm, src == null ? "" : src, oldValue[0], oldValue[1], refused || loopFails ? "yes" : "",
+                    "", "", ""));
         });
         if (v.entered().action() != null) {
             String oldAction = old.getOrDefault("action", "");
             rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
-                    ruleNote, oldForm, oldAction.isEmpty() ? "" : "action", oldAction.trim(), "", "", "", "", ""));
+                    EntryNotes.join(failNote, ruleNote), oldForm, oldAction.isEmpty() ? "" : "action",
+                    oldAction.trim(), "", loopFails ? "yes" : "", "", "", ""));
         }
         return rows;
     }
