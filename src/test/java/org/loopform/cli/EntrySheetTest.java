@@ -115,6 +115,44 @@ class EntrySheetTest {
         assertThat(xlsx).contains("loop fails: stability - ").contains("loop fails: limits - ");
     }
 
+    @Test
+    void the_workbook_shades_the_rows_not_to_be_entered_and_only_those() throws Exception {
+        Path xlsx = auditWithFailingLoops().resolve("entry-sheet.xlsx");
+        String styles = entry(xlsx, "xl/styles.xml");
+        String sheet = entry(xlsx, "xl/worksheets/sheet1.xml");
+        // SpreadsheetML (ECMA-376 Part 1, 18.8.20 fill, 18.8.45 xf): a cell's s attribute picks an xf, whose
+        // fillId picks a fill; the shade is the one fill with the light red colour
+        assertThat(styles).containsIgnoringCase("FFC7CE");
+        List<String> xfs = java.util.regex.Pattern.compile("<xf [^>]*>").matcher(
+                styles.substring(styles.indexOf("<cellXfs"))).results().map(java.util.regex.MatchResult::group).toList();
+        List<String> fills = java.util.regex.Pattern.compile("<fill>.*?</fill>").matcher(styles).results()
+                .map(java.util.regex.MatchResult::group).toList();
+        java.util.function.Predicate<String> shaded = row -> {
+            java.util.regex.Matcher m = java.util.regex.Pattern.compile(" s=\"(\\d+)\"").matcher(row);
+            while (m.find()) {
+                java.util.regex.Matcher f = java.util.regex.Pattern.compile("fillId=\"(\\d+)\"")
+                        .matcher(xfs.get(Integer.parseInt(m.group(1))));
+                if (f.find() && fills.get(Integer.parseInt(f.group(1))).toUpperCase().contains("FFC7CE")) {
+                    return true;
+                }
+            }
+            return false;
+        };
+        List<String> rows = java.util.regex.Pattern.compile("<row .*?</row>").matcher(sheet).results()
+                .map(java.util.regex.MatchResult::group).toList();
+        // header, 4 rows of FIC-1 (kc, ti, td, action), then PIC-405 and TIC-312's 4 rows each, all flagged
+        List<org.apache.commons.csv.CSVRecord> csv = new java.util.ArrayList<>();
+        for (String tag : List.of("FIC-1", "PIC-405", "TIC-312")) {
+            csv.addAll(rows(xlsx.resolveSibling("entry-sheet.csv"), tag));
+        }
+        assertThat(rows).hasSize(csv.size() + 1);
+        assertThat(shaded.test(rows.get(0))).isFalse();
+        for (int i = 0; i < csv.size(); i++) {
+            assertThat(shaded.test(rows.get(i + 1))).as(csv.get(i).toString())
+                    .isEqualTo(csv.get(i).get("do_not_enter").equals("yes"));
+        }
+    }
+
     private static String entry(Path zip, String name) throws Exception {
         // the central directory, as a spreadsheet reads it (entries are streamed with data descriptors)
         try (java.util.zip.ZipFile z = new java.util.zip.ZipFile(zip.toFile())) {
