@@ -58,7 +58,9 @@ public final class AuditRows {
      * Entry-sheet columns (entry-sheet.csv and .xlsx): one row per value to type in. The first five
      * are the new value as before; then the old (as-found) value it replaces with its unit, the
      * verdict, a do-not-enter flag, a note, and three columns left blank for the commissioning team:
-     * the value actually entered (as-left), by whom and on which date.
+     * the value actually entered (as-left), by whom and on which date. Every row of a loop whose
+     * verdict is fail is flagged do-not-enter, its note naming why ({@link EntryNotes}); a value the
+     * target refuses keeps its own note and an empty value.
      */
     public static final List<String> ENTRY_COLUMNS = List.of("tag", "target_form", "parameter", "value", "unit",
             "verdict", "note", "old_form", "old_parameter", "old_value", "old_unit", "do_not_enter", "as_left",
@@ -125,16 +127,23 @@ public final class AuditRows {
         r.add(c.findings().stream().filter(f -> f.severity() != Severity.INFO)
                 .map(f -> f.topic().id() + " (" + f.severity().id() + ")").collect(Collectors.joining("; ")));
         r.addAll(LoopFigure.csvCells(LoopFigure.csvFigures(true), design, target));
-        r.add(design.map(x -> notes(x.margins())).orElse(""));
-        r.add(target.map(x -> notes(x.margins())).orElse(""));
+        r.add(design.map(AuditRows::notes).orElse(""));
+        r.add(target.map(AuditRows::notes).orElse(""));
         r.add(rule == null ? "" : RuleTuningText.title(rule));
         r.add(rule == null ? "" : rule.rule().source());
         r.add("");
         return spreadsheetRow(r);
     }
 
-    /** Why margins are blank in a row: "gain margin: the phase never reaches -180 deg; ...", empty when none is. */
-    private static String notes(LoopMargins m) {
+    /**
+     * Why margins are blank in a row: "gain margin: the phase never reaches -180 deg; ...", or for a
+     * loop that is not stable "loop unstable: margins, Ms and responses left out"; empty when none is.
+     */
+    private static String notes(LoopSide side) {
+        if (!side.stability().isStable()) {
+            return "loop " + side.stability().verdict().word() + ": margins, Ms and responses left out";
+        }
+        LoopMargins m = side.margins();
         List<String> parts = new ArrayList<>();
         m.gainMarginNote().ifPresent(n -> parts.add("gain margin: " + n.text()));
         m.phaseMarginNote().ifPresent(n -> parts.add("phase and delay margins: " + n.text()));
@@ -172,21 +181,25 @@ public final class AuditRows {
         String oldForm = rule == null ? v.from().id() : "rule " + RuleTuningText.title(rule) + " (" + v.from().id() + ")";
         String ruleNote = rule == null ? "" : "new loop, no as-found value: old_* are rule " + RuleTuningText.title(rule)
                 + "'s values as published (" + rule.rule().source() + ")";
+        // a loop that fails is never entered: every one of its rows carries the flag and says why
+        boolean loopFails = c.verdict() == Verdict.FAIL;
+        String failNote = loopFails ? EntryNotes.loopFails(c.findings()) : "";
         v.entered().values().forEach((k, x) -> {
             String src = oldFor.get(k);
             String[] oldValue = src == null ? new String[] {"", ""} : rule != null
                     ? RuleTuningText.valueAndUnit(rule, src) : valueAndUnit(old.get(src), v, src);
             boolean refused = v.refusal(k) != null;
-            String note = refused ? "do not enter: " + v.refusal(k) + (ruleNote.isEmpty() ? "" : "; " + ruleNote)
-                    : ruleNote;
+            String note = EntryNotes.join(refused ? "do not enter: " + v.refusal(k) : failNote, ruleNote);
             rows.add(List.of(c.loop().tag(), v.to().id(), k, refused ? "" : FormCodec.show(v.to(), k, x, 6),
                     FormUnits.of(v.to(), k), c.verdict().id(), note,
-                    oldForm, src == null ? "" : src, oldValue[0], oldValue[1], refused ? "yes" : "", "", "", ""));
+                    oldForm, src == null ? "" : src, oldValue[0], oldValue[1], refused || loopFails ? "yes" : "",
+                    "", "", ""));
         });
         if (v.entered().action() != null) {
             String oldAction = old.getOrDefault("action", "");
             rows.add(List.of(c.loop().tag(), v.to().id(), "action", v.entered().action().id(), "", c.verdict().id(),
-                    ruleNote, oldForm, oldAction.isEmpty() ? "" : "action", oldAction.trim(), "", "", "", "", ""));
+                    EntryNotes.join(failNote, ruleNote), oldForm, oldAction.isEmpty() ? "" : "action",
+                    oldAction.trim(), "", loopFails ? "yes" : "", "", "", ""));
         }
         return rows;
     }

@@ -73,13 +73,8 @@ public final class CheckReport {
                     .append(r.targetStability().verdict().word()).append(" (")
                     .append(r.targetStability().test().describe()).append(")").append(nl)
                     .append("    as-left: ").append(r.targetStability().explanation()).append(nl);
-            if (!r.designStability().isStable() || !r.targetStability().isStable()) {
-                boolean design = !r.designStability().isStable();
-                sb.append("  ").append((design ? r.designStability() : r.targetStability()).verdict().word()
-                        .toUpperCase(java.util.Locale.ROOT)).append(": ").append(design ? "the as-found loop"
-                        : "the as-left loop").append(" is not stable; its responses are held only by the output limits"
-                        + " and are not figures to compare.").append(nl);
-            }
+            notStable(r).ifPresent(note -> sb.append("  ").append(notStableLabel(r)).append(": ").append(note)
+                    .append(nl));
         } else {
             sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
         }
@@ -87,6 +82,38 @@ public final class CheckReport {
         sb.append(FindingText.render(r.findings()));
         sb.append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
+    }
+
+    /**
+     * Which loops of {@code r} are not stable and what that leaves out, e.g. "the as-left loop is
+     * unstable; its margins, Ms and responses are left out: margins are figures of safety only for a
+     * stable loop, and the responses are held only by the output limits."; empty when both are stable
+     * (or without a process model).
+     */
+    static java.util.Optional<String> notStable(CheckResult r) {
+        if (!r.hasProcess()) {
+            return java.util.Optional.empty();
+        }
+        java.util.List<String> loops = new java.util.ArrayList<>();
+        if (!r.designStability().isStable()) {
+            loops.add("the as-found loop is " + r.designStability().verdict().word());
+        }
+        if (!r.targetStability().isStable()) {
+            loops.add("the as-left loop is " + r.targetStability().verdict().word());
+        }
+        if (loops.isEmpty()) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(String.join(" and ", loops) + "; " + (loops.size() == 1 ? "its" : "their")
+                + " margins, Ms and responses are left out: margins are figures of safety only for a stable loop,"
+                + " and the responses are held only by the output limits.");
+    }
+
+    /** "UNSTABLE" when a loop of {@code r} is unstable, otherwise "MARGINAL". */
+    static String notStableLabel(CheckResult r) {
+        boolean unstable = r.designStability().verdict() == org.loopform.analysis.Stability.UNSTABLE
+                || r.targetStability().verdict() == org.loopform.analysis.Stability.UNSTABLE;
+        return unstable ? "UNSTABLE" : "MARGINAL";
     }
 
     /** The scan of the design loop when it runs the source's own algorithm; NaN for the continuous design. */
@@ -102,13 +129,21 @@ public final class CheckReport {
 
     /**
      * One loop's figures as JSON: the catalogue's margins ({@link LoopFigure}), the margins' notes,
-     * the stability, and the step figures in their objects, left null for a loop that is not stable.
+     * the stability, and the step figures in their objects; every figure is null for a loop that is
+     * not stable, and the margin notes say why.
      */
     static ObjectNode figures(LoopSide side) {
         ObjectNode n = Json.object();
         LoopFigure.inGroup(LoopFigure.Group.MARGINS).forEach(f -> f.putJson(n, side));
         MarginFigures.putNotes(n, side.margins());
         org.loopform.analysis.LoopStability st = side.stability();
+        if (!st.isStable()) {
+            // the margins are null: say why, as for any margin that does not exist
+            String why = "the loop is " + st.verdict().word() + ": margins are figures of safety only for a stable loop";
+            n.put("gain_margin_note", why);
+            n.put("phase_margin_note", why);
+            n.put("delay_margin_note", why);
+        }
         n.put("stability", st.verdict().word());
         n.put("stability_test", st.test().describe());
         if (st.unstablePoles() == Integer.MAX_VALUE) {
@@ -123,14 +158,8 @@ public final class CheckReport {
                 continue;
             }
             ObjectNode o = n.putObject(g.jsonObject());
-            for (LoopFigure f : LoopFigure.inGroup(g)) {
-                if (st.isStable()) {
-                    f.putJson(o, side);
-                } else {
-                    // the responses of an unstable loop (held only by its output limits) describe nothing to compare
-                    o.putNull(f.jsonKey());
-                }
-            }
+            // null for a loop that is not stable: its responses are held only by its output limits (LoopFigure.read)
+            LoopFigure.inGroup(g).forEach(f -> f.putJson(o, side));
         }
         return n;
     }

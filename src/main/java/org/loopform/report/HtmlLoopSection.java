@@ -193,15 +193,10 @@ final class HtmlLoopSection {
         sb.append("</tbody></table>\n<p class=\"note\">Setpoint step of ").append(Html.fig(r.steps().setpointStepPercent(), 3))
                 .append(" % and load step of ").append(Html.fig(r.steps().loadStepPercent(), 3)).append(" % at the process"
                 + " input, ").append(Html.esc(CheckReport.aboutOperatingPoint(r.steps()))).append(", over ").append(Html.fig(sp.timeSeconds(sp.size() - 1), 4)).append(" s.");
-        boolean designUnstable = !r.designStability().isStable();
         sb.append(" Stability from the closed-loop poles: as-found ").append(r.designStability().verdict().word())
                 .append(", as-left ").append(r.targetStability().verdict().word()).append(" (")
                 .append(Html.esc(r.targetStability().explanation())).append(")");
-        if (designUnstable || !r.targetStability().isStable()) {
-            sb.append(" <strong>Not stable:</strong> ").append(designUnstable ? "the as-found loop" : "the as-left loop")
-                    .append(" is ").append((designUnstable ? r.designStability() : r.targetStability()).verdict().word())
-                    .append("; its responses are held only by the output limits and are not figures to compare.");
-        }
+        CheckReport.notStable(r).ifPresent(note -> sb.append(" <strong>Not stable:</strong> ").append(Html.esc(note)));
         if (r.loop().sourceScanSeconds() == null) {
             sb.append(" No scan was given for the old controller, so the as-found loop runs its law continuously: simulated on ").append(Html.fig(r.referenceStepSeconds(), 3))
                     .append(" s and ").append(Html.fig(2 * r.referenceStepSeconds(), 3))

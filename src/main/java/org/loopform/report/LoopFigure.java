@@ -85,7 +85,7 @@ enum LoopFigure {
             return jsonObject;
         }
 
-        /** The figures of a step response, left null in JSON for an unstable loop. */
+        /** The figures of a step response (in JSON, like every figure, null for a loop that is not stable). */
         boolean response() {
             return jsonObject != null;
         }
@@ -108,6 +108,17 @@ enum LoopFigure {
 
         /** The figure does not apply to this loop (the delay margin in scans of a continuous loop). */
         record NotApplicable() implements Reading {
+        }
+
+        /**
+         * The loop is not stable ({@code word}: unstable or marginal), so the figure is left out:
+         * classical margins and Ms read off the open loop are figures of safety only for a loop whose
+         * closed loop is stable: they measure how far a stable loop's Nyquist curve keeps from -1
+         * (Astrom and Murray, Feedback Systems, 2008, ch. 9-10, from memory for the sections; see
+         * docs/references.md section 6), and the responses of a loop that runs away are held only
+         * by its output limits.
+         */
+        record NotStable(String word) implements Reading {
         }
 
         static Reading orNone(OptionalDouble v, Optional<MarginNote> why) {
@@ -163,7 +174,11 @@ enum LoopFigure {
         return group;
     }
 
+    /** The figure of {@code side}, or {@link Reading.NotStable} for every figure of a loop that is not stable. */
     Reading read(LoopSide side) {
+        if (!side.stability().isStable()) {
+            return new Reading.NotStable(side.stability().verdict().word());
+        }
         return read.apply(side);
     }
 
@@ -188,7 +203,10 @@ enum LoopFigure {
         return text(read(side), digits);
     }
 
-    /** A reading as printed: {@code digits} significant digits, "none (why)", or "-" where it does not apply. */
+    /**
+     * A reading as printed: {@code digits} significant digits, "none (why)", the stability
+     * ("unstable", "marginal") of a loop that is not stable, or "-" where it does not apply.
+     */
     static String text(Reading r, int digits) {
         if (r instanceof Reading.Number n) {
             return Numbers.significant(n.value(), digits);
@@ -196,10 +214,13 @@ enum LoopFigure {
         if (r instanceof Reading.None none) {
             return none.why().map(w -> "none (" + w + ")").orElse("none");
         }
+        if (r instanceof Reading.NotStable ns) {
+            return ns.word();
+        }
         return "-";
     }
 
-    /** The figure in a loops.csv cell: {@link #CSV_DIGITS} digits, blank where there is no finite number. */
+    /** The figure in a loops.csv cell: {@link #CSV_DIGITS} digits, blank where there is no finite number (a loop not stable included). */
     String csvCell(LoopSide side) {
         return read(side) instanceof Reading.Number n && Double.isFinite(n.value())
                 ? Numbers.significant(n.value(), CSV_DIGITS) : "";

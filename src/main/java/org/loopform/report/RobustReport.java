@@ -62,7 +62,8 @@ public final class RobustReport {
             ObjectNode o = cs.addObject();
             c.values().forEach(o.putObject("process")::put);
             o.put("stable", c.stable());
-            o.put("ms", c.margins().maximumSensitivity());
+            // Ms is a figure of safety only for a stable loop (see LoopFigure.Reading.NotStable)
+            Json.putNumber(o, "ms", c.stable() ? c.margins().maximumSensitivity() : null);
         }
         n.put("caveat", CAVEAT);
         return n;

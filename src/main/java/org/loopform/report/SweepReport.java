@@ -26,15 +26,15 @@ public final class SweepReport {
         TextTable t = new TextTable("scan, s", "h*wc, rad", "N h/Td", "PM, deg", "GM", "Ms", "setpoint IAE, %*s",
                 "verdict", "within policy");
         for (CheckResult r : sweep.checks()) {
-            var m = r.targetMargins();
-            double wc = m != null && m.crossoverRadPerSecond().isPresent() ? m.crossoverRadPerSecond().getAsDouble()
-                    : Double.NaN;
+            // the as-left loop's figures as the catalogue reads them: "unstable" for a loop that is not stable
+            LoopSide g = r.hasProcess() ? LoopSide.target(r) : null;
+            var wcReading = g == null ? null : LoopFigure.CROSSOVER.read(g);
+            double wc = wcReading instanceof LoopFigure.Reading.Number x ? x.value() : Double.NaN;
             double nh = nhTd(r);
             t.row(Numbers.significant(r.scanSeconds(), 3), Double.isFinite(wc) ? Numbers.significant(wc * r.scanSeconds(), 3)
-                    : "-", Double.isFinite(nh) ? Numbers.significant(nh, 3) : "-", m == null ? "-" : MarginFigures.phaseMargin(m, 3),
-                    m == null ? "-" : MarginFigures.gainMargin(m, 3), m == null ? "-" : Numbers.significant(m.maximumSensitivity(), 3),
-                    r.targetSetpoint() == null ? "-"
-                            : Numbers.significant(r.targetSetpoint().integralAbsoluteErrorPercentSeconds(), 4),
+                    : "-", Double.isFinite(nh) ? Numbers.significant(nh, 3) : "-",
+                    g == null ? "-" : LoopFigure.PHASE_MARGIN.text(g), g == null ? "-" : LoopFigure.GAIN_MARGIN.text(g),
+                    g == null ? "-" : LoopFigure.MAX_SENSITIVITY.text(g), g == null ? "-" : LoopFigure.SETPOINT_IAE.text(g),
                     r.verdict().id(), ScanSweep.acceptable(r.findings()) ? "yes" : "no");
         }
         sb.append(t.render(2)).append(nl);

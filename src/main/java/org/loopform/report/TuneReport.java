@@ -2,6 +2,7 @@ package org.loopform.report;
 
 import org.loopform.findings.Finding;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
 import java.util.Map;
 import org.loopform.check.CheckResult;
 import org.loopform.form.Conversion;
@@ -79,12 +80,12 @@ public final class TuneReport {
             sb.append(nl).append("Design loop (the published law on the model, continuous; give --scan for the target"
                     + " loop):").append(nl);
             TextTable tt = new TextTable("figure", "value", "unit");
-            var d = design.designMargins();
-            tt.row("phase margin", MarginFigures.phaseMargin(d, 3), "deg");
-            tt.row("gain margin", MarginFigures.gainMargin(d, 3), "ratio");
-            tt.row("crossover", MarginFigures.crossover(d, 3), "rad/s");
-            tt.row("max sensitivity Ms", Numbers.significant(d.maximumSensitivity(), 3), "ratio");
-            tt.row("delay margin", MarginFigures.delayMargin(d, 3), "s");
+            // read through the catalogue: "unstable" in place of the margins of a loop that is not stable
+            LoopSide d = LoopSide.design(design);
+            for (LoopFigure f : List.of(LoopFigure.PHASE_MARGIN, LoopFigure.GAIN_MARGIN, LoopFigure.CROSSOVER,
+                    LoopFigure.MAX_SENSITIVITY, LoopFigure.DELAY_MARGIN)) {
+                tt.row(f.label(), f.text(d), f.unit());
+            }
             tt.row("stability", design.designStability().verdict().word(), "");
             if (design.designStability().isStable()) {
                 var sp = design.designSetpoint();

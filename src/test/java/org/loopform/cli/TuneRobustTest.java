@@ -56,6 +56,26 @@ class TuneRobustTest {
     }
 
     @Test
+    void an_unstable_corner_has_no_ms_in_json(@TempDir Path dir) throws Exception {
+        // the same box: the 8 corners at theta = 4 s are unstable (wc theta beyond pi/2, see above); Ms is a
+        // figure of safety only for a stable loop, so theirs is null, while a stable corner keeps its number
+        CliRun r = CliRun.of("tune", "--process", fitFile(dir, "1..4").toString(), "--rule", "simc", "--controller",
+                "pid", "--robust", "--format", "json");
+        assertThat(r.exitCode()).as(r.err()).isEqualTo(1);
+        JsonNode corners = new ObjectMapper().readTree(r.out()).get("robust").get("corners");
+        int unstable = 0;
+        for (JsonNode c : corners) {
+            if (c.get("stable").asBoolean()) {
+                assertThat(c.get("ms").isNumber()).as(c.toString()).isTrue();
+            } else {
+                unstable++;
+                assertThat(c.get("ms").isNull()).as(c.toString()).isTrue();
+            }
+        }
+        assertThat(unstable).isEqualTo(8);
+    }
+
+    @Test
     void robust_without_intervals_is_refused(@TempDir Path dir) {
         // plumbing: the message says where the intervals come from
         CliRun r = CliRun.of("tune", "--process", "{model: fopdt, gain: 1, time_constant: 10 s, dead_time: 1 s}",

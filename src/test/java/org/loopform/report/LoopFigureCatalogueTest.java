@@ -30,15 +30,19 @@ import org.loopform.io.LoopFileReader;
 class LoopFigureCatalogueTest {
 
     /**
-     * An invented loop whose target, at a slow scan, has a lower gain margin (so the one figure
-     * shown only where a loop has it is shown) and a sampled design loop (the old controller's
-     * own scan, so the delay margin in scans has a figure on both sides).
+     * An invented loop, stable as found and as left, that has a lower gain margin on both sides (an
+     * integrating process with a lag under PID: conditionally stable, as the cross-check's
+     * conditionally-stable-01 loop, whose stability and lower gain margin the numpy reference in
+     * src/test/python/write_stability_crosscheck.py confirms), so the one figure shown only where a
+     * loop has it is shown, and a sampled design loop (the old controller's own scan, so the delay
+     * margin in scans has a figure on both sides). The loop used before, a target at an 8 s scan,
+     * is unstable as left: its figures are now left out, so it no longer shows every figure.
      */
     private static final String LOOP = String.join("\n",
             "tag: TIC-901",
-            "process: {model: fopdt, gain: 2.0, time_constant: 60 s, dead_time: 10 s}",
-            "tuning: {form: ideal, kc: 3.5, ti: 20, td: 4, n: 10, scan: 1 s}",
-            "target: {form: ideal-pb-repeats, scan: 8 s}",
+            "process: {model: integrating, gain: 0.1, lag: 10 s, dead_time: 0.1 s}",
+            "tuning: {form: ideal, kc: 2, ti: 5, td: 8, n: 10, scan: 0.05 s}",
+            "target: {form: ideal-pb-repeats, scan: 0.1 s}",
             "ranges: {pv: 0..150, output: 0..100}", "");
 
     /**
@@ -57,7 +61,9 @@ class LoopFigureCatalogueTest {
 
     @Test
     void the_sample_loop_shows_the_figure_kept_for_loops_that_have_it() {
-        // otherwise the tests below would not see the lower gain margin row
+        // otherwise the tests below would not see the lower gain margin row, nor any figure at all
+        assertThat(RESULT.designStability().isStable()).isTrue();
+        assertThat(RESULT.targetStability().isStable()).isTrue();
         assertThat(RESULT.targetMargins().lowerGainMargin()).isPresent();
         assertThat(LoopFigure.LOWER_GAIN_MARGIN.shown(LoopSide.design(RESULT), LoopSide.target(RESULT))).isTrue();
     }
