@@ -14,8 +14,8 @@ import org.loopform.units.Numbers;
 /**
  * A list replay's per-loop CSV summary ({@code replay --out DIR} writes it as {@code replay.csv}): one row a
  * loop, the differences in % of output span, the as-found verdict, the best explanation when the record
- * refutes or does not confirm the list, the as-left differences and the loop's verdict; a loop without a
- * record gets a row that says so. Cells a spreadsheet would read as a formula get a leading {@code '}.
+ * does not reproduce the list and another reading explains it better, the as-left differences and the
+ * loop's verdict; a loop without a record gets a row that says so. Cells a spreadsheet would read as a formula get a leading {@code '}.
  */
 public final class ReplayCsv {
 
@@ -57,9 +57,8 @@ public final class ReplayCsv {
         row.add(r.verdict().id());
         row.add(asFound(r));
         figures(row, r.asFound());
-        boolean explain = r.asFound() != null && r.asFoundSeverity() != org.loopform.findings.Severity.INFO
-                && !r.explanations().isEmpty();
-        Explanation best = explain ? r.explanations().get(0) : null;
+        // the best explanation when it explains the record better than the list (as audit --records gives it)
+        Explanation best = AuditReplayRows.bestExplanation(r);
         row.add(best == null ? "" : AuditRows.spreadsheetCell(best.description()));
         row.add(best == null ? "" : num(best.agreement().rmsPercent()));
         figures(row, r.asLeft());
@@ -73,14 +72,7 @@ public final class ReplayCsv {
 
     /** reproduced, not_confirmed or refuted (as in the JSON's {@code as_found_verdict}); none without automatic scans. */
     static String asFound(ReplayResult r) {
-        if (r.asFound() == null) {
-            return "none";
-        }
-        return switch (r.asFoundSeverity()) {
-            case INFO -> "reproduced";
-            case WARN -> "not_confirmed";
-            case FAIL -> "refuted";
-        };
+        return r.asFoundVerdict().id();
     }
 
     private static void figures(List<String> row, Agreement a) {
