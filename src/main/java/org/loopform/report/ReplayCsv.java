@@ -30,6 +30,11 @@ public final class ReplayCsv {
 
     /** The CSV text (RFC 4180, header first) for {@code results} in their order, then the tags without a record. */
     public static String csv(List<ReplayResult> results, List<String> missing) {
+        return csv(results, missing, List.of());
+    }
+
+    /** As {@link #csv(List, List)}, then the new loops tuned by rule whose record was not used. */
+    public static String csv(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         StringWriter out = new StringWriter();
         try (CSVPrinter p = new CSVPrinter(out, CSVFormat.RFC4180.builder()
                 .setHeader(COLUMNS.toArray(String[]::new)).get())) {
@@ -37,18 +42,26 @@ public final class ReplayCsv {
                 p.printRecord(row(r));
             }
             for (String tag : missing) {
-                List<String> row = new ArrayList<>();
-                row.add(AuditRows.spreadsheetCell(tag));
-                row.add("no record");
-                while (row.size() < COLUMNS.size()) {
-                    row.add("");
-                }
-                p.printRecord(row);
+                p.printRecord(note(tag, "no record"));
+            }
+            for (String tag : notUsed) {
+                p.printRecord(note(tag, "record not used (new loop tuned by rule)"));
             }
         } catch (IOException e) {
             throw new IllegalStateException("writing to memory cannot fail", e);
         }
         return out.toString();
+    }
+
+    /** A row of a loop not replayed: its tag and why, in the verdict column. */
+    private static List<String> note(String tag, String why) {
+        List<String> row = new ArrayList<>();
+        row.add(AuditRows.spreadsheetCell(tag));
+        row.add(why);
+        while (row.size() < COLUMNS.size()) {
+            row.add("");
+        }
+        return row;
     }
 
     static List<String> row(ReplayResult r) {

@@ -64,6 +64,14 @@ public final class ReplayReport {
 
     /** Several loops: each in full, then one line a loop. */
     public static String text(List<ReplayResult> results, List<String> missing) {
+        return text(results, missing, List.of());
+    }
+
+    /**
+     * Several loops, and the tags of new loops tuned by rule whose record was not used
+     * ({@code notUsed}: no old controller ran that it could validate).
+     */
+    public static String text(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         StringBuilder sb = new StringBuilder();
         String nl = System.lineSeparator();
         for (ReplayResult r : results) {
@@ -76,6 +84,9 @@ public final class ReplayReport {
         }
         for (String m : missing) {
             sb.append("  ").append(m).append(": no record, not replayed").append(nl);
+        }
+        for (String m : notUsed) {
+            sb.append("  ").append(m).append(": record not used: ").append(AuditReplayRows.NOT_USED_WHY).append(nl);
         }
         return sb.toString();
     }
@@ -172,11 +183,18 @@ public final class ReplayReport {
     }
 
     public static String json(List<ReplayResult> results, List<String> missing) {
+        return json(results, missing, List.of());
+    }
+
+    /** As {@link #json(List, List)}, with {@code not_used}: new loops tuned by rule whose record was not used. */
+    public static String json(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         ObjectNode n = Json.object();
         ArrayNode loops = n.putArray("loops");
         results.forEach(r -> loops.add(jsonNode(r)));
         ArrayNode m = n.putArray("without_record");
         missing.forEach(m::add);
+        ArrayNode u = n.putArray("not_used");
+        notUsed.forEach(u::add);
         return Json.write(n);
     }
 

@@ -361,6 +361,13 @@ class AuditRecordsTest {
             assertThat(Files.readString(out.resolve("report.html"))).contains("Record not used: a new loop tuned by"
                     + " rule has no old controller to validate");
             assertThat(doc.get("provenance").get("inputs").toString()).contains("FIC-110.csv");
+            // replay --list on the same list says the same and replays nothing
+            CliRun replay = CliRun.of("replay", records.toString(), "--list", "examples/new-loops.csv", "--to", TARGET,
+                    "--format", "json");
+            assertThat(replay.exitCode()).as(replay.err()).isEqualTo(0);
+            JsonNode listed = new ObjectMapper().readTree(replay.out());
+            assertThat(listed.get("loops")).isEmpty();
+            assertThat(listed.get("not_used").get(0).asText()).isEqualTo("FIC-110");
         }
     }
 }
