@@ -175,8 +175,9 @@ final class HtmlReplaySection {
         }
         if (s.unreadable() > 0) {
             sb.append("<p>").append(AuditReplayRows.plural(s.unreadable(), "record", "records"))
-                    .append(" could not be read or replayed (the loops were still checked, and warn):</p>\n"
-                            + "<ul class=\"badrows\">\n");
+                    .append(s.unreadable() == 1 ? " could not be read or replayed (its loop was still checked, and"
+                            + " warns):</p>\n" : " could not be read or replayed (their loops were still checked, and"
+                            + " warn):</p>\n").append("<ul class=\"badrows\">\n");
             s.problems().forEach(p -> sb.append("<li>").append(Html.esc(p)).append("</li>\n"));
             if (s.problemCount() > s.problems().size()) {
                 sb.append("<li>... and ").append(s.problemCount() - s.problems().size()).append(" more</li>\n");
