@@ -18,7 +18,9 @@ import org.loopform.findings.CheckPolicy;
 import org.loopform.units.BadInput;
 import java.util.ArrayList;
 import java.util.Optional;
+import org.loopform.findings.CheckRules;
 import org.loopform.findings.Finding;
+import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 import org.loopform.replay.LoopReplay;
 import org.loopform.replay.Trend;
@@ -105,8 +107,12 @@ public final class Audit {
     /**
      * One row's outcome with its replay evidence when {@code records} is given (null: none): a loop
      * whose record is found is replayed ({@link LoopReplay}) and the replay's findings (topic
-     * replay) join the check's, so they count in its verdict; a record that cannot be read or
-     * replayed leaves the check as it is and is reported with its problems.
+     * replay) join the check's, so they count in its verdict. A record that cannot be read or
+     * replayed leaves the check's figures as they are, is reported with its problems, and adds a
+     * warning, so the loop never passes clean on evidence that was asked for and is missing. A new
+     * loop tuned by rule has no old controller to validate: its record is read (a broken one is
+     * still reported, a readable one listed in the provenance) but not replayed
+     * ({@link ReplayEvidence.Status#NOT_USED}).
      */
     public static LoopOutcome check(LoopRow row, CheckPolicy policy, AuditRecords records) {
         LoopOutcome o = check(row, policy);
@@ -115,13 +121,26 @@ public final class Audit {
         }
         ReplayEvidence evidence = evidence(row, policy, records);
         CheckResult r = o.result();
+        List<Finding> added = new ArrayList<>();
         if (evidence.result() != null) {
+            evidence.result().findings().stream().filter(f -> f.topic() == Topic.REPLAY).forEach(added::add);
+        } else if (evidence.status() == ReplayEvidence.Status.UNREADABLE) {
+            added.add(unreadable(evidence));
+        }
+        if (!added.isEmpty()) {
             List<Finding> findings = new ArrayList<>(r.findings());
-            evidence.result().findings().stream().filter(f -> f.topic() == Topic.REPLAY).forEach(findings::add);
+            findings.addAll(added);
             r = new CheckResult(r.loop(), r.scanSeconds(), r.conversion(), r.comparison(), r.mismatch(),
                     r.mismatchCurve(), findings);
         }
         return new LoopOutcome(row, r, o.problems(), evidence);
+    }
+
+    /** The warning an unreadable record gives its loop: the evidence asked for is missing. */
+    private static Finding unreadable(ReplayEvidence e) {
+        return new Finding(Topic.REPLAY, Severity.WARN, null, null, "", CheckRules.REPLAY_POLICY, "The loop's record"
+                + " could not be read or replayed, so the listed old controller is not validated against the plant: "
+                + String.join("; ", e.problems()) + ". Fix the record and audit again.");
     }
 
     private static ReplayEvidence evidence(LoopRow row, CheckPolicy policy, AuditRecords records) {
@@ -129,6 +148,9 @@ public final class Audit {
             Optional<Trend> trend = records.source().find(row.tag());
             if (trend.isEmpty()) {
                 return ReplayEvidence.NONE;
+            }
+            if (row.tunedByRule()) {
+                return ReplayEvidence.NOT_USED; // no old controller ran: nothing to validate, no as-found to compare with
             }
             return ReplayEvidence.replayed(LoopReplay.run(row.loop(), trend.get(), records.catalog(), policy,
                     records.fitTuning()));

@@ -5,14 +5,16 @@ import org.loopform.replay.ReplayResult;
 
 /**
  * What the records said about one audited loop: its replay ({@link Status#REPLAYED}), no record
- * ({@link Status#NO_RECORD}), or a record that could not be read or replayed, with its problems
- * ({@link Status#UNREADABLE}, each {@code file:line: field: message}).
+ * ({@link Status#NO_RECORD}), a record that could not be read or replayed, with its problems
+ * ({@link Status#UNREADABLE}, each {@code file:line: field: message}), or a record not used because
+ * the loop is new, tuned by rule, so no old controller ran that the record could validate
+ * ({@link Status#NOT_USED}).
  */
 public record ReplayEvidence(Status status, ReplayResult result, List<String> problems) {
 
     /** Whether the loop's record was found and replayed. */
     public enum Status {
-        REPLAYED, NO_RECORD, UNREADABLE;
+        REPLAYED, NO_RECORD, UNREADABLE, NOT_USED;
 
         public String id() {
             return name().toLowerCase(java.util.Locale.ROOT);
@@ -33,6 +35,8 @@ public record ReplayEvidence(Status status, ReplayResult result, List<String> pr
     }
 
     static final ReplayEvidence NONE = new ReplayEvidence(Status.NO_RECORD, null, List.of());
+
+    static final ReplayEvidence NOT_USED = new ReplayEvidence(Status.NOT_USED, null, List.of());
 
     static ReplayEvidence unreadable(List<String> problems) {
         return new ReplayEvidence(Status.UNREADABLE, null, problems);

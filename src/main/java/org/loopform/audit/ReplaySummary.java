@@ -7,8 +7,9 @@ import org.loopform.findings.Severity;
 /**
  * What an audit's records showed, gathered as outcomes stream past: loops replayed and how their
  * as-found replay came out (reproduced, not confirmed, refuted, nothing in automatic to compare),
- * loops without a record (the first {@link #TAGS_KEPT} tags kept, the rest counted), and records
- * that could not be read (the first {@link #PROBLEMS_KEPT} problems kept, the rest counted).
+ * loops without a record (the first {@link #TAGS_KEPT} tags kept, the rest counted), new loops tuned
+ * by rule whose record was not used (likewise), and records that could not be read (the first
+ * {@link #PROBLEMS_KEPT} problems kept, the rest counted).
  */
 public final class ReplaySummary {
 
@@ -21,12 +22,15 @@ public final class ReplaySummary {
     private int replayed;
     private int reproduced;
     private int notConfirmed;
+    private int quiet;
     private int refuted;
     private int notCompared;
     private int explainedByAlternative;
     private int withoutRecord;
     private final List<String> withoutRecordTags = new ArrayList<>();
     private int unreadable;
+    private int notUsed;
+    private final List<String> notUsedTags = new ArrayList<>();
     private long problemCount;
     private final List<String> problems = new ArrayList<>();
     private List<String> unmatched = List.of();
@@ -40,6 +44,11 @@ public final class ReplaySummary {
             case NO_RECORD -> {
                 if (withoutRecord++ < TAGS_KEPT) {
                     withoutRecordTags.add(tag);
+                }
+            }
+            case NOT_USED -> {
+                if (notUsed++ < TAGS_KEPT) {
+                    notUsedTags.add(tag);
                 }
             }
             case UNREADABLE -> {
@@ -61,6 +70,9 @@ public final class ReplaySummary {
                         refuted++;
                     } else {
                         notConfirmed++;
+                        if (e.result().quietRecord()) {
+                            quiet++;
+                        }
                     }
                     if (!e.result().explanations().isEmpty() && e.result().explanations().get(0).agreement().rmsPercent()
                             < e.result().asFound().rmsPercent()) {
@@ -97,9 +109,20 @@ public final class ReplaySummary {
         return reproduced;
     }
 
-    /** Replayed loops whose listed old controller only partly reproduces the log (warn). */
+    /**
+     * Replayed loops whose record does not confirm the listed old controller (warn): it only partly
+     * reproduces the log, another reading explains the log clearly better, or the record is too quiet.
+     */
     public int notConfirmed() {
         return notConfirmed;
+    }
+
+    /**
+     * Of the loops not confirmed, those whose record is too quiet to tell controllers apart (the
+     * listed controller matches it, as any controller at rest would).
+     */
+    public int quiet() {
+        return quiet;
     }
 
     /** Replayed loops whose record refutes the listed old controller (fail). */
@@ -124,6 +147,19 @@ public final class ReplaySummary {
     /** The first {@link #TAGS_KEPT} tags without a record, in input order. */
     public List<String> withoutRecordTags() {
         return List.copyOf(withoutRecordTags);
+    }
+
+    /**
+     * Loops tuned by rule (new loops) that have a record: no old controller ran, so the record was
+     * not replayed (neither as-found validation nor as-left preview).
+     */
+    public int notUsed() {
+        return notUsed;
+    }
+
+    /** The first {@link #TAGS_KEPT} loops tuned by rule whose record was not used, in input order. */
+    public List<String> notUsedTags() {
+        return List.copyOf(notUsedTags);
     }
 
     /** Loops whose record could not be read or replayed. */

@@ -117,7 +117,8 @@ final class ReplayCommand implements Callable<Integer> {
             if (plot != null) {
                 AtomicFiles.write(plot, AtomicFiles.markedSvg(ReplayPlot.svg(r)), List.of(record, loopFile));
             }
-            Path written = outDir == null ? null : writeFolder(List.of(r), List.of(), List.of(record, loopFile));
+            Path written = outDir == null ? null
+                    : writeFolder(List.of(r), List.of(), List.of(), List.of(record, loopFile));
             out.print(json ? ReplayReport.json(r) : ReplayReport.text(r));
             if (plot != null && !json) {
                 out.println("Plot written to " + plot);
@@ -137,6 +138,7 @@ final class ReplayCommand implements Callable<Integer> {
         }
         List<ReplayResult> results = new ArrayList<>();
         List<String> missing = new ArrayList<>();
+        List<String> notUsed = new ArrayList<>();
         List<String> bad = new ArrayList<>();
         for (Iterator<LoopRow> it = rows(defaults); it.hasNext(); ) {
             LoopRow row = it.next();
@@ -149,6 +151,10 @@ final class ReplayCommand implements Callable<Integer> {
                 missing.add(row.tag());
                 continue;
             }
+            if (row.tunedByRule()) {
+                notUsed.add(row.tag()); // a new loop: no old controller ran that the record could validate
+                continue;
+            }
             try {
                 results.add(LoopReplay.run(row.loop(), TrendCsvReader.read(file, file.toString(), columns), catalog,
                         policy, fitTuning));
@@ -156,9 +162,9 @@ final class ReplayCommand implements Callable<Integer> {
                 bad.addAll(e.problems());
             }
         }
-        Path written = outDir == null || results.isEmpty() && missing.isEmpty() ? null
-                : writeFolder(results, missing, List.of(record, listFile));
-        out.print(json ? ReplayReport.json(results, missing) : ReplayReport.text(results, missing));
+        Path written = outDir == null || results.isEmpty() && missing.isEmpty() && notUsed.isEmpty() ? null
+                : writeFolder(results, missing, notUsed, List.of(record, listFile));
+        out.print(json ? ReplayReport.json(results, missing, notUsed) : ReplayReport.text(results, missing, notUsed));
         if (written != null && !json) {
             out.println("Replay summary written to " + written);
         }
@@ -170,10 +176,11 @@ final class ReplayCommand implements Callable<Integer> {
         return results.stream().anyMatch(r -> r.verdict() == Severity.FAIL) ? ExitCodes.FAILED_FINDING : ExitCodes.OK;
     }
 
-    private Path writeFolder(List<ReplayResult> results, List<String> missing, List<Path> inputs) {
+    private Path writeFolder(List<ReplayResult> results, List<String> missing, List<String> notUsed,
+                             List<Path> inputs) {
         java.util.Map<String, String> files = new java.util.LinkedHashMap<>();
-        files.put("replay.csv", ReplayCsv.csv(results, missing));
-        files.put("replay.json", ReplayReport.json(results, missing));
+        files.put("replay.csv", ReplayCsv.csv(results, missing, notUsed));
+        files.put("replay.json", ReplayReport.json(results, missing, notUsed));
         return FolderOutput.write(outDir, force, files, inputs);
     }
 

@@ -131,7 +131,7 @@ final class CandidateSearch {
             double factor = form.integral().writing() == IntegralWriting.TIME ? iSwap.seconds() / iUnit.seconds()
                     : iUnit.seconds() / iSwap.seconds();
             iOther = iv * factor;
-            add(ExplanationKind.UNITS, i + " is " + plain(iv) + " " + unitText(form.integral().writing(), iSwap)
+            add(ExplanationKind.UNITS, i + " is " + shown(iv) + " " + unitText(form.integral().writing(), iSwap)
                     + ", not " + unitText(form.integral().writing(), iUnit), with(i, iOther));
         }
         Double dOther = null;
@@ -139,7 +139,7 @@ final class CandidateSearch {
         TimeUnit dSwap = swap(dUnit);
         if (dv != null && dv > 0 && dSwap != null && form.derivative().writing() != org.loopform.form.DerivativeWriting.PER_SCAN) {
             dOther = dv * dSwap.seconds() / dUnit.seconds();
-            add(ExplanationKind.UNITS, d + " is " + plain(dv) + " " + dSwap.symbol() + ", not " + dUnit.symbol(),
+            add(ExplanationKind.UNITS, d + " is " + shown(dv) + " " + dSwap.symbol() + ", not " + dUnit.symbol(),
                     with(d, dOther));
         }
         if (iOther != null && dOther != null) {
@@ -152,16 +152,16 @@ final class CandidateSearch {
                 && (w == IntegralWriting.TIME || w == IntegralWriting.RATE)) {
             String unit = iUnit.symbol();
             add(ExplanationKind.UNITS, w == IntegralWriting.TIME
-                    ? i + " " + plain(iv) + " is a reset rate in repeats per " + unit + ", not " + unit + " per repeat"
-                    : i + " " + plain(iv) + " is a time in " + unit + " per repeat, not repeats per " + unit,
+                    ? i + " " + shown(iv) + " is a reset rate in repeats per " + unit + ", not " + unit + " per repeat"
+                    : i + " " + shown(iv) + " is a time in " + unit + " per repeat, not repeats per " + unit,
                     with(i, 1.0 / iv));
         }
         String g = form.gainName();
         Double gv = number(g);
         if (gv != null && gv != 0 && form.gain().basis() == GainBasis.PERCENT) {
             add(ExplanationKind.UNITS, form.gain().writing() == GainWriting.BAND
-                    ? g + " " + plain(gv) + " is a gain, not a proportional band in %"
-                    : g + " " + plain(gv) + " is a proportional band in %, not a gain", with(g, 100.0 / gv));
+                    ? g + " " + shown(gv) + " is a gain, not a proportional band in %"
+                    : g + " " + shown(gv) + " is a proportional band in %, not a gain", with(g, 100.0 / gv));
         }
     }
 
@@ -176,7 +176,7 @@ final class CandidateSearch {
         } else {
             Double gv = number(form.gainName());
             if (gv != null && gv != 0) {
-                add(ExplanationKind.ACTION, "the opposite action (" + form.gainName() + " " + plain(-gv) + ")",
+                add(ExplanationKind.ACTION, "the opposite action (" + form.gainName() + " " + shown(-gv) + ")",
                         with(form.gainName(), -gv));
             }
         }
@@ -193,12 +193,12 @@ final class CandidateSearch {
             boolean off = n != null && (n.trim().equalsIgnoreCase(FormCodec.OFF) || parseOr(n, -1) == 0);
             if (off) {
                 m.remove("n");
-                add(ExplanationKind.FILTER, "a derivative filter N = " + plain(form.filter().ratio())
+                add(ExplanationKind.FILTER, "a derivative filter N = " + shown(form.filter().ratio())
                         + " (the form's default), not none", m);
             } else {
                 m.put("n", FormCodec.OFF);
                 add(ExplanationKind.FILTER, "no derivative filter (n=off), not N = "
-                        + (n == null ? plain(form.filter().ratio()) : n), m);
+                        + (n == null ? shown(form.filter().ratio()) : n), m);
             }
         } else if (form.filter().kind() == FilterKind.TIME_CONSTANT) {
             Map<String, String> m = new LinkedHashMap<>(written);
@@ -210,7 +210,7 @@ final class CandidateSearch {
     private void scans() {
         for (double f : SCAN_FACTORS) {
             double h = scanSeconds * f;
-            Candidate c = decode(ExplanationKind.SCAN, "scan " + plain(h) + " s, not " + plain(scanSeconds) + " s",
+            Candidate c = decode(ExplanationKind.SCAN, "scan " + shown(h) + " s, not " + shown(scanSeconds) + " s",
                     form, written, h);
             if (c != null) {
                 out.add(c);
@@ -311,6 +311,14 @@ final class CandidateSearch {
         Map<String, String> out = new LinkedHashMap<>();
         m.forEach((k, v) -> out.put(k.trim().toLowerCase(Locale.ROOT), v));
         return out;
+    }
+
+    /**
+     * A value as a description shows it: six significant digits, as the rest of the report (the
+     * reading itself keeps twelve, {@link #plain}).
+     */
+    private static String shown(double v) {
+        return Numbers.significant(v, 6);
     }
 
     /** Twelve significant digits, so a reading survives its text (the written values are decoded again). */

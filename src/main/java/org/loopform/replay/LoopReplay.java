@@ -114,6 +114,7 @@ public final class LoopReplay {
         List<Explanation> ranked = List.of();
         int tried = 0;
         Severity asFoundSeverity = Severity.WARN;
+        boolean quiet = false;
         if (asFound == null) {
             findings.add(new Finding(org.loopform.findings.Topic.REPLAY, Severity.WARN, null, null, "",
                     ReplayRules.SOURCE, "The record holds no scan in automatic after the warm-up: nothing the old"
@@ -137,23 +138,28 @@ public final class LoopReplay {
                 ranked = all;
                 tried += paired.size();
             }
-            asFoundSeverity = ReplayRules.asFound(asFound, policy);
+            Severity matched = ReplayRules.asFound(asFound, policy);
             boolean outdone = ReplayRules.outdone(asFound, ranked, policy);
-            if (outdone && asFoundSeverity == Severity.INFO) {
-                asFoundSeverity = Severity.WARN;
-            }
+            Finding still = ReplayRules.movement(asFound, policy);
+            quiet = still != null;
+            // a match within the thresholds confirms the list only on a record that moves and that no
+            // other reading explains clearly better; otherwise the list is not confirmed
+            asFoundSeverity = matched == Severity.INFO && (outdone || quiet) ? Severity.WARN : matched;
             String source = loop.sourceForm().id() + " " + tuningText(loop.tuning()) + ", scan "
                     + Numbers.significant(sourceScan, 4) + " s";
-            findings.add(ReplayRules.asFoundFinding(source, asFound, asFoundSeverity, outdone, policy));
-            addIfAny(findings, ReplayRules.movement(asFound, policy));
+            findings.add(ReplayRules.asFoundFinding(source, asFound, asFoundSeverity, outdone,
+                    quiet && matched == Severity.INFO, policy));
+            addIfAny(findings, still);
             if (asFoundSeverity == Severity.INFO) {
                 findings.addAll(ReplayRules.ambiguity(ranked, policy));
-            } else {
+            } else if (!(quiet && matched == Severity.INFO && !outdone)) {
+                // on a quiet record every reading at rest matches as well: the movement finding says so
                 findings.add(ReplayRules.explanation(ranked, tried, asFound, policy));
             }
         }
         if (asLeft != null) {
-            findings.add(ReplayRules.asLeft(asLeft, asFoundSeverity == Severity.INFO, policy));
+            findings.add(ReplayRules.asLeft(asLeft, asFoundSeverity == Severity.INFO ? null : asFoundSeverity == Severity.FAIL
+                    || !quiet ? ReplayRules.AsLeftBasis.NOT_REPRODUCED : ReplayRules.AsLeftBasis.QUIET, policy));
         }
         FittedTuning fitted = null;
         if (fitTuning && asFound != null) {
@@ -174,7 +180,7 @@ public final class LoopReplay {
         }
         return new ReplayResult(loop.tag(), loop.sourceForm().id(), loop.tuning(), sourceScan, loop.targetForm().id(),
                 FormCodec.asText(conversion.entered()), targetScan, RESAMPLING, assumptions, trend.origin(),
-                trend.endSeconds() - trend.startSeconds(), asFound, asFoundSeverity,
+                trend.endSeconds() - trend.startSeconds(), asFound, asFoundSeverity, quiet,
                 ranked.subList(0, Math.min(EXPLANATIONS_KEPT, ranked.size())), tried, asLeft, asLeftVsLog, findings,
                 new ReplayTrace(atSource, sourceRun, atTarget, targetRun), fitted);
     }
@@ -255,8 +261,17 @@ public final class LoopReplay {
 
     static String tuningText(Map<String, String> tuning) {
         StringBuilder sb = new StringBuilder();
-        tuning.forEach((k, v) -> sb.append(sb.length() == 0 ? "" : " ").append(k).append('=').append(v));
+        tuning.forEach((k, v) -> sb.append(sb.length() == 0 ? "" : " ").append(k).append('=').append(shown(v)));
         return sb.toString();
+    }
+
+    /** A written value as findings show it: a number to six significant digits, other text as written. */
+    private static String shown(String v) {
+        try {
+            return Numbers.significant(Double.parseDouble(v.trim()), 6);
+        } catch (NumberFormatException e) {
+            return v;
+        }
     }
 
     /** The entered (rounded) values read back as the target runs them. */

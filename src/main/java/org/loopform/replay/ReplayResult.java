@@ -22,7 +22,9 @@ import org.loopform.findings.Severity;
  * @param origin            the record's first timestamp, or null when it gave seconds
  * @param recordSeconds     the span where setpoint, PV and output are all logged, s
  * @param asFound           the source replay against the logged output (null: nothing in automatic to compare)
- * @param asFoundSeverity   the as-found verdict: info (reproduced), warn, fail (refuted)
+ * @param asFoundSeverity   the as-found finding's severity: info (reproduced), warn (not confirmed), fail (refuted)
+ * @param quietRecord       the logged output hardly moves in automatic ({@code replay_movement_warn_pct}): the
+ *                          record cannot tell controllers apart, so a match confirms nothing
  * @param explanations      the best alternative readings, best first
  * @param alternativesTried how many alternative readings were run
  * @param asLeft            the target replay against the source replay (null: nothing to compare)
@@ -34,7 +36,8 @@ import org.loopform.findings.Severity;
 public record ReplayResult(String tag, String sourceFormId, Map<String, String> sourceTuning, double sourceScanSeconds,
                            String targetFormId, Map<String, String> enteredTuning, double targetScanSeconds,
                            String resampling, List<String> assumptions, LocalDateTime origin, double recordSeconds,
-                           Agreement asFound, Severity asFoundSeverity, List<Explanation> explanations,
+                           Agreement asFound, Severity asFoundSeverity, boolean quietRecord,
+                           List<Explanation> explanations,
                            int alternativesTried, Agreement asLeft, Agreement asLeftVsLog, List<Finding> findings,
                            ReplayTrace trace, FittedTuning fittedTuning) {
 
@@ -44,6 +47,21 @@ public record ReplayResult(String tag, String sourceFormId, Map<String, String> 
         assumptions = List.copyOf(assumptions);
         explanations = List.copyOf(explanations);
         findings = List.copyOf(findings);
+    }
+
+    /**
+     * What the record says of the old controller as listed: none without a scan in automatic, else
+     * from the as-found severity (a quiet record's match is already a warning, so never reproduced).
+     */
+    public AsFoundVerdict asFoundVerdict() {
+        if (asFound == null) {
+            return AsFoundVerdict.NONE;
+        }
+        return switch (asFoundSeverity) {
+            case INFO -> AsFoundVerdict.REPRODUCED;
+            case WARN -> AsFoundVerdict.NOT_CONFIRMED;
+            case FAIL -> AsFoundVerdict.REFUTED;
+        };
     }
 
     /** The worst finding's severity. */

@@ -52,7 +52,13 @@ final class ReplayRules {
                 && ranked.get(0).agreement().rmsPercent() < BETTER_FACTOR * listed.rmsPercent();
     }
 
-    static Finding asFoundFinding(String source, Agreement a, Severity s, boolean outdone, CheckPolicy p) {
+    /**
+     * The as-found finding. {@code quiet}: the listed controller matches within the thresholds, but
+     * the logged output hardly moves, so the record cannot tell it from any other controller at rest
+     * and confirms nothing (severity warn, verdict not confirmed).
+     */
+    static Finding asFoundFinding(String source, Agreement a, Severity s, boolean outdone, boolean quiet,
+                                  CheckPolicy p) {
         String figures = figures(a);
         String message = switch (s) {
             case INFO -> "As found: the listed controller (" + source + ") reproduces the logged output: " + figures
@@ -60,6 +66,9 @@ final class ReplayRules {
             case WARN -> outdone ? "As found: the listed controller (" + source + ") is close to the logged output ("
                     + figures + "), but another reading explains the record at least twice as well (below); the"
                     + " record does not confirm the list."
+                    : quiet ? "As found: not confirmed. The listed controller (" + source + ") matches the logged"
+                    + " output (" + figures + "), but the output hardly moves, so any controller at rest would match"
+                    + " it as well: this record confirms neither the listed controller nor any other."
                     : "As found: the listed controller (" + source + ") only partly reproduces the logged output: "
                     + figures + ". Review the explanations tried below before relying on the listed tuning.";
             case FAIL -> "As found: the record refutes the listed controller (" + source + "): " + figures + ". The"
@@ -71,9 +80,9 @@ final class ReplayRules {
     }
 
     static String figures(Agreement a) {
-        return "RMS difference " + Numbers.significant(a.rmsPercent(), 3) + " % of span, largest "
-                + Numbers.significant(a.maxPercent(), 3) + " % at " + Numbers.significant(a.maxAtSeconds(), 6)
-                + " s, correlation " + (a.correlation() == null ? "none (an output does not move)"
+        return "RMS difference " + small(a.rmsPercent()) + " % of span, largest " + small(a.maxPercent()) + " %"
+                + (a.maxPercent() < NOISE_PERCENT ? "" : " at " + Numbers.significant(a.maxAtSeconds(), 6) + " s")
+                + ", correlation " + (a.correlation() == null ? "none (an output does not move)"
                 : Numbers.significant(a.correlation(), 4)) + ", over " + a.comparedScans() + " scans in automatic";
     }
 
@@ -129,7 +138,7 @@ final class ReplayRules {
         }
         return new Finding(Topic.REPLAY, Severity.WARN, a.referenceSpreadPercent(), limit, "% of span", SOURCE,
                 "The logged output hardly moves in automatic (standard deviation "
-                        + Numbers.significant(a.referenceSpreadPercent(), 3) + " % of span): any controller at rest"
+                        + small(a.referenceSpreadPercent()) + " % of span): any controller at rest"
                         + " reproduces it, so this record cannot confirm the listed one. Replay a period with"
                         + " setpoint changes or disturbances.");
     }
@@ -157,19 +166,38 @@ final class ReplayRules {
                         + range + "; check the column chosen and the loop's ranges.");
     }
 
-    static Finding asLeft(Agreement a, boolean sourceValidated, CheckPolicy p) {
+    /** Why the as-left comparison rests on an old controller the record did not confirm. */
+    enum AsLeftBasis {
+        /** The listed old controller does not reproduce the log. */
+        NOT_REPRODUCED,
+        /** The record is too quiet to confirm the listed old controller. */
+        QUIET
+    }
+
+    /** The as-left finding; {@code unconfirmed} is null when the record reproduced the old controller. */
+    static Finding asLeft(Agreement a, AsLeftBasis unconfirmed, CheckPolicy p) {
         double warn = p.get(PolicyKey.REPLAY_AS_LEFT_RMS_WARN_PCT);
         double fail = p.get(PolicyKey.REPLAY_AS_LEFT_RMS_FAIL_PCT);
         Severity s = a.rmsPercent() > fail ? Severity.FAIL : a.rmsPercent() > warn ? Severity.WARN : Severity.INFO;
         String base = "As left (open loop): on the logged setpoint and PV the target's output would differ from the"
                 + " old controller's by " + figures(a).replace("correlation", "correlation with it") + ".";
-        String validated = sourceValidated ? "" : " The old controller as listed does not reproduce the log, so this"
-                + " compares with an old controller that did not run.";
+        String validated = unconfirmed == null ? "" : unconfirmed == AsLeftBasis.QUIET ? " The record is too quiet to"
+                + " confirm the old controller as listed, so this compares with an old controller the record does not"
+                + " confirm." : " The old controller as listed does not reproduce the log, so this compares with an old"
+                + " controller that did not run.";
         String caution = " This is open loop: under the new output the PV would have moved differently, so the"
                 + " difference shows where the controllers part, not the loop's new response; a growing difference"
                 + " (integral action) would be corrected by the loop, a difference on every PV move (gain, derivative)"
                 + " is what the process will feel.";
         return new Finding(Topic.REPLAY, s, a.rmsPercent(), s == Severity.FAIL ? fail : warn, "% of span", SOURCE,
                 base + validated + caution);
+    }
+
+    /** Below this a figure in % of span is rounding noise and prints as 0 (a constant record gives 1e-13). */
+    static final double NOISE_PERCENT = 1e-9;
+
+    /** A figure in % of span to three significant digits, rounding noise as 0. */
+    static String small(double percent) {
+        return Math.abs(percent) < NOISE_PERCENT ? "0" : Numbers.significant(percent, 3);
     }
 }

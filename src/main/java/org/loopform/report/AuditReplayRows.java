@@ -38,18 +38,31 @@ public final class AuditReplayRows {
         return List.copyOf(all);
     }
 
+    /** {@code replay_as_found} and JSON {@code as_found_verdict} of a loop whose record could not be read. */
+    static final String BAD_INPUT = "bad_input";
+
+    /** {@code replay_record}: found (replayed), none, unreadable, or not_used (a new loop tuned by rule). */
+    static String recordWord(ReplayEvidence e) {
+        return switch (e.status()) {
+            case REPLAYED -> "found";
+            case NO_RECORD -> "none";
+            case UNREADABLE -> "unreadable";
+            case NOT_USED -> "not_used";
+        };
+    }
+
+    /** Why a new loop's record is not used, in words. */
+    static final String NOT_USED_WHY = "a new loop tuned by rule has no old controller to validate, so its record"
+            + " was not replayed (no as-found validation, no as-left preview)";
+
     /** The as-found verdict in words: reproduced, not_confirmed, refuted, or none (nothing in automatic). */
     public static String asFoundWord(ReplayResult r) {
-        return r.asFound() == null ? "none" : switch (r.asFoundSeverity()) {
-            case INFO -> "reproduced";
-            case WARN -> "not_confirmed";
-            case FAIL -> "refuted";
-        };
+        return r.asFoundVerdict().id();
     }
 
     /** The best explanation when the listed controller is not reproduced and one does better; else null. */
     public static Explanation bestExplanation(ReplayResult r) {
-        if (r.asFound() == null || r.asFoundSeverity() == org.loopform.findings.Severity.INFO
+        if (r.asFound() == null || r.asFoundVerdict() == org.loopform.replay.AsFoundVerdict.REPRODUCED
                 || r.explanations().isEmpty()) {
             return null;
         }
@@ -67,10 +80,11 @@ public final class AuditReplayRows {
             }
             return c;
         }
-        c.add(e.status() == ReplayEvidence.Status.REPLAYED ? "found"
-                : e.status() == ReplayEvidence.Status.NO_RECORD ? "none" : "unreadable");
+        c.add(recordWord(e));
         ReplayResult r = e.result();
         if (r == null) {
+            // an unreadable record: the replay part of the loop is bad input, as a bad row is
+            c.add(e.status() == ReplayEvidence.Status.UNREADABLE ? BAD_INPUT : "");
             while (c.size() < COLUMNS.size() - 1) {
                 c.add("");
             }
@@ -101,8 +115,15 @@ public final class AuditReplayRows {
         if (e.status() == ReplayEvidence.Status.UNREADABLE) {
             ObjectNode n = Json.object();
             n.put("record", "unreadable");
+            n.put("as_found_verdict", BAD_INPUT);
             ArrayNode p = n.putArray("problems");
             e.problems().forEach(p::add);
+            return n;
+        }
+        if (e.status() == ReplayEvidence.Status.NOT_USED) {
+            ObjectNode n = Json.object();
+            n.put("record", "not_used");
+            n.put("reason", NOT_USED_WHY);
             return n;
         }
         ObjectNode n = Json.object();
@@ -121,12 +142,16 @@ public final class AuditReplayRows {
         n.put("replayed", s.replayed());
         n.put("reproduced", s.reproduced());
         n.put("not_confirmed", s.notConfirmed());
+        n.put("quiet_records", s.quiet());
         n.put("refuted", s.refuted());
         n.put("nothing_in_automatic", s.notCompared());
         n.put("explained_by_alternative", s.explainedByAlternative());
         n.put("without_record", s.withoutRecord());
         ArrayNode t = n.putArray("without_record_tags");
         s.withoutRecordTags().forEach(t::add);
+        n.put("not_used", s.notUsed());
+        ArrayNode nu = n.putArray("not_used_tags");
+        s.notUsedTags().forEach(nu::add);
         n.put("unreadable", s.unreadable());
         ArrayNode p = n.putArray("problems");
         s.problems().forEach(p::add);
@@ -139,19 +164,18 @@ public final class AuditReplayRows {
     public static String summaryText(ReplaySummary s) {
         String nl = System.lineSeparator();
         StringBuilder sb = new StringBuilder();
-        sb.append(nl).append("Replay of the records in ").append(s.recordsName()).append(": ").append(s.replayed())
-                .append(" loops replayed (").append(s.reproduced()).append(" reproduced, ").append(s.notConfirmed())
-                .append(" not confirmed, ").append(s.refuted()).append(" refuted")
-                .append(s.notCompared() > 0 ? ", " + s.notCompared() + " with nothing in automatic" : "").append(")")
-                .append(s.explainedByAlternative() > 0 ? "; " + s.explainedByAlternative()
-                        + " explained better by another reading" : "").append('.').append(nl);
+        sb.append(nl).append("Replay of the records in ").append(s.recordsName()).append(": ").append(replayedWords(s))
+                .append('.').append(nl);
         sb.append("  ").append(withoutRecordWords(s)).append(nl);
+        if (s.notUsed() > 0) {
+            sb.append("  ").append(notUsedWords(s)).append(nl);
+        }
         if (!s.unmatchedRecords().isEmpty()) {
             sb.append("  ").append(withoutLoopWords(s)).append(nl);
         }
         if (s.unreadable() > 0) {
-            sb.append("  ").append(s.unreadable()).append(s.unreadable() == 1 ? " record" : " records")
-                    .append(" could not be read or replayed:").append(nl);
+            sb.append("  ").append(plural(s.unreadable(), "record", "records"))
+                    .append(" could not be read or replayed (the loop warns; the audit exits 2):").append(nl);
             s.problems().forEach(p -> sb.append("    ").append(p).append(nl));
             if (s.problemCount() > s.problems().size()) {
                 sb.append("    ... and ").append(s.problemCount() - s.problems().size()).append(" more").append(nl);
@@ -160,16 +184,46 @@ public final class AuditReplayRows {
         return sb.toString();
     }
 
+    /** "no loop replayed", or "N loop(s) replayed (counts)" with the explained ones. */
+    static String replayedWords(ReplaySummary s) {
+        if (s.replayed() == 0) {
+            return "no loop replayed";
+        }
+        return plural(s.replayed(), "loop", "loops") + " replayed (" + s.reproduced() + " reproduced, "
+                + s.notConfirmed() + " not confirmed" + (s.quiet() > 0 ? " (" + s.quiet() + " on "
+                + (s.quiet() == 1 ? "a record" : "records") + " too quiet to tell controllers apart)" : "") + ", "
+                + s.refuted() + " refuted" + (s.notCompared() > 0 ? ", " + s.notCompared() + " with nothing in automatic"
+                : "") + ")" + (s.explainedByAlternative() > 0 ? "; " + s.explainedByAlternative()
+                + " explained better by another reading" : "");
+    }
+
+    /** {@code n} and the singular or plural noun. */
+    static String plural(long n, String one, String many) {
+        return n + " " + (n == 1 ? one : many);
+    }
+
     /** The one sentence on loops without a record. */
     static String withoutRecordWords(ReplaySummary s) {
         if (s.withoutRecord() == 0) {
-            return "Every loop has a record.";
+            return s.unreadable() == 0 && s.notUsed() == 0 ? "Every loop has a record."
+                    : "Every loop has a record, but not every record was replayed (below).";
         }
         String tags = String.join(", ", s.withoutRecordTags())
                 + (s.withoutRecord() > s.withoutRecordTags().size()
                 ? " and " + (s.withoutRecord() - s.withoutRecordTags().size()) + " more" : "");
         return s.withoutRecord() + (s.withoutRecord() == 1 ? " loop has" : " loops have") + " no record (no TAG.csv"
                 + " in " + s.recordsName() + "), so no replay evidence: " + tags + ".";
+    }
+
+    /** The one sentence on new loops tuned by rule whose record was not used (empty when none). */
+    static String notUsedWords(ReplaySummary s) {
+        if (s.notUsed() == 0) {
+            return "";
+        }
+        String tags = String.join(", ", s.notUsedTags()) + (s.notUsed() > s.notUsedTags().size()
+                ? " and " + (s.notUsed() - s.notUsedTags().size()) + " more" : "");
+        return (s.notUsed() == 1 ? "1 new loop has a record that was not used: "
+                : s.notUsed() + " new loops have records that were not used: ") + tags + "; " + NOT_USED_WHY + ".";
     }
 
     /**

@@ -41,10 +41,16 @@ final class HtmlReplaySection {
         }
         StringBuilder sb = new StringBuilder("<div class=\"replay\"><h3>Replay of the logged record</h3>\n");
         if (e.status() == ReplayEvidence.Status.UNREADABLE) {
-            sb.append("<p>The record could not be read or replayed, so this loop has no replay evidence:</p>\n"
+            sb.append("<p><b>The record could not be read or replayed</b>, so this loop has no replay evidence"
+                    + " (the loop warns, and the audit exits 2):</p>\n"
                     + "<ul class=\"problems\">\n");
             e.problems().forEach(p -> sb.append("<li>").append(Html.esc(p)).append("</li>\n"));
             w.write(sb.append("</ul></div>\n").toString());
+            return;
+        }
+        if (e.status() == ReplayEvidence.Status.NOT_USED) {
+            w.write(sb.append("<p>Record not used: ").append(Html.esc(AuditReplayRows.NOT_USED_WHY))
+                    .append(".</p></div>\n").toString());
             return;
         }
         ReplayResult r = e.result();
@@ -120,7 +126,9 @@ final class HtmlReplaySection {
     private static String verdictWords(ReplayResult r) {
         return switch (AuditReplayRows.asFoundWord(r)) {
             case "reproduced" -> "the listed old controller reproduces the logged output";
-            case "not_confirmed" -> "the record does not confirm the listed old controller";
+            case "not_confirmed" -> r.quietRecord() ? "the record does not confirm the listed old controller: "
+                    + ReplayReport.QUIET + " (any controller at rest matches it)"
+                    : "the record does not confirm the listed old controller";
             case "refuted" -> "the record refutes the listed old controller";
             default -> "nothing in automatic to compare";
         };
@@ -145,20 +153,31 @@ final class HtmlReplaySection {
             return;
         }
         StringBuilder sb = new StringBuilder("<section id=\"replay-summary\"><h2>Replay of logged records</h2>\n<p>");
-        sb.append("Records from ").append(Html.esc(s.recordsName())).append(": ").append(s.replayed())
-                .append(s.replayed() == 1 ? " loop" : " loops").append(" replayed; the listed old controller ")
-                .append("reproduces the log for ").append(s.reproduced()).append(", is not confirmed for ")
-                .append(s.notConfirmed()).append(" and refuted for ").append(s.refuted())
-                .append(s.notCompared() > 0 ? "; " + s.notCompared() + " had nothing in automatic to compare" : "")
-                .append(s.explainedByAlternative() > 0 ? "; for " + s.explainedByAlternative()
-                        + " another reading of the list explains the log better (see the loop)" : "")
-                .append(".</p>\n<p>").append(Html.esc(AuditReplayRows.withoutRecordWords(s))).append("</p>\n");
+        sb.append("Records from ").append(Html.esc(s.recordsName())).append(": ");
+        if (s.replayed() == 0) {
+            sb.append("no loop replayed");
+        } else {
+            sb.append(AuditReplayRows.plural(s.replayed(), "loop", "loops")).append(" replayed; the listed old controller ")
+                    .append("reproduces the log for ").append(s.reproduced()).append(", is not confirmed for ")
+                    .append(s.notConfirmed()).append(s.quiet() > 0 ? " (" + s.quiet() + " on "
+                            + (s.quiet() == 1 ? "a record" : "records") + " too quiet to tell controllers apart)" : "")
+                    .append(" and refuted for ").append(s.refuted())
+                    .append(s.notCompared() > 0 ? "; " + s.notCompared() + " had nothing in automatic to compare" : "")
+                    .append(s.explainedByAlternative() > 0 ? "; for " + s.explainedByAlternative()
+                            + " another reading of the list explains the log better (see the loop)" : "");
+        }
+        sb.append(".</p>\n<p>").append(Html.esc(AuditReplayRows.withoutRecordWords(s))).append("</p>\n");
+        if (s.notUsed() > 0) {
+            sb.append("<p class=\"not-used\">").append(Html.esc(AuditReplayRows.notUsedWords(s))).append("</p>\n");
+        }
         if (!s.unmatchedRecords().isEmpty()) {
             sb.append("<p class=\"unmatched\">").append(Html.esc(AuditReplayRows.withoutLoopWords(s))).append("</p>\n");
         }
         if (s.unreadable() > 0) {
-            sb.append("<p>").append(s.unreadable()).append(s.unreadable() == 1 ? " record" : " records")
-                    .append(" could not be read or replayed (the loops were still checked):</p>\n<ul class=\"badrows\">\n");
+            sb.append("<p>").append(AuditReplayRows.plural(s.unreadable(), "record", "records"))
+                    .append(s.unreadable() == 1 ? " could not be read or replayed (its loop was still checked, and"
+                            + " warns):</p>\n" : " could not be read or replayed (their loops were still checked, and"
+                            + " warn):</p>\n").append("<ul class=\"badrows\">\n");
             s.problems().forEach(p -> sb.append("<li>").append(Html.esc(p)).append("</li>\n"));
             if (s.problemCount() > s.problems().size()) {
                 sb.append("<li>... and ").append(s.problemCount() - s.problems().size()).append(" more</li>\n");

@@ -14,8 +14,8 @@ import org.loopform.units.Numbers;
 /**
  * A list replay's per-loop CSV summary ({@code replay --out DIR} writes it as {@code replay.csv}): one row a
  * loop, the differences in % of output span, the as-found verdict, the best explanation when the record
- * refutes or does not confirm the list, the as-left differences and the loop's verdict; a loop without a
- * record gets a row that says so. Cells a spreadsheet would read as a formula get a leading {@code '}.
+ * does not reproduce the list and another reading explains it better, the as-left differences and the
+ * loop's verdict; a loop without a record gets a row that says so. Cells a spreadsheet would read as a formula get a leading {@code '}.
  */
 public final class ReplayCsv {
 
@@ -30,6 +30,11 @@ public final class ReplayCsv {
 
     /** The CSV text (RFC 4180, header first) for {@code results} in their order, then the tags without a record. */
     public static String csv(List<ReplayResult> results, List<String> missing) {
+        return csv(results, missing, List.of());
+    }
+
+    /** As {@link #csv(List, List)}, then the new loops tuned by rule whose record was not used. */
+    public static String csv(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         StringWriter out = new StringWriter();
         try (CSVPrinter p = new CSVPrinter(out, CSVFormat.RFC4180.builder()
                 .setHeader(COLUMNS.toArray(String[]::new)).get())) {
@@ -37,18 +42,26 @@ public final class ReplayCsv {
                 p.printRecord(row(r));
             }
             for (String tag : missing) {
-                List<String> row = new ArrayList<>();
-                row.add(AuditRows.spreadsheetCell(tag));
-                row.add("no record");
-                while (row.size() < COLUMNS.size()) {
-                    row.add("");
-                }
-                p.printRecord(row);
+                p.printRecord(note(tag, "no record"));
+            }
+            for (String tag : notUsed) {
+                p.printRecord(note(tag, "record not used (new loop tuned by rule)"));
             }
         } catch (IOException e) {
             throw new IllegalStateException("writing to memory cannot fail", e);
         }
         return out.toString();
+    }
+
+    /** A row of a loop not replayed: its tag and why, in the verdict column. */
+    private static List<String> note(String tag, String why) {
+        List<String> row = new ArrayList<>();
+        row.add(AuditRows.spreadsheetCell(tag));
+        row.add(why);
+        while (row.size() < COLUMNS.size()) {
+            row.add("");
+        }
+        return row;
     }
 
     static List<String> row(ReplayResult r) {
@@ -57,9 +70,8 @@ public final class ReplayCsv {
         row.add(r.verdict().id());
         row.add(asFound(r));
         figures(row, r.asFound());
-        boolean explain = r.asFound() != null && r.asFoundSeverity() != org.loopform.findings.Severity.INFO
-                && !r.explanations().isEmpty();
-        Explanation best = explain ? r.explanations().get(0) : null;
+        // the best explanation when it explains the record better than the list (as audit --records gives it)
+        Explanation best = AuditReplayRows.bestExplanation(r);
         row.add(best == null ? "" : AuditRows.spreadsheetCell(best.description()));
         row.add(best == null ? "" : num(best.agreement().rmsPercent()));
         figures(row, r.asLeft());
@@ -73,14 +85,7 @@ public final class ReplayCsv {
 
     /** reproduced, not_confirmed or refuted (as in the JSON's {@code as_found_verdict}); none without automatic scans. */
     static String asFound(ReplayResult r) {
-        if (r.asFound() == null) {
-            return "none";
-        }
-        return switch (r.asFoundSeverity()) {
-            case INFO -> "reproduced";
-            case WARN -> "not_confirmed";
-            case FAIL -> "refuted";
-        };
+        return r.asFoundVerdict().id();
     }
 
     private static void figures(List<String> row, Agreement a) {

@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.util.Map;
 import org.loopform.replay.Agreement;
+import org.loopform.replay.AsFoundVerdict;
 import org.loopform.replay.Explanation;
 import org.loopform.replay.FittedTuning;
 import org.loopform.replay.ReplayResult;
@@ -16,6 +17,9 @@ public final class ReplayReport {
     static final String OPEN_LOOP = "Open loop: both controllers read the logged setpoint and PV. Under the new"
             + " output the PV would have moved differently, so the differences show where the controllers part on"
             + " the plant's own signals, not how the loop will respond.";
+
+    /** Why a quiet record's match confirms nothing, in words. */
+    static final String QUIET = "the logged output hardly moves, so the record cannot tell controllers apart";
 
     private ReplayReport() {
     }
@@ -31,12 +35,10 @@ public final class ReplayReport {
         sb.append("  Target as entered:        ").append(r.targetFormId()).append(' ').append(tuning(r.enteredTuning()))
                 .append(", scan ").append(Numbers.significant(r.targetScanSeconds(), 4)).append(" s").append(nl);
         sb.append("  As found (old controller vs logged output): ").append(figures(r.asFound())).append(" -> ")
-                .append(r.asFound() == null ? "nothing to compare" : switch (r.asFoundSeverity()) {
-                    case INFO -> "reproduced";
-                    case WARN -> "not confirmed";
-                    case FAIL -> "refuted";
-                }).append(nl);
-        if (!r.explanations().isEmpty() && r.asFoundSeverity() != org.loopform.findings.Severity.INFO) {
+                .append(r.asFoundVerdict().words()).append(r.quietRecord() && r.asFound() != null
+                        && r.asFoundVerdict() != AsFoundVerdict.REFUTED ? " (" + QUIET + ")" : "").append(nl);
+        if (!r.explanations().isEmpty() && r.asFoundVerdict() != AsFoundVerdict.REPRODUCED
+                && (!r.quietRecord() || AuditReplayRows.bestExplanation(r) != null)) {
             sb.append("  Best explanations of ").append(r.alternativesTried()).append(" readings tried:").append(nl);
             for (Explanation e : r.explanations()) {
                 sb.append("    ").append(e.kind().id()).append(": ").append(e.description()).append(" [")
@@ -62,6 +64,14 @@ public final class ReplayReport {
 
     /** Several loops: each in full, then one line a loop. */
     public static String text(List<ReplayResult> results, List<String> missing) {
+        return text(results, missing, List.of());
+    }
+
+    /**
+     * Several loops, and the tags of new loops tuned by rule whose record was not used
+     * ({@code notUsed}: no old controller ran that it could validate).
+     */
+    public static String text(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         StringBuilder sb = new StringBuilder();
         String nl = System.lineSeparator();
         for (ReplayResult r : results) {
@@ -74,6 +84,9 @@ public final class ReplayReport {
         }
         for (String m : missing) {
             sb.append("  ").append(m).append(": no record, not replayed").append(nl);
+        }
+        for (String m : notUsed) {
+            sb.append("  ").append(m).append(": record not used: ").append(AuditReplayRows.NOT_USED_WHY).append(nl);
         }
         return sb.toString();
     }
@@ -142,11 +155,8 @@ public final class ReplayReport {
         r.enteredTuning().forEach(tgt.putObject("entered")::put);
         tgt.put("scan_s", r.targetScanSeconds());
         n.set("as_found", agreement(r.asFound()));
-        n.put("as_found_verdict", r.asFound() == null ? "none" : switch (r.asFoundSeverity()) {
-            case INFO -> "reproduced";
-            case WARN -> "not_confirmed";
-            case FAIL -> "refuted";
-        });
+        n.put("as_found_verdict", r.asFoundVerdict().id());
+        n.put("quiet_record", r.quietRecord());
         n.put("alternatives_tried", r.alternativesTried());
         ArrayNode ex = n.putArray("explanations");
         for (Explanation e : r.explanations()) {
@@ -173,11 +183,18 @@ public final class ReplayReport {
     }
 
     public static String json(List<ReplayResult> results, List<String> missing) {
+        return json(results, missing, List.of());
+    }
+
+    /** As {@link #json(List, List)}, with {@code not_used}: new loops tuned by rule whose record was not used. */
+    public static String json(List<ReplayResult> results, List<String> missing, List<String> notUsed) {
         ObjectNode n = Json.object();
         ArrayNode loops = n.putArray("loops");
         results.forEach(r -> loops.add(jsonNode(r)));
         ArrayNode m = n.putArray("without_record");
         missing.forEach(m::add);
+        ArrayNode u = n.putArray("not_used");
+        notUsed.forEach(u::add);
         return Json.write(n);
     }
 

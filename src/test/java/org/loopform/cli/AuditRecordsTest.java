@@ -160,11 +160,34 @@ class AuditRecordsTest {
             assertThat(r.exitCode()).isEqualTo(2);
             assertThat(r.err()).contains("TIC-301.csv:4");
             JsonNode doc = json(out);
-            assertThat(loop(doc, "TIC-301").get("verdict").asText()).isIn("pass", "warn");
+            // TIC-301 passes with a readable record; without the evidence asked for it must not pass clean
+            assertThat(loop(doc, "TIC-301").get("verdict").asText()).isEqualTo("warn");
+            assertThat(loop(doc, "TIC-301").get("findings").toString()).contains("could not be read or replayed");
             assertThat(loop(doc, "TIC-301").get("replay").get("record").asText()).isEqualTo("unreadable");
+            assertThat(loop(doc, "TIC-301").get("replay").get("as_found_verdict").asText()).isEqualTo("bad_input");
+            assertThat(csv(out).get("TIC-301").get("verdict")).isEqualTo("warn");
+            assertThat(csv(out).get("TIC-301").get("replay_as_found")).isEqualTo("bad_input");
+            assertThat(r.out()).contains("2 loops replayed (")
+                    .contains("Every loop has a record, but not every record was replayed (below).")
+                    .contains("1 record could not be read or replayed");
             assertThat(loop(doc, "FIC-105").get("replay").get("as_found_verdict").asText()).isEqualTo("refuted");
             assertThat(csv(out).get("TIC-301").get("replay_problems")).contains("TIC-301.csv:4");
             assertThat(Files.readString(out.resolve("report.html"))).contains("could not be read");
+        }
+
+        @Test
+        void a_lone_unreadable_record_gives_no_loop_replayed_and_a_warning_not_a_pass() throws Exception {
+            Path records = Files.createDirectories(dir.resolve("records"));
+            // plumbing: a decimal comma on line 2
+            Files.writeString(records.resolve("TIC-301.csv"), "time,setpoint,pv,output\n0,60,60,\"26,5\"\n1,60,60,26\n");
+            Path out = dir.resolve("out");
+            CliRun r = CliRun.of("audit", DRAFT, "--to", TARGET, "--records", records.toString(), "--out",
+                    out.toString());
+            assertThat(r.exitCode()).isEqualTo(2);
+            assertThat(r.out()).contains("Replay of the records in " + records + ": no loop replayed.")
+                    .doesNotContain("0 loops replayed").doesNotContain("Every loop has a record.");
+            assertThat(csv(out).get("TIC-301").get("verdict")).isNotEqualTo("pass");
+            assertThat(Files.readString(out.resolve("report.html"))).contains(": no loop replayed.");
         }
 
         @Test
@@ -254,6 +277,97 @@ class AuditRecordsTest {
                 }
             });
             return out;
+        }
+    }
+
+    @Nested
+    @DisplayName("records that cannot confirm a controller")
+    class NothingToConfirm {
+
+        /** Invented: FIC-105 listed in series-pb-min, pb 250, ti 15 min, ranges and an FOPDT model. */
+        static final String LIST = "tag,form,pb,ti,td,scan,pv_range,output_range,model,process_gain,time_constant,"
+                + "dead_time,target_scan\nFIC-105,series-pb-min,250,15,0,1 s,0..80,0..100,fopdt,1.3,6 s,2 s,0.5 s\n";
+
+        /**
+         * A record whose setpoint, PV and output never move: the error is zero at every scan, so any
+         * controller started at the logged output holds it (hand derivation: each scan's increment
+         * Kc (e_k - e_{k-1}) + Kc h/Ti e_k is 0); the record confirms no controller.
+         */
+        @Test
+        void a_still_record_is_not_confirmed_in_every_output_never_reproduced() throws Exception {
+            Path list = Files.writeString(dir.resolve("list.csv"), LIST);
+            Path records = Files.createDirectories(dir.resolve("records"));
+            StringBuilder rec = new StringBuilder("time,setpoint,pv,output,mode\n");
+            for (int k = 0; k <= 1200; k++) {
+                rec.append(k).append(",32,32.00,30.7,auto\n");
+            }
+            Files.writeString(records.resolve("FIC-105.csv"), rec);
+            Path out = dir.resolve("out");
+            CliRun r = CliRun.of("audit", list.toString(), "--to", TARGET, "--records", records.toString(), "--out",
+                    out.toString());
+            assertThat(r.exitCode()).as(r.err()).isEqualTo(0);
+            assertThat(r.out()).contains("1 loop replayed (0 reproduced, 1 not confirmed (1 on a record too quiet to"
+                    + " tell controllers apart), 0 refuted)").doesNotContain("1 loops replayed");
+            assertThat(csv(out).get("FIC-105").get("replay_as_found")).isEqualTo("not_confirmed");
+            assertThat(csv(out).get("FIC-105").get("verdict")).isEqualTo("warn");
+            JsonNode doc = json(out);
+            JsonNode replay = loop(doc, "FIC-105").get("replay");
+            assertThat(replay.get("as_found_verdict").asText()).isEqualTo("not_confirmed");
+            assertThat(replay.get("quiet_record").asBoolean()).isTrue();
+            assertThat(loop(doc, "FIC-105").get("findings").toString()).doesNotContain("reproduces the logged output");
+            assertThat(doc.get("summary").get("replay").get("quiet_records").asInt()).isEqualTo(1);
+            assertThat(doc.get("summary").get("replay").get("reproduced").asInt()).isZero();
+            String html = Files.readString(out.resolve("report.html"));
+            assertThat(html).contains("the record does not confirm the listed old controller: the logged output hardly"
+                    + " moves").contains("1 loop replayed;").doesNotContain("reproduces the logged output");
+        }
+
+        /**
+         * A new loop tuned by rule (examples/new-loops.csv) never ran an old controller: its record
+         * is read (and listed in the provenance) but not replayed, and the loop's verdict is the one
+         * the audit gives it without records.
+         */
+        @Test
+        void a_new_loop_tuned_by_rule_does_not_use_its_record() throws Exception {
+            Path records = Files.createDirectories(dir.resolve("records"));
+            StringBuilder rec = new StringBuilder("time,setpoint,pv,output\n");
+            for (int k = 0; k <= 600; k++) {
+                double pv = 32 + 2 * Math.sin(k / 20.0);
+                rec.append(k).append(",32,").append(pv).append(',').append(30 + 5 * Math.cos(k / 15.0)).append('\n');
+            }
+            Files.writeString(records.resolve("FIC-110.csv"), rec);
+            Path plain = dir.resolve("plain");
+            CliRun without = CliRun.of("audit", "examples/new-loops.csv", "--to", TARGET, "--out", plain.toString(),
+                    "--no-report");
+            Path out = dir.resolve("out");
+            CliRun r = CliRun.of("audit", "examples/new-loops.csv", "--to", TARGET, "--records", records.toString(),
+                    "--out", out.toString());
+            assertThat(r.exitCode()).as(r.err()).isEqualTo(without.exitCode());
+            CSVRecord row = csv(out).get("FIC-110");
+            assertThat(row.get("verdict")).isEqualTo(csv(plain).get("FIC-110").get("verdict"));
+            assertThat(row.get("replay_record")).isEqualTo("not_used");
+            assertThat(row.get("replay_as_found")).isEmpty();
+            assertThat(row.get("replay_best_explanation")).isEmpty();
+            JsonNode doc = json(out);
+            JsonNode fic = loop(doc, "FIC-110");
+            assertThat(fic.get("findings").toString()).doesNotContain("\"topic\":\"replay\"");
+            assertThat(fic.get("replay").get("record").asText()).isEqualTo("not_used");
+            assertThat(fic.get("replay").get("reason").asText()).contains("no old controller");
+            JsonNode summary = doc.get("summary").get("replay");
+            assertThat(summary.get("replayed").asInt()).isZero();
+            assertThat(summary.get("not_used_tags").get(0).asText()).isEqualTo("FIC-110");
+            assertThat(r.out()).contains("no loop replayed").contains("1 new loop has a record that was not used:"
+                    + " FIC-110").doesNotContain("refute");
+            assertThat(Files.readString(out.resolve("report.html"))).contains("Record not used: a new loop tuned by"
+                    + " rule has no old controller to validate");
+            assertThat(doc.get("provenance").get("inputs").toString()).contains("FIC-110.csv");
+            // replay --list on the same list says the same and replays nothing
+            CliRun replay = CliRun.of("replay", records.toString(), "--list", "examples/new-loops.csv", "--to", TARGET,
+                    "--format", "json");
+            assertThat(replay.exitCode()).as(replay.err()).isEqualTo(0);
+            JsonNode listed = new ObjectMapper().readTree(replay.out());
+            assertThat(listed.get("loops")).isEmpty();
+            assertThat(listed.get("not_used").get(0).asText()).isEqualTo("FIC-110");
         }
     }
 }
