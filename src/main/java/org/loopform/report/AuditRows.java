@@ -353,7 +353,7 @@ public final class AuditRows {
     public static String summaryText(AuditSummary s, String outFolder) {
         String nl = System.lineSeparator();
         StringBuilder sb = new StringBuilder();
-        sb.append("Audit of ").append(s.loops()).append(" loops: ").append(s.count(Verdict.PASS)).append(" pass, ")
+        sb.append("Audit of ").append(s.loops()).append(s.loops() == 1 ? " loop: " : " loops: ").append(s.count(Verdict.PASS)).append(" pass, ")
                 .append(s.count(Verdict.WARN)).append(" warn, ").append(s.count(Verdict.FAIL)).append(" fail, ")
                 .append(s.badRowCount()).append(" bad rows; ").append(s.exactConversions()).append(" of ")
                 .append(s.checked()).append(" conversions exact.").append(nl);
