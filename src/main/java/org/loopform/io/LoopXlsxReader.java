@@ -26,7 +26,7 @@ import org.loopform.audit.LoopRow;
  * columns, units and checks are those of a CSV loop list ({@link LoopListRows}); each cell is read
  * as the text a CSV file would hold there ({@link XlsxCell}). The header is the first row, among
  * the sheet's first {@value #HEADER_SEARCH_ROWS}, whose cells name the columns {@code tag} and
- * {@code form}; rows above it (titles, notes) are skipped, and so are empty rows and rows of merged
+ * {@code form} (or {@code rule}, for a list of new loops); rows above it (titles, notes) are skipped, and so are empty rows and rows of merged
  * title cells below it. Every message names the cell: {@code loops.xlsx:Loops!C7: ti: ...}.
  *
  * <p>The sheet is the one named (or numbered from 1) by {@code sheet}, or else the first visible
@@ -135,7 +135,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             Opened o = header(path, name, workbook, s);
             if (o == null) {
                 throw new InputException(name + ":" + ref(s.getName()) + ": no header row with the columns tag and"
-                        + " form in the sheet's first " + HEADER_SEARCH_ROWS + " rows; put a header row (tag, form,"
+                        + " form (or rule) in the sheet's first " + HEADER_SEARCH_ROWS + " rows; put a header row (tag, form,"
                         + " kc, ti, td...) above the loops" + (sheets.size() > 1 ? ", or choose another sheet with"
                         + " --sheet (sheets: " + names(sheets) + ")" : ""));
             }
@@ -151,7 +151,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             }
         }
         throw new InputException(name + ": no visible sheet has a loop-list header (a row naming the columns tag and"
-                + " form, in its first " + HEADER_SEARCH_ROWS + " rows; sheets: " + names(sheets) + "); add a header"
+                + " form, or tag and rule, in its first " + HEADER_SEARCH_ROWS + " rows; sheets: " + names(sheets) + "); add a header"
                 + " row above the loops, or choose the sheet with --sheet NAME");
     }
 
@@ -228,7 +228,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             XlsxCell c = XlsxCell.of(r.getCell(k), false);
             String t = c.bad() ? "" : c.text().trim().toLowerCase(Locale.ROOT);
             tag |= t.equals("tag");
-            form |= t.equals("form");
+            form |= t.equals("form") || t.equals(RuleCells.RULE); // a list of new loops gives a rule instead
         }
         return tag && form;
     }

@@ -229,6 +229,22 @@ class LoopXlsxReaderTest {
         }
 
         @Test
+        void a_list_of_new_loops_with_a_rule_column_and_no_form_column_is_found_and_read() throws IOException {
+            // the first row of examples/new-loops.csv (invented), as a sheet under a title row
+            List<LoopRow> rows = read(book(ws -> {
+                ws.value(0, 0, "New loops (invented example)");
+                XlsxTestFiles.csvRows(ws, 1, "tag,rule,controller,model,process_gain,time_constant,dead_time,"
+                        + "pv_range,output_range,target_scan,target_form\nTIC-104,simc,pi,fopdt,1.998,59.71 s,10.27 s,"
+                        + "0..150,0..100,0.5 s,ideal");
+            }), null);
+            assertThat(rows).singleElement().satisfies(r -> {
+                assertThat(r.problems()).isEmpty();
+                assertThat(r.where()).isEqualTo("loops.xlsx:Loops!A3");
+                assertThat(r.ruleTuning()).isNotNull();
+            });
+        }
+
+        @Test
         void an_unknown_column_stops_the_file_at_the_header_cell() throws IOException {
             Path f = book(ws -> XlsxTestFiles.csvRows(ws, 1, "tag,form,gain\nFIC-1,ideal,1"));
             assertThatThrownBy(() -> read(f, null)).isInstanceOf(InputException.class)
