@@ -300,6 +300,14 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         if (!any || allWideMerges) {
             return null;
         }
+        for (XlsxMerges.Range m : merges.covering(rowNum)) {
+            // a merged cell shows its value over the range but stores it in the top-left cell alone:
+            // the other rows (or cells) would read as empty, so as defaults; loopform does not spread it
+            String key = m.firstColumn() < rows.columns().size() ? rows.columns().get(m.firstColumn()) : "";
+            problems.add(at(rowNum, m.firstColumn()) + ": " + (key.isEmpty() ? "column " + letter(m.firstColumn())
+                    : key) + ": " + m.ref() + " is merged (its value is stored in " + letter(m.firstColumn())
+                    + m.firstRow() + " alone); unmerge it and fill each " + (m.spansRows() ? "row" : "cell"));
+        }
         String where = at(rowNum, Math.max(0, tagColumn));
         return rows.row(index++, values, where, k -> at(rowNum, k), rowNum, first -> at(first, tagColumn), problems);
     }

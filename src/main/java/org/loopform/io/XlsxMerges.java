@@ -3,7 +3,10 @@ package org.loopform.io;
 import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.zip.ZipEntry;
 import java.util.zip.ZipFile;
@@ -14,8 +17,10 @@ import javax.xml.stream.XMLStreamReader;
 import org.dhatim.fastexcel.reader.CellAddress;
 
 /**
- * The merged cells of one sheet that span two columns or more, by their top-left cell, so that a row
- * of merged title cells can be told from a loop: a sheet lists its merged ranges after its rows
+ * The merged cells of one sheet: those that span two columns or more by their top-left cell, so that a
+ * row of merged title cells can be told from a loop, and every merged range by the rows it covers, so
+ * that a loop row with merged cells (a value shown in several rows but stored in the first) is refused.
+ * A sheet lists its merged ranges after its rows
  * ({@code <mergeCells>} follows {@code <sheetData>}, ECMA-376 Part 1, {@code CT_Worksheet}; from
  * memory), so they are read first in a pass of their own that keeps nothing but the ranges. The
  * sheet's part is found as the Open Packaging Conventions say: the package relationship of type
@@ -33,12 +38,45 @@ final class XlsxMerges {
     private static final java.util.regex.Pattern COLUMN_LETTERS = java.util.regex.Pattern.compile("\\$?([A-Za-z]+)");
 
     private final Map<Long, Integer> widthByTopLeft;
+    /** Every merged range, by its first row. */
+    private final List<Range> ranges;
+    /** The ranges that may cover the row asked last, and the next range not yet among them. */
+    private final List<Range> active = new ArrayList<>();
+    private int next;
+    private int lastAsked;
 
-    private XlsxMerges(Map<Long, Integer> widthByTopLeft) {
+    private XlsxMerges(Map<Long, Integer> widthByTopLeft, List<Range> ranges) {
         this.widthByTopLeft = widthByTopLeft;
+        this.ranges = ranges.stream().sorted(Comparator.comparingInt(Range::firstRow)).toList();
     }
 
-    static final XlsxMerges NONE = new XlsxMerges(Map.of());
+    static XlsxMerges none() {
+        return new XlsxMerges(Map.of(), List.of());
+    }
+
+    /** A merged range: rows from 1, columns from 0, both ends included; {@code ref} as the file writes it. */
+    record Range(int firstRow, int lastRow, int firstColumn, int lastColumn, String ref) {
+        boolean spansRows() {
+            return lastRow > firstRow;
+        }
+    }
+
+    /**
+     * The merged ranges that cover {@code row} (from 1), left to right. Rows are asked for in the
+     * order a sheet lists them (rising); a row asked out of order starts the search again.
+     */
+    List<Range> covering(int row) {
+        if (row < lastAsked) {
+            active.clear();
+            next = 0;
+        }
+        lastAsked = row;
+        while (next < ranges.size() && ranges.get(next).firstRow() <= row) {
+            active.add(ranges.get(next++));
+        }
+        active.removeIf(r -> r.lastRow() < row);
+        return active.stream().sorted(Comparator.comparingInt(Range::firstColumn)).toList();
+    }
 
     /** Whether the cell at {@code row} (from 1) and {@code column} (from 0) starts a merge over two columns or more. */
     boolean startsWideMerge(int row, int column) {
@@ -57,18 +95,18 @@ final class XlsxMerges {
         try (ZipFile zip = new ZipFile(workbook.toFile())) {
             String book = target(zip, "_rels/.rels", "", null);
             if (book == null) {
-                return NONE;
+                return none();
             }
             int slash = book.lastIndexOf('/');
             String folder = slash < 0 ? "" : book.substring(0, slash + 1);
             String rels = folder + "_rels/" + book.substring(slash + 1) + ".rels";
             String sheet = target(zip, rels, folder, sheetRelationId);
             ZipEntry entry = sheet == null ? null : zip.getEntry(sheet);
-            return entry == null ? NONE : read(zip, entry, shownName, sheetName);
+            return entry == null ? none() : read(zip, entry, shownName, sheetName);
         } catch (InputException e) {
             throw e;
         } catch (IOException | XMLStreamException | RuntimeException e) {
-            return NONE; // a damaged package: the row reader reports it, with its position
+            return none(); // a damaged package: the row reader reports it, with its position
         }
     }
 
@@ -99,6 +137,7 @@ final class XlsxMerges {
     private static XlsxMerges read(ZipFile zip, ZipEntry sheet, String shownName, String sheetName)
             throws IOException, XMLStreamException {
         Map<Long, Integer> merges = new HashMap<>();
+        List<Range> all = new ArrayList<>();
         try (InputStream in = zip.getInputStream(sheet)) {
             XMLStreamReader r = factory().createXMLStreamReader(in);
             while (r.hasNext()) {
@@ -123,11 +162,15 @@ final class XlsxMerges {
                         if (width >= 2) {
                             merges.put(key(from.getRow() + 1, from.getColumn()), width);
                         }
+                        if (width >= 2 || to.getRow() > from.getRow()) {
+                            all.add(new Range(from.getRow() + 1, to.getRow() + 1, from.getColumn(), to.getColumn(),
+                                    ref));
+                        }
                     }
                 }
             }
         }
-        return new XlsxMerges(merges);
+        return new XlsxMerges(merges, all);
     }
 
     /** Whether a cell reference such as {@code C7} names a column past XFD (letters compared by count, then value). */

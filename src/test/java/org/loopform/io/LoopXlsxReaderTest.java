@@ -213,6 +213,35 @@ class LoopXlsxReaderTest {
             assertThat(rows).allMatch(LoopRow::ok);
         }
 
+        // A merged range stores its value in its top-left cell only; the other cells of the range are
+        // empty in the file (ECMA-376 Part 1, 18.3.1.55 mergeCell; from memory).
+        @Test
+        void a_cell_merged_down_several_loop_rows_makes_each_of_them_a_bad_row_naming_the_range() throws IOException {
+            List<LoopRow> rows = read(book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\nFIC-2,,2,60,0,1 s,"
+                        + "ideal-min\nFIC-3,,3,60,0,1 s,ideal-min\nFIC-4,ideal,4,60,0,1 s,ideal-min");
+                ws.range(1, 1, 3, 1).merge();
+            }), null);
+            assertThat(rows).hasSize(4);
+            for (int k = 0; k < 3; k++) {
+                assertThat(rows.get(k).ok()).isFalse();
+                assertThat(rows.get(k).problems()).singleElement().asString().isEqualTo("loops.xlsx:Loops!B" + (k + 2)
+                        + ": form: B2:B4 is merged (its value is stored in B2 alone); unmerge it and fill each row");
+            }
+            assertThat(rows.get(3).ok()).isTrue();
+        }
+
+        @Test
+        void cells_merged_across_a_loop_row_make_it_a_bad_row() throws IOException {
+            List<LoopRow> rows = read(book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,,1 s,ideal-min");
+                ws.range(1, 3, 1, 4).merge();
+            }), null);
+            assertThat(rows).singleElement().satisfies(r -> assertThat(r.problems()).singleElement().asString()
+                    .isEqualTo("loops.xlsx:Loops!D2: ti: D2:E2 is merged (its value is stored in D2 alone); unmerge"
+                            + " it and fill each cell"));
+        }
+
         @Test
         void a_lone_text_cell_that_is_not_merged_is_a_bad_row_not_a_skipped_one() throws IOException {
             List<LoopRow> rows = read(book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1")), null);
