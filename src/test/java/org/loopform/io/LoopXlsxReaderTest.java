@@ -187,6 +187,21 @@ class LoopXlsxReaderTest {
         }
 
         @Test
+        void a_parameter_the_check_cannot_read_is_placed_at_its_own_cell() throws IOException {
+            Path f = book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\n"
+                    + "FIC-2,ideal,abc,60,0,1 s,ideal-min\nFIC-3,ideal,1,5 kg,0,1 s,ideal-min"));
+            List<org.loopform.audit.LoopOutcome> out = new ArrayList<>();
+            try (LoopXlsxReader r = LoopXlsxReader.open(f, "loops.xlsx", null, LoopDefaults.NONE)) {
+                org.loopform.audit.Audit.run(r, org.loopform.findings.CheckPolicy.DEFAULT, 1, out::add);
+            }
+            assertThat(out).hasSize(3);
+            assertThat(out.get(1).problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C3: loop FIC-2: tuning: kc: ");
+            assertThat(out.get(2).problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!D4: loop FIC-3: tuning: ti: ");
+        }
+
+        @Test
         void a_repeated_tag_names_the_first_cell() throws IOException {
             List<LoopRow> rows = read(book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER
                     + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\nFIC-1,ideal,1,60,0,1 s,ideal-min")), null);
