@@ -61,7 +61,14 @@ record XlsxCell(String text, String problem) {
                 return bad("the cell holds " + booleanText(value) + ", not " + (numeric ? "a number" : "text")
                         + "; type the value, or clear the cell");
             case ERROR:
-                return bad("the cell holds the error " + (cell.getRawValue() == null ? "value" : cell.getRawValue())
+                String raw = cell.getRawValue();
+                if (raw != null && !ERRORS.contains(raw.trim())) {
+                    // the reader marks a cell whose stored text does not parse as its type as an error too
+                    return bad("the cell stores '" + shorten(raw) + "', which is not what its type says it holds (a"
+                            + " number cell with no number in it); the workbook is damaged at this cell: type the"
+                            + " value again in a spreadsheet program and save the workbook");
+                }
+                return bad("the cell holds the error " + (raw == null ? "value" : raw.trim())
                         + "; correct it in the workbook, or type the value");
             case NUMBER:
                 return number(cell, (BigDecimal) value, numeric, "");
@@ -237,6 +244,10 @@ record XlsxCell(String text, String problem) {
             }
         }
         return out.toString();
+    }
+
+    private static String shorten(String text) {
+        return text.length() > 40 ? text.substring(0, 40) + "..." : text;
     }
 
     private static String booleanText(Object value) {

@@ -211,6 +211,72 @@ class LoopXlsxReaderTest {
     }
 
     @Nested
+    @DisplayName("odd but legal or damaged sheet XML is named at its cell")
+    class SheetXml {
+
+        /** The cell C2 as the writer puts it. */
+        private static final String C2 = "<c r=\"C2\"[^>]*><v>[^<]*</v></c>";
+
+        /** FIC-1 on row 2 with kc = 1 in C2 (a number cell, t="n"), its sheet XML then edited by {@code edit}. */
+        private Path edited(java.util.function.UnaryOperator<String> edit) throws IOException {
+            Path f = withKc(ws -> ws.value(1, 2, 1));
+            XlsxTestFiles.editSheet(f, edit);
+            return f;
+        }
+
+        // A cell is written once: ECMA-376 Part 1, 18.3.1.4 c (one cell per reference in a row; from memory).
+        @Test
+        void a_cell_written_twice_in_a_row_is_a_bad_row_naming_it() throws IOException {
+            LoopRow r = read(edited(xml -> xml.replaceFirst(C2,
+                    "<c r=\"C2\" t=\"n\"><v>1</v></c><c r=\"C2\" t=\"n\"><v>10</v></c>")), null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C2: kc: the cell C2 is written twice in the sheet's file");
+        }
+
+        @ParameterizedTest
+        @CsvSource({"abc", "NaN"})
+        void a_number_cell_that_stores_no_number_says_so_rather_than_an_error_value(String stored) throws IOException {
+            LoopRow r = read(edited(xml -> xml.replaceFirst(C2, "<c r=\"C2\" t=\"n\"><v>" + stored + "</v></c>")), null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C2: kc: the cell stores '" + stored + "', which is not what its type"
+                            + " says it holds").doesNotContain("error");
+        }
+
+        // A shared-string cell (t="s") stores an index into the workbook's shared strings, from 0
+        // (ECMA-376 Part 1, 18.4.9 sst; from memory).
+        @Test
+        void a_shared_string_index_past_the_last_string_is_a_bad_row_naming_the_damaged_cell() throws IOException {
+            Path f = edited(xml -> xml.replaceFirst("<c r=\"A2\" t=\"s\"><v>\\d+</v>",
+                    "<c r=\"A2\" t=\"s\"><v>999</v>"));
+            LoopRow r = read(f, null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!A2: tag: the cell names shared string 999, but the workbook has")
+                    .contains("damaged at this cell");
+        }
+
+        // A row without r is numbered one after the row before it (ECMA-376 Part 1, 18.3.1.73 row; from memory).
+        @Test
+        void a_row_written_without_its_number_is_placed_after_the_row_before_it() throws IOException {
+            Path f = book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min");
+                XlsxTestFiles.csvRows(ws, 4, "FIC-2,ideal,1,60,0,1 s,ideal-min\nFIC-3,ideal,1,60,0,1 s,ideal-min");
+            });
+            XlsxTestFiles.editSheet(f, xml -> xml.replace("<row r=\"6\"", "<row").replaceAll(" r=\"[A-Z]+6\"", ""));
+            assertThat(read(f, null)).extracting(LoopRow::where)
+                    .containsExactly("loops.xlsx:Loops!A2", "loops.xlsx:Loops!A5", "loops.xlsx:Loops!A6");
+        }
+
+        // t="d": a date as ISO 8601 text (ECMA-376 Part 1, 18.18.11 ST_CellType; from memory).
+        @Test
+        void a_date_cell_written_as_iso_text_stops_the_sheet_naming_the_cell() throws IOException {
+            Path f = edited(xml -> xml.replaceFirst(C2,
+                    "<c r=\"C2\" t=\"d\"><v>2024-03-01</v></c>"));
+            assertThatThrownBy(() -> read(f, null)).isInstanceOf(InputException.class)
+                    .hasMessageStartingWith("loops.xlsx:Loops!C2: the cell holds a date written as text");
+        }
+    }
+
+    @Nested
     @DisplayName("the header and the rows around it")
     class Layout {
 
