@@ -157,7 +157,8 @@ public final class Audit {
         } catch (BadInput e) {
             // a record that cannot be read or replayed is this loop's problem, not the audit's
             return ReplayEvidence.unreadable(e.problems().stream()
-                    .map(m -> m.startsWith(row.where()) || m.contains(".csv") ? m : row.where() + ": record: " + m)
+                    .map(m -> m.startsWith(row.where()) || row.loop().placed(m) || m.contains(".csv") ? m
+                            : row.where() + ": record: " + m)
                     .toList());
         }
     }
@@ -172,7 +173,8 @@ public final class Audit {
         } catch (BadInput e) {
             // only bad input becomes a bad row; anything else is a bug and stops the audit (exit 3)
             return new LoopOutcome(row, null, e.problems().stream()
-                    .map(m -> m.startsWith(row.where()) ? m : row.where() + ": " + m).toList());
+                    .map(m -> m.startsWith(row.where()) || row.loop().placed(m) ? m : row.where() + ": " + m)
+                    .toList());
         }
     }
 

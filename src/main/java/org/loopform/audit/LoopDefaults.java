@@ -15,6 +15,6 @@ public record LoopDefaults(FormDefinition targetForm, Double targetScanSeconds) 
         return new LoopSpec(l.tag(), l.process(), l.sourceForm(), l.tuning(), l.sourceScanSeconds(),
                 targetForm != null ? targetForm : l.targetForm(),
                 targetScanSeconds != null ? targetScanSeconds : l.targetScanSeconds(), l.pvRange(), l.outputRange(),
-                l.where());
+                l.where(), l.whereByParameter());
     }
 }

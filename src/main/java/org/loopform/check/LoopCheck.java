@@ -138,7 +138,8 @@ public final class LoopCheck {
             return lives.isEmpty() ? c : Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx,
                     loop.targetForm(), ctx, lives.get());
         } catch (FormException e) {
-            throw new FormException(loop.where() + ": loop " + loop.tag() + ": tuning: " + e.getMessage());
+            throw new FormException(loop.whereOf(e.getMessage()) + ": loop " + loop.tag() + ": tuning: "
+                    + e.getMessage());
         }
     }
 

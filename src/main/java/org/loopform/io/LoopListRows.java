@@ -220,7 +220,10 @@ final class LoopListRows {
             return new Read(new LoopSpec(tag, process, PublishedForm.form(t, RuleCells.RULE), PublishedForm.values(t),
                     null, target, targetScan, pv, out, where), t);
         }
-        return new Read(new LoopSpec(tag, process, from, ordered, scan, target, targetScan, pv, out, where), null);
+        Map<String, String> cells = new LinkedHashMap<>();
+        ordered.keySet().forEach(k -> cells.put(k, at.apply(k)));
+        return new Read(new LoopSpec(tag, process, from, ordered, scan, target, targetScan, pv, out, where, cells),
+                null);
     }
 
     private static void copy(Map<String, String> from, Map<String, String> to, String key, String as) {

@@ -26,7 +26,7 @@ import org.loopform.audit.LoopRow;
  * columns, units and checks are those of a CSV loop list ({@link LoopListRows}); each cell is read
  * as the text a CSV file would hold there ({@link XlsxCell}). The header is the first row, among
  * the sheet's first {@value #HEADER_SEARCH_ROWS}, whose cells name the columns {@code tag} and
- * {@code form}; rows above it (titles, notes) are skipped, and so are empty rows and rows of merged
+ * {@code form} (or {@code rule}, for a list of new loops); rows above it (titles, notes) are skipped, and so are empty rows and rows of merged
  * title cells below it. Every message names the cell: {@code loops.xlsx:Loops!C7: ti: ...}.
  *
  * <p>The sheet is the one named (or numbered from 1) by {@code sheet}, or else the first visible
@@ -53,9 +53,12 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
     private LoopRow pending;
     private int lastRow;
     private int index;
+    /** How many row elements of the sheet have been read (the header's and those above it included). */
+    private int place;
 
     private LoopXlsxReader(String name, ReadableWorkbook workbook, Sheet sheet, int sheetCount, Stream<Row> stream,
-                           Iterator<Row> sheetRows, Row header, Path folder, LoopDefaults defaults, XlsxMerges merges) {
+                           Iterator<Row> sheetRows, Row header, int headerRow, int place, Path folder,
+                           LoopDefaults defaults, XlsxMerges merges) {
         this.name = name;
         this.workbook = workbook;
         this.sheet = sheet;
@@ -63,7 +66,8 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         this.sheetRef = ref(sheet.getName());
         this.stream = stream;
         this.sheetRows = sheetRows;
-        this.headerRow = header.getRowNum();
+        this.headerRow = headerRow;
+        this.place = place;
         this.lastRow = headerRow;
         this.merges = merges;
         List<String> raw = new ArrayList<>();
@@ -135,7 +139,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             Opened o = header(path, name, workbook, s);
             if (o == null) {
                 throw new InputException(name + ":" + ref(s.getName()) + ": no header row with the columns tag and"
-                        + " form in the sheet's first " + HEADER_SEARCH_ROWS + " rows; put a header row (tag, form,"
+                        + " form (or rule) in the sheet's first " + HEADER_SEARCH_ROWS + " rows; put a header row (tag, form,"
                         + " kc, ti, td...) above the loops" + (sheets.size() > 1 ? ", or choose another sheet with"
                         + " --sheet (sheets: " + names(sheets) + ")" : ""));
             }
@@ -151,17 +155,17 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             }
         }
         throw new InputException(name + ": no visible sheet has a loop-list header (a row naming the columns tag and"
-                + " form, in its first " + HEADER_SEARCH_ROWS + " rows; sheets: " + names(sheets) + "); add a header"
+                + " form, or tag and rule, in its first " + HEADER_SEARCH_ROWS + " rows; sheets: " + names(sheets) + "); add a header"
                 + " row above the loops, or choose the sheet with --sheet NAME");
     }
 
     /** A sheet opened at its header row. */
     private record Opened(ReadableWorkbook workbook, Sheet sheet, Stream<Row> stream, Iterator<Row> rows, Row header,
-                          XlsxMerges merges) {
+                          int headerRow, int place, XlsxMerges merges) {
         LoopXlsxReader reader(String name, int sheetCount, Path path, Path folder, LoopDefaults defaults) {
             try {
-                return new LoopXlsxReader(name, workbook, sheet, sheetCount, stream, rows, header, folder, defaults,
-                        merges);
+                return new LoopXlsxReader(name, workbook, sheet, sheetCount, stream, rows, header, headerRow, place,
+                        folder, defaults, merges);
             } catch (RuntimeException e) {
                 stream.close();
                 throw e;
@@ -202,20 +206,21 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         }
         Iterator<Row> it = stream.iterator();
         int last = 0;
+        int place = 0;
         try {
             while (it.hasNext()) {
                 Row r = it.next();
-                last = r.getRowNum();
+                last = merges.rowNumber(++place, r.getRowNum());
                 if (last > HEADER_SEARCH_ROWS) {
                     break;
                 }
                 if (isHeader(r)) {
-                    return new Opened(workbook, s, stream, it, r, merges);
+                    return new Opened(workbook, s, stream, it, r, last, place, merges);
                 }
             }
         } catch (RuntimeException e) {
             stream.close();
-            throw damaged(name, s.getName(), last, e);
+            throw damaged(name, s.getName(), last, e, merges);
         }
         stream.close();
         return null;
@@ -228,7 +233,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             XlsxCell c = XlsxCell.of(r.getCell(k), false);
             String t = c.bad() ? "" : c.text().trim().toLowerCase(Locale.ROOT);
             tag |= t.equals("tag");
-            form |= t.equals("form");
+            form |= t.equals("form") || t.equals(RuleCells.RULE); // a list of new loops gives a rule instead
         }
         return tag && form;
     }
@@ -255,10 +260,10 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
                 r = sheetRows.next();
             } catch (RuntimeException e) {
                 // the library reads the file as it goes: a damaged sheet surfaces here
-                throw damaged(name, sheet.getName(), lastRow, e);
+                throw damaged(name, sheet.getName(), lastRow, e, merges);
             }
-            lastRow = r.getRowNum();
-            pending = row(r);
+            lastRow = merges.rowNumber(++place, r.getRowNum());
+            pending = row(r, lastRow);
         }
         return true;
     }
@@ -274,8 +279,7 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
     }
 
     /** One sheet row as a loop row, or null for an empty row or a row of merged title cells. */
-    private LoopRow row(Row r) {
-        int rowNum = r.getRowNum();
+    private LoopRow row(Row r, int rowNum) {
         int width = Math.max(rows.columns().size(), r.getCellCount());
         List<String> values = new ArrayList<>(width);
         List<String> problems = new ArrayList<>();
@@ -283,7 +287,9 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         boolean allWideMerges = true;
         for (int k = 0; k < width; k++) {
             String key = k < rows.columns().size() ? rows.columns().get(k) : "";
-            XlsxCell c = XlsxCell.of(k < r.getCellCount() ? r.getCell(k) : null, LoopCsvReader.NUMERIC.contains(key));
+            String inFile = merges.cellProblem(rowNum, k);
+            XlsxCell c = inFile != null ? XlsxCell.bad(inFile)
+                    : XlsxCell.of(k < r.getCellCount() ? r.getCell(k) : null, LoopCsvReader.NUMERIC.contains(key));
             if (c.bad()) {
                 problems.add(at(rowNum, k) + ": " + (key.isEmpty() ? "column " + letter(k) : key) + ": " + c.problem());
                 values.add("");
@@ -299,6 +305,14 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         }
         if (!any || allWideMerges) {
             return null;
+        }
+        for (XlsxMerges.Range m : merges.covering(rowNum)) {
+            // a merged cell shows its value over the range but stores it in the top-left cell alone:
+            // the other rows (or cells) would read as empty, so as defaults; loopform does not spread it
+            String key = m.firstColumn() < rows.columns().size() ? rows.columns().get(m.firstColumn()) : "";
+            problems.add(at(rowNum, m.firstColumn()) + ": " + (key.isEmpty() ? "column " + letter(m.firstColumn())
+                    : key) + ": " + m.ref() + " is merged (its value is stored in " + letter(m.firstColumn())
+                    + m.firstRow() + " alone); unmerge it and fill each " + (m.spansRows() ? "row" : "cell"));
         }
         String where = at(rowNum, Math.max(0, tagColumn));
         return rows.row(index++, values, where, k -> at(rowNum, k), rowNum, first -> at(first, tagColumn), problems);
@@ -326,6 +340,16 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
     private static InputException notAWorkbook(String name, Exception e) {
         return new InputException(name + ": not a valid xlsx workbook (" + reason(e) + "); open it in a spreadsheet"
                 + " program and save it again as an Excel workbook (.xlsx), or save the sheet as CSV");
+    }
+
+    private static InputException damaged(String name, String sheet, int afterRow, Exception e, XlsxMerges merges) {
+        if (merges.firstDateCell() != null && reason(e).contains("cell type")) {
+            return new InputException(name + ":" + ref(sheet) + "!" + merges.firstDateCell() + ": the cell holds a date"
+                    + " written as text (cell type d, ISO 8601), which loopform does not read, and the rows after it"
+                    + " cannot be read either; type the value as a number or text in its place (open the workbook in"
+                    + " a spreadsheet program, change the cell and save it)");
+        }
+        return damaged(name, sheet, afterRow, e);
     }
 
     private static InputException damaged(String name, String sheet, int afterRow, Exception e) {

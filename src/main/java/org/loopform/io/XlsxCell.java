@@ -12,8 +12,9 @@ import org.dhatim.fastexcel.reader.CellType;
  * cannot be. A text cell is its text; a number cell is its stored value written with the fewest
  * digits that give back the same binary64 number (0.1 stays {@code 0.1}), whatever number format
  * the cell shows it with; a formula cell is its stored (cached) result. A date or time, TRUE or
- * FALSE, an error value, a formula without a stored result, and a number formatted as a percentage
- * where a number is expected are not read.
+ * FALSE, an error value, a formula without a stored result, a number formatted as a percentage
+ * where a number is expected, and a number whose format shows text beside it (a unit: {@code 0" s"}),
+ * which would be read in another unit than the one shown, are not read.
  */
 record XlsxCell(String text, String problem) {
 
@@ -60,7 +61,14 @@ record XlsxCell(String text, String problem) {
                 return bad("the cell holds " + booleanText(value) + ", not " + (numeric ? "a number" : "text")
                         + "; type the value, or clear the cell");
             case ERROR:
-                return bad("the cell holds the error " + (cell.getRawValue() == null ? "value" : cell.getRawValue())
+                String raw = cell.getRawValue();
+                if (raw != null && !ERRORS.contains(raw.trim())) {
+                    // the reader marks a cell whose stored text does not parse as its type as an error too
+                    return bad("the cell stores '" + shorten(raw) + "', which is not what its type says it holds (a"
+                            + " number cell with no number in it); the workbook is damaged at this cell: type the"
+                            + " value again in a spreadsheet program and save the workbook");
+                }
+                return bad("the cell holds the error " + (raw == null ? "value" : raw.trim())
                         + "; correct it in the workbook, or type the value");
             case NUMBER:
                 return number(cell, (BigDecimal) value, numeric, "");
@@ -118,7 +126,128 @@ record XlsxCell(String text, String problem) {
                     + " number (General) and type the value the column takes (a band of 150 % is 150), or type it as"
                     + " text with its unit ('150 %')");
         }
+        String literal = format == null ? "" : literalText(format);
+        if (!literal.isEmpty()) {
+            return bad("the cell shows '" + shownWith(format, value) + "' through its number format (" + format + ")"
+                    + from + " but stores " + shown + "; loopform reads only what is stored: type the value with its"
+                    + " unit as text ('" + shownWith(format, value).trim() + "') or clear the format");
+        }
         return text(shown);
+    }
+
+    /**
+     * The text a number format shows beside the number, in its first section: quoted strings, escaped
+     * characters ({@code \s}), currency sections ({@code [$EUR-407]}) and bare letters, other than the
+     * format codes {@code General} and the exponent {@code E+}/{@code E-}; spaces alone are no text.
+     * Empty when the format shows the number alone. (Number format codes: ECMA-376 Part 1, 18.8.31
+     * {@code numFmts}; from memory.)
+     */
+    static String literalText(String format) {
+        StringBuilder out = new StringBuilder();
+        String f = firstSection(format).replaceAll("(?i)general", "").replaceAll("(?i)e[-+]", "");
+        for (int k = 0; k < f.length(); k++) {
+            char c = f.charAt(k);
+            if (c == '"') {
+                int end = f.indexOf('"', k + 1);
+                out.append(f, k + 1, end < 0 ? f.length() : end);
+                k = end < 0 ? f.length() : end;
+            } else if (c == '\\') {
+                if (k + 1 < f.length()) {
+                    out.append(f.charAt(k + 1));
+                }
+                k++;
+            } else if (c == '_' || c == '*') {
+                k++; // spacing: the width of a character, or a fill; no text
+            } else if (c == '[') {
+                int end = f.indexOf(']', k + 1);
+                String inside = end < 0 ? "" : f.substring(k + 1, end);
+                if (inside.startsWith("$")) {
+                    int dash = inside.indexOf('-');
+                    out.append(inside, 1, dash < 0 ? inside.length() : dash); // a currency symbol
+                }
+                k = end < 0 ? f.length() : end;
+            } else if (Character.isLetter(c)) {
+                out.append(c);
+            }
+        }
+        return out.toString().isBlank() ? "" : out.toString();
+    }
+
+    /** The first section of a number format (the one for positive numbers): up to the first ';' outside quotes. */
+    private static String firstSection(String format) {
+        boolean quoted = false;
+        for (int k = 0; k < format.length(); k++) {
+            char c = format.charAt(k);
+            if (c == '"') {
+                quoted = !quoted;
+            } else if (c == '\\' && !quoted) {
+                k++;
+            } else if (c == ';' && !quoted) {
+                return format.substring(0, k);
+            }
+        }
+        return format;
+    }
+
+    /**
+     * About what a cell shows: {@code value} with as many decimals as the format's first section has
+     * digit places after its point, in place of the format's digit codes, and its text around it.
+     */
+    static String shownWith(String format, BigDecimal value) {
+        String f = firstSection(format);
+        StringBuilder out = new StringBuilder();
+        boolean numberDone = false;
+        for (int k = 0; k < f.length(); k++) {
+            char c = f.charAt(k);
+            if (c == '"') {
+                int end = f.indexOf('"', k + 1);
+                out.append(f, k + 1, end < 0 ? f.length() : end);
+                k = end < 0 ? f.length() : end;
+            } else if (c == '\\') {
+                if (k + 1 < f.length()) {
+                    out.append(f.charAt(k + 1));
+                }
+                k++;
+            } else if (c == '_') {
+                k++;
+                out.append(' ');
+            } else if (c == '*') {
+                k++;
+            } else if (c == '[') {
+                int end = f.indexOf(']', k + 1);
+                String inside = end < 0 ? "" : f.substring(k + 1, end);
+                if (inside.startsWith("$")) {
+                    int dash = inside.indexOf('-');
+                    out.append(inside, 1, dash < 0 ? inside.length() : dash);
+                }
+                k = end < 0 ? f.length() : end;
+            } else if ("0#?.,".indexOf(c) >= 0) {
+                int end = k;
+                while (end < f.length() && "0#?.,".indexOf(f.charAt(end)) >= 0) {
+                    end++;
+                }
+                if (!numberDone) {
+                    String digits = f.substring(k, end);
+                    int point = digits.indexOf('.');
+                    int decimals = point < 0 ? 0 : digits.length() - point - 1 - (int) digits.substring(point + 1)
+                            .chars().filter(ch -> ch == ',').count();
+                    out.append(value.setScale(Math.max(0, decimals), RoundingMode.HALF_UP).toPlainString());
+                    numberDone = true;
+                }
+                k = end - 1;
+            } else if (Character.toLowerCase(c) == 'g' && f.regionMatches(true, k, "general", 0, 7)) {
+                out.append(plain(value));
+                numberDone = true;
+                k += 6;
+            } else {
+                out.append(c);
+            }
+        }
+        return out.toString();
+    }
+
+    private static String shorten(String text) {
+        return text.length() > 40 ? text.substring(0, 40) + "..." : text;
     }
 
     private static String booleanText(Object value) {

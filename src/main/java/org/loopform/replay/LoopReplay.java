@@ -87,7 +87,8 @@ public final class LoopReplay {
             conversion = Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx, loop.targetForm(),
                     targetCtx);
         } catch (FormException e) {
-            throw new FormException(loop.where() + ": loop " + loop.tag() + ": tuning: " + e.getMessage());
+            throw new FormException(loop.whereOf(e.getMessage()) + ": loop " + loop.tag() + ": tuning: "
+                    + e.getMessage());
         }
         assumptions.addAll(conversion.assumptions());
         PidSetting entered = enteredSetting(conversion, loop.targetForm(), targetCtx);

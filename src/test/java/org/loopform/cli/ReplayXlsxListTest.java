@@ -59,12 +59,12 @@ class ReplayXlsxListTest {
 
     @Test
     void a_bad_cell_is_named_by_file_sheet_and_cell_with_exit_2() throws Exception {
-        // plumbing: TIC-301's pb made negative (a check of the whole tuning, placed at the row's first cell); its row is
-        // the sixth of the sheet (title, blank, header, two loops)
+        // plumbing: TIC-301's pb made negative (placed at the pb cell, column C); its row is the sixth of the sheet
+        // (title, blank, header, two loops)
         Path xlsx = workbook(Files.readString(Path.of(DRAFT)).replace("series-pb-min,60,", "series-pb-min,-60,"));
         CliRun r = CliRun.of("replay", RECORDS, "--list", xlsx.toString(), "--to", TARGET);
         assertThat(r.exitCode()).isEqualTo(2);
-        assertThat(r.err()).contains(xlsx + ":Loops!A6").contains("pb");
+        assertThat(r.err()).contains(xlsx + ":Loops!C6: loop TIC-301: tuning: pb: ");
     }
 
     @Test

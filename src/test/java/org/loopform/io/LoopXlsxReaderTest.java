@@ -142,6 +142,42 @@ class LoopXlsxReaderTest {
                             + " holds 1.5");
         }
 
+        // A number format shows text beside the number: quoted ("..."), escaped (\\x) or bare letters, while
+        // the cell stores the number alone (ECMA-376 Part 1, 18.8.31 numFmts; from memory). 15 shown as
+        // '15 s' in a ti column read in min/repeat would be a reset 60 times too slow: refused.
+        @ParameterizedTest
+        @CsvSource(delimiter = '|', value = {"0\" s\"|15 s", "0.0\" s\"|15.0 s", "0\\ \\s|15 s",
+                "[$s-409]0|s15", "0.0\"%\"|15.0%"})
+        void a_number_whose_format_shows_a_unit_is_a_bad_row_that_says_what_it_shows(String format, String shows)
+                throws IOException {
+            Path f = book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,,0,1 s,ideal-min");
+                ws.value(1, 3, 15);
+                ws.style(1, 3).format("0.000").set();
+            });
+            // the writer does not escape a quote in a format code: the format is put into styles.xml by hand
+            XlsxTestFiles.editPart(f, "xl/styles.xml", xml -> xml.replace("formatCode=\"0.000\"",
+                    "formatCode=\"" + format.replace("&", "&amp;").replace("\"", "&quot;") + "\""));
+            LoopRow r = read(f, null).get(0);
+            assertThat(r.ok()).isFalse();
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!D2: ti: the cell shows '" + shows + "' through its number format")
+                    .contains("but stores 15; loopform reads only what is stored");
+        }
+
+        @ParameterizedTest
+        @CsvSource(delimiter = '|', value = {"General", "0.00", "#,##0.00_);[Red](#,##0.00)", "0.00E+00", "# ?/?",
+                "[Blue]0.0;[Red]-0.0", "0.0_ ", "[>100]0;0.0"})
+        void a_number_format_that_shows_only_the_number_is_read(String format) throws IOException {
+            LoopRow r = read(book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,,0,1 s,ideal-min");
+                ws.value(1, 3, 15);
+                ws.style(1, 3).format(format).set();
+            }), null).get(0);
+            assertThat(r.problems()).isEmpty();
+            assertThat(r.loop().tuning()).containsEntry("ti", "15");
+        }
+
         @Test
         void a_bad_value_says_what_csv_says_at_the_cell() throws IOException {
             LoopRow r = read(book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,0 s,ideal-min")),
@@ -151,11 +187,92 @@ class LoopXlsxReaderTest {
         }
 
         @Test
+        void a_parameter_the_check_cannot_read_is_placed_at_its_own_cell() throws IOException {
+            Path f = book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\n"
+                    + "FIC-2,ideal,abc,60,0,1 s,ideal-min\nFIC-3,ideal,1,5 kg,0,1 s,ideal-min"));
+            List<org.loopform.audit.LoopOutcome> out = new ArrayList<>();
+            try (LoopXlsxReader r = LoopXlsxReader.open(f, "loops.xlsx", null, LoopDefaults.NONE)) {
+                org.loopform.audit.Audit.run(r, org.loopform.findings.CheckPolicy.DEFAULT, 1, out::add);
+            }
+            assertThat(out).hasSize(3);
+            assertThat(out.get(1).problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C3: loop FIC-2: tuning: kc: ");
+            assertThat(out.get(2).problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!D4: loop FIC-3: tuning: ti: ");
+        }
+
+        @Test
         void a_repeated_tag_names_the_first_cell() throws IOException {
             List<LoopRow> rows = read(book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER
                     + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\nFIC-1,ideal,1,60,0,1 s,ideal-min")), null);
             assertThat(rows.get(1).problems()).singleElement().asString()
                     .startsWith("loops.xlsx:Loops!A3: tag: duplicate tag FIC-1 (first at loops.xlsx:Loops!A2)");
+        }
+    }
+
+    @Nested
+    @DisplayName("odd but legal or damaged sheet XML is named at its cell")
+    class SheetXml {
+
+        /** The cell C2 as the writer puts it. */
+        private static final String C2 = "<c r=\"C2\"[^>]*><v>[^<]*</v></c>";
+
+        /** FIC-1 on row 2 with kc = 1 in C2 (a number cell, t="n"), its sheet XML then edited by {@code edit}. */
+        private Path edited(java.util.function.UnaryOperator<String> edit) throws IOException {
+            Path f = withKc(ws -> ws.value(1, 2, 1));
+            XlsxTestFiles.editSheet(f, edit);
+            return f;
+        }
+
+        // A cell is written once: ECMA-376 Part 1, 18.3.1.4 c (one cell per reference in a row; from memory).
+        @Test
+        void a_cell_written_twice_in_a_row_is_a_bad_row_naming_it() throws IOException {
+            LoopRow r = read(edited(xml -> xml.replaceFirst(C2,
+                    "<c r=\"C2\" t=\"n\"><v>1</v></c><c r=\"C2\" t=\"n\"><v>10</v></c>")), null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C2: kc: the cell C2 is written twice in the sheet's file");
+        }
+
+        @ParameterizedTest
+        @CsvSource({"abc", "NaN"})
+        void a_number_cell_that_stores_no_number_says_so_rather_than_an_error_value(String stored) throws IOException {
+            LoopRow r = read(edited(xml -> xml.replaceFirst(C2, "<c r=\"C2\" t=\"n\"><v>" + stored + "</v></c>")), null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!C2: kc: the cell stores '" + stored + "', which is not what its type"
+                            + " says it holds").doesNotContain("error");
+        }
+
+        // A shared-string cell (t="s") stores an index into the workbook's shared strings, from 0
+        // (ECMA-376 Part 1, 18.4.9 sst; from memory).
+        @Test
+        void a_shared_string_index_past_the_last_string_is_a_bad_row_naming_the_damaged_cell() throws IOException {
+            Path f = edited(xml -> xml.replaceFirst("<c r=\"A2\" t=\"s\"><v>\\d+</v>",
+                    "<c r=\"A2\" t=\"s\"><v>999</v>"));
+            LoopRow r = read(f, null).get(0);
+            assertThat(r.problems()).singleElement().asString()
+                    .startsWith("loops.xlsx:Loops!A2: tag: the cell names shared string 999, but the workbook has")
+                    .contains("damaged at this cell");
+        }
+
+        // A row without r is numbered one after the row before it (ECMA-376 Part 1, 18.3.1.73 row; from memory).
+        @Test
+        void a_row_written_without_its_number_is_placed_after_the_row_before_it() throws IOException {
+            Path f = book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min");
+                XlsxTestFiles.csvRows(ws, 4, "FIC-2,ideal,1,60,0,1 s,ideal-min\nFIC-3,ideal,1,60,0,1 s,ideal-min");
+            });
+            XlsxTestFiles.editSheet(f, xml -> xml.replace("<row r=\"6\"", "<row").replaceAll(" r=\"[A-Z]+6\"", ""));
+            assertThat(read(f, null)).extracting(LoopRow::where)
+                    .containsExactly("loops.xlsx:Loops!A2", "loops.xlsx:Loops!A5", "loops.xlsx:Loops!A6");
+        }
+
+        // t="d": a date as ISO 8601 text (ECMA-376 Part 1, 18.18.11 ST_CellType; from memory).
+        @Test
+        void a_date_cell_written_as_iso_text_stops_the_sheet_naming_the_cell() throws IOException {
+            Path f = edited(xml -> xml.replaceFirst(C2,
+                    "<c r=\"C2\" t=\"d\"><v>2024-03-01</v></c>"));
+            assertThatThrownBy(() -> read(f, null)).isInstanceOf(InputException.class)
+                    .hasMessageStartingWith("loops.xlsx:Loops!C2: the cell holds a date written as text");
         }
     }
 
@@ -177,6 +294,35 @@ class LoopXlsxReaderTest {
             assertThat(rows).allMatch(LoopRow::ok);
         }
 
+        // A merged range stores its value in its top-left cell only; the other cells of the range are
+        // empty in the file (ECMA-376 Part 1, 18.3.1.55 mergeCell; from memory).
+        @Test
+        void a_cell_merged_down_several_loop_rows_makes_each_of_them_a_bad_row_naming_the_range() throws IOException {
+            List<LoopRow> rows = read(book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min\nFIC-2,,2,60,0,1 s,"
+                        + "ideal-min\nFIC-3,,3,60,0,1 s,ideal-min\nFIC-4,ideal,4,60,0,1 s,ideal-min");
+                ws.range(1, 1, 3, 1).merge();
+            }), null);
+            assertThat(rows).hasSize(4);
+            for (int k = 0; k < 3; k++) {
+                assertThat(rows.get(k).ok()).isFalse();
+                assertThat(rows.get(k).problems()).singleElement().asString().isEqualTo("loops.xlsx:Loops!B" + (k + 2)
+                        + ": form: B2:B4 is merged (its value is stored in B2 alone); unmerge it and fill each row");
+            }
+            assertThat(rows.get(3).ok()).isTrue();
+        }
+
+        @Test
+        void cells_merged_across_a_loop_row_make_it_a_bad_row() throws IOException {
+            List<LoopRow> rows = read(book(ws -> {
+                XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,,1 s,ideal-min");
+                ws.range(1, 3, 1, 4).merge();
+            }), null);
+            assertThat(rows).singleElement().satisfies(r -> assertThat(r.problems()).singleElement().asString()
+                    .isEqualTo("loops.xlsx:Loops!D2: ti: D2:E2 is merged (its value is stored in D2 alone); unmerge"
+                            + " it and fill each cell"));
+        }
+
         @Test
         void a_lone_text_cell_that_is_not_merged_is_a_bad_row_not_a_skipped_one() throws IOException {
             List<LoopRow> rows = read(book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1")), null);
@@ -190,6 +336,22 @@ class LoopXlsxReaderTest {
                     + "\nFIC-1,ideal,1,60,0,1 s,ideal-min,stray")), null);
             assertThat(rows.get(0).problems()).singleElement().asString()
                     .startsWith("loops.xlsx:Loops!H2: column H has no name in the header");
+        }
+
+        @Test
+        void a_list_of_new_loops_with_a_rule_column_and_no_form_column_is_found_and_read() throws IOException {
+            // the first row of examples/new-loops.csv (invented), as a sheet under a title row
+            List<LoopRow> rows = read(book(ws -> {
+                ws.value(0, 0, "New loops (invented example)");
+                XlsxTestFiles.csvRows(ws, 1, "tag,rule,controller,model,process_gain,time_constant,dead_time,"
+                        + "pv_range,output_range,target_scan,target_form\nTIC-104,simc,pi,fopdt,1.998,59.71 s,10.27 s,"
+                        + "0..150,0..100,0.5 s,ideal");
+            }), null);
+            assertThat(rows).singleElement().satisfies(r -> {
+                assertThat(r.problems()).isEmpty();
+                assertThat(r.where()).isEqualTo("loops.xlsx:Loops!A3");
+                assertThat(r.ruleTuning()).isNotNull();
+            });
         }
 
         @Test

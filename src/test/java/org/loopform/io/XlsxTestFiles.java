@@ -69,13 +69,18 @@ public final class XlsxTestFiles {
 
     /** Rewrites the XML of the first sheet ({@code xl/worksheets/sheet1.xml}) of a written workbook. */
     public static void editSheet(Path file, UnaryOperator<String> edit) throws IOException {
+        editPart(file, "xl/worksheets/sheet1.xml", edit);
+    }
+
+    /** Rewrites the XML of the part {@code part} (say {@code xl/styles.xml}) of a written workbook. */
+    public static void editPart(Path file, String part, UnaryOperator<String> edit) throws IOException {
         Path tmp = file.resolveSibling(file.getFileName() + ".tmp");
         try (ZipFile in = new ZipFile(file.toFile());
              ZipOutputStream out = new ZipOutputStream(Files.newOutputStream(tmp))) {
             for (Enumeration<? extends ZipEntry> e = in.entries(); e.hasMoreElements(); ) {
                 ZipEntry entry = e.nextElement();
                 byte[] bytes = in.getInputStream(entry).readAllBytes();
-                if (entry.getName().equals("xl/worksheets/sheet1.xml")) {
+                if (entry.getName().equals(part)) {
                     bytes = edit.apply(new String(bytes, StandardCharsets.UTF_8)).getBytes(StandardCharsets.UTF_8);
                 }
                 out.putNextEntry(new ZipEntry(entry.getName()));
