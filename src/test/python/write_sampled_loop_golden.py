@@ -140,6 +140,15 @@ class Loop:
         return np.polyval(self.num, z) / np.polyval(self.den, z) * z ** (-self.d)
 
 
+def custom(ident, num, den, d, h):
+    """A loop given straight as R(z) = num/den and d (for the far ends of the pole magnitude)."""
+    loop = Loop.__new__(Loop)
+    loop.id, loop.h, loop.d, loop.low = ident, h, d, 1e-3 / h
+    loop.num, loop.den = np.array(num, dtype=float), np.array(den, dtype=float)
+    loop.poles = [p for p in np.roots(loop.den) if abs(p) > 0]
+    return loop
+
+
 def scaled(loop, factor, ident):
     other = Loop.__new__(Loop)
     other.__dict__.update(loop.__dict__)
@@ -266,6 +275,12 @@ def loops():
     # of delay, makes L(-1) = -K b/(1 + a) real and negative
     out.append(Loop("nyquist-crossing", fopdt(1.0, 1.0), 1.0, None, 0.0, 10.0, 0.5, 0.5))
     out.append(Loop("nyquist-crossing-unstable", fopdt(1.0, 1.0), 4.0, None, 0.0, 10.0, 0.5, 0.5))
+    # the far ends: 1 + L = z / (z - 0.5) has its only zero at z = 0 (deadbeat); a zero at
+    # z = 0.5 - 1e20, far beyond e^40; a pole pair well inside and one well outside with delay
+    out.append(custom("deadbeat", [0.5], [1.0, -0.5], 0, 1.0))
+    out.append(custom("far-outside", [1e20], [1.0, -0.5], 0, 1.0))
+    out.append(custom("well-inside-with-delay", [0.05], [1.0, -0.2], 3, 1.0))
+    out.append(custom("well-outside-with-delay", [2.0], [1.0, -0.9], 2, 1.0))
     return out
 
 
