@@ -43,6 +43,8 @@ margins - from memory for the sections) on z = e^(i w h), w over [low, pi/h]:
   1/|L| < 1; phase margin: the smallest over the gain crossovers of 180 + arg L wrapped into
   (-180, 180] degrees, the crossover where it is read; delay margin: the smallest
   ((180 + arg L) mod 360, in rad) / w over the gain crossovers;
+- every gain crossover with its own phase and delay margin, every phase crossover with its 1/|L|,
+  in rising frequency, and |L| at the band's low end;
 - Ms = max 1/|1 + L| over the band: the grid, then a zoom (2,001 points, forty times) around the
   twenty best grid points; where it is read.
 Edge cases: a loop with its largest closed-loop pole 1e-4 inside and 1e-4 outside the unit circle
@@ -205,6 +207,14 @@ def margins(loop):
         delay = np.radians((180.0 + ang) % 360.0) / wc
         if dm is None or delay < dm:
             dm = delay
+    gain_list = []
+    for wc in gains:
+        ang = np.degrees(np.angle(loop.l(wc)))
+        p = (180.0 + ang + 180.0) % 360.0 - 180.0
+        if p <= -180.0:
+            p += 360.0
+        gain_list.append("%r:%r:%r" % (float(wc), float(p), float(np.radians((180.0 + ang) % 360.0) / wc)))
+    phase_list = ["%r:%r" % (float(wp), float(1 / abs(loop.l(wp)))) for wp in phases]
     s = 1 / np.abs(1 + lw)
     ms, wms = float(s.max()), float(w[s.argmax()])
     for i in np.argsort(s)[-20:]:
@@ -222,7 +232,8 @@ def margins(loop):
             if hi - lo <= 4e-16 * hi:
                 break
     return dict(gm=gm, wgm=wgm, lgm=lgm, pm=pm, wpm=wpm, dm=dm, ms=ms, wms=wms,
-                gains=len(gains), phases=len(phases))
+                gains=len(gains), phases=len(phases), gain_list=" ".join(gain_list),
+                phase_list=" ".join(phase_list), low_gain=float(mag[0]))
 
 
 def fopdt(k, t):
@@ -301,14 +312,17 @@ def main():
                      repr(loop.low), str(int(np.sum(mags > 1.0))), repr(float(mags.max())),
                      fmt(m["gm"]), fmt(m["wgm"]), fmt(m["lgm"]), fmt(m["pm"]), fmt(m["wpm"]), fmt(m["dm"]),
                      repr(float(m["ms"])), repr(float(m["wms"])), str(m["gains"]), str(m["phases"]),
-                     " ".join(repr(float(x)) for x in np.sort(mags))])
+                     " ".join(repr(float(x)) for x in np.sort(mags)),
+                     m["gain_list"], m["phase_list"], repr(m["low_gain"])])
         print(loop.id, rows[-1][7:])
     with open(OUT, "w", newline="") as f:
         w = csv.writer(f, lineterminator="\n")
         w.writerow(["id", "scan_s", "delay_scans", "num_desc", "den_desc", "open_loop_poles", "low_rad_s",
                     "unstable_poles", "largest_pole_magnitude", "gain_margin", "phase_crossover_rad_s",
                     "lower_gain_margin", "phase_margin_deg", "gain_crossover_rad_s", "delay_margin_s",
-                    "ms", "ms_rad_s", "gain_crossovers", "phase_crossovers", "pole_magnitudes"])
+                    "ms", "ms_rad_s", "gain_crossovers", "phase_crossovers", "pole_magnitudes",
+                    "each_gain_crossover (rad/s:PM deg:DM s)", "each_phase_crossover (rad/s:1/|L|)",
+                    "loop_gain_at_low"])
         w.writerows(rows)
 
 

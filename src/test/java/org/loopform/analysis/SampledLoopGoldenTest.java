@@ -55,7 +55,8 @@ class SampledLoopGoldenTest {
             List<Complex> openLoopPoles, double lowRadPerSecond, int unstablePoles, double largestPole,
             OptionalDouble gainMargin, OptionalDouble phaseCrossover, OptionalDouble lowerGainMargin,
             OptionalDouble phaseMarginDegrees, OptionalDouble crossover, OptionalDouble delayMarginSeconds,
-            double ms, double msRadPerSecond, int gainCrossovers, int phaseCrossovers, double[] poleMagnitudes) {
+            double ms, double msRadPerSecond, int gainCrossovers, int phaseCrossovers, double[] poleMagnitudes,
+            List<double[]> eachGainCrossover, List<double[]> eachPhaseCrossover, double loopGainAtLow) {
         @Override
         public String toString() {
             return id;
@@ -174,6 +175,28 @@ class SampledLoopGoldenTest {
         assertCloseRelative(margins.delayMarginSeconds(), golden.delayMarginSeconds());
         assertThat(margins.gainCrossovers()).hasSize(golden.gainCrossovers());
         assertThat(margins.phaseCrossovers()).hasSize(golden.phaseCrossovers());
+        for (int k = 0; k < golden.gainCrossovers(); k++) {
+            GainCrossover c = margins.gainCrossovers().get(k);
+            double[] e = golden.eachGainCrossover().get(k);
+            assertThat(c.radPerSecond()).as("gain crossover %d", k).isCloseTo(e[0], within(RELATIVE * e[0]));
+            assertThat(c.phaseMarginDegrees()).as("its phase margin").isCloseTo(e[1], within(PHASE_DEGREES));
+            assertThat(c.delayMarginSeconds()).as("its delay margin").isCloseTo(e[2], within(RELATIVE * e[2] + 1e-12));
+        }
+        for (int k = 0; k < golden.phaseCrossovers(); k++) {
+            PhaseCrossover c = margins.phaseCrossovers().get(k);
+            double[] e = golden.eachPhaseCrossover().get(k);
+            assertThat(c.radPerSecond()).as("phase crossover %d", k).isCloseTo(e[0], within(RELATIVE * e[0]));
+            assertThat(c.gainFactor()).as("its gain factor").isCloseTo(e[1], within(RELATIVE * e[1]));
+        }
+        // why a margin is missing, from the reference's crossings (definitions in LoopMargins)
+        if (golden.gainMargin().isEmpty()) {
+            assertThat(margins.gainMarginNote()).contains(golden.phaseCrossovers() == 0
+                    ? MarginNote.PHASE_NEVER_REACHES_MINUS_180 : MarginNote.NO_UPPER_GAIN_LIMIT);
+        }
+        if (golden.phaseMarginDegrees().isEmpty()) {
+            assertThat(margins.phaseMarginNote()).contains(golden.loopGainAtLow() < 1
+                    ? MarginNote.GAIN_STAYS_BELOW_ONE : MarginNote.GAIN_STAYS_ABOVE_ONE);
+        }
         if (golden.ms() > SHARP_PEAK) {
             // a closed-loop pole 1e-10 from the circle: |1 + L| = sqrt(e^2 + (c dw)^2) near the peak,
             // whose width (1e-10 relative) is far below the stated frequency accuracy, so only the
@@ -223,7 +246,17 @@ class SampledLoopGoldenTest {
                 Double.parseDouble(f[6]), Integer.parseInt(f[7]), Double.parseDouble(f[8]),
                 optional(f[9]), optional(f[10]), optional(f[11]), optional(f[12]), optional(f[13]), optional(f[14]),
                 Double.parseDouble(f[15]), Double.parseDouble(f[16]), Integer.parseInt(f[17]), Integer.parseInt(f[18]),
-                numbers(f[19]));
+                numbers(f[19]), pairs(f[20]), pairs(f[21]), Double.parseDouble(f[22]));
+    }
+
+    private static List<double[]> pairs(String field) {
+        List<double[]> out = new ArrayList<>();
+        for (String p : field.trim().split(" ")) {
+            if (!p.isEmpty()) {
+                out.add(Arrays.stream(p.split(":")).mapToDouble(Double::parseDouble).toArray());
+            }
+        }
+        return out;
     }
 
     private static double[] numbers(String field) {
