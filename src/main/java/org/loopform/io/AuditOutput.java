@@ -10,7 +10,6 @@ import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.List;
@@ -238,35 +237,9 @@ public final class AuditOutput implements AutoCloseable {
         if (abandoned) {
             throw new InputException(shown + ": not written; loopform was stopped while writing it");
         }
-        // the folder may have changed while the audit ran: check it again just before replacing it
-        OutputFolder.checkReplaceable(shown, target, force, inputs);
-        Path old = null;
-        if (Files.isDirectory(target) && OutputFolder.isEmpty(target)) {
-            Files.delete(target); // an empty folder holds nothing to lose (and fails here if that changed)
-        } else if (Files.exists(target)) {
-            old = target.resolveSibling(OutputFolder.scratchName(target, "old"));
-            Files.move(target, old, StandardCopyOption.ATOMIC_MOVE);
-        }
-        try {
-            Files.move(temp, target, StandardCopyOption.ATOMIC_MOVE);
-        } catch (IOException e) {
-            if (old != null) {
-                Files.move(old, target, StandardCopyOption.ATOMIC_MOVE);
-            }
-            throw e;
-        }
+        // the folder may have changed while the audit ran: swapIn checks it again just before replacing it
+        OutputFolder.swapIn(shown, temp, target, force, inputs);
         finished = true;
-        try {
-            // a temporary folder is private to its owner; the finished one reads like any other
-            Files.setPosixFilePermissions(target, java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
-        } catch (UnsupportedOperationException e) {
-            // not a POSIX file system: leave the platform's default
-        }
-        if (old != null && !OutputFolder.removeOwn(old)) {
-            // checked above, so only a change in the last instant leads here: keep what is there
-            throw new InputException(shown + ": written; the earlier output was kept in " + old + " because"
-                    + " something in it changed while loopform replaced it");
-        }
     }
 
     /** Removes the temporary folder unless the output was moved into place (shutdown hook, failures). */

@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Collection;
 import java.util.List;
@@ -51,28 +50,9 @@ public final class FolderOutput {
                 Files.writeString(temp.resolve(f.getKey()), f.getValue(), StandardCharsets.UTF_8);
             }
             OutputFolder.markFinished(temp);
-            // the folder may have changed since the first look: check again just before replacing it
-            OutputFolder.checkReplaceable(out, target, force, realInputs);
-            Path old = null;
-            if (Files.isDirectory(target) && OutputFolder.isEmpty(target)) {
-                Files.delete(target);
-            } else if (Files.exists(target)) {
-                old = target.resolveSibling(OutputFolder.scratchName(target, "old"));
-                Files.move(target, old, StandardCopyOption.ATOMIC_MOVE);
-            }
-            try {
-                Files.move(temp, target, StandardCopyOption.ATOMIC_MOVE);
-            } catch (IOException e) {
-                if (old != null) {
-                    Files.move(old, target, StandardCopyOption.ATOMIC_MOVE);
-                }
-                throw e;
-            }
+            // the folder may have changed since the first look: swapIn checks again just before replacing it
+            OutputFolder.swapIn(out, temp, target, force, realInputs);
             temp = null;
-            if (old != null && !OutputFolder.removeOwn(old)) {
-                throw new InputException(out + ": written; the earlier output was kept in " + old + " because"
-                        + " something in it changed while loopform replaced it");
-            }
             return target;
         } catch (IOException e) {
             throw new InputException(out + ": cannot be written (" + OutputFolder.reason(e) + "); check the folder"

@@ -132,8 +132,11 @@ final class OutputFolder {
         return true;
     }
 
-    /** Deletes the plain files directly in {@code dir} (never following links), then {@code dir}. */
+    /** Deletes the plain files directly in {@code dir} (never following links), then {@code dir}; nothing if it is gone. */
     static void removeFiles(Path dir) throws IOException {
+        if (!Files.exists(dir, LinkOption.NOFOLLOW_LINKS)) {
+            return; // moved into place, or removed already
+        }
         try (DirectoryStream<Path> s = Files.newDirectoryStream(dir)) {
             for (Path p : s) {
                 if (Files.isRegularFile(p, LinkOption.NOFOLLOW_LINKS) || Files.isSymbolicLink(p)) {
@@ -256,6 +259,43 @@ final class OutputFolder {
         } catch (IOException e) {
             throw new InputException(out + ": cannot be read (" + reason(e) + "); check its permissions,"
                     + " or choose another --out");
+        }
+    }
+
+    /**
+     * Puts the finished folder {@code temp} in the place of {@code target}: checks once more that
+     * {@code target} may be replaced (it may have changed since the first look), moves an earlier
+     * output aside, moves {@code temp} in (putting the earlier one back if that fails), and removes
+     * the earlier one only if it is still loopform's own; otherwise it is kept and said so.
+     * {@code shown} is the path as the user wrote it, for messages.
+     */
+    static void swapIn(Path shown, Path temp, Path target, boolean force, List<Path> inputs) throws IOException {
+        checkReplaceable(shown, target, force, inputs);
+        Path old = null;
+        if (Files.isDirectory(target) && isEmpty(target)) {
+            Files.delete(target); // an empty folder holds nothing to lose (and fails here if that changed)
+        } else if (Files.exists(target)) {
+            old = target.resolveSibling(scratchName(target, "old"));
+            Files.move(target, old, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+        }
+        try {
+            Files.move(temp, target, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+        } catch (IOException e) {
+            if (old != null) {
+                Files.move(old, target, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+            }
+            throw e;
+        }
+        try {
+            // a temporary folder is private to its owner; the finished one reads like any other
+            Files.setPosixFilePermissions(target, java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
+        } catch (UnsupportedOperationException e) {
+            // not a POSIX file system: leave the platform's default
+        }
+        if (old != null && !removeOwn(old)) {
+            // checked above, so only a change in the last instant leads here: keep what is there
+            throw new InputException(shown + ": written; the earlier output was kept in " + old + " because"
+                    + " something in it changed while loopform replaced it");
         }
     }
 
