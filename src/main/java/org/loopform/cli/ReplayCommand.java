@@ -119,7 +119,8 @@ final class ReplayCommand implements Callable<Integer> {
             }
             Path written = outDir == null ? null
                     : writeFolder(List.of(r), List.of(), List.of(), List.of(record, loopFile));
-            out.print(json ? ReplayReport.json(r) : ReplayReport.text(r));
+            out.print(json ? ReplayReport.json(r) : ReplayReport.text(r) + System.lineSeparator()
+                    + Cautions.SHORT + System.lineSeparator());
             if (plot != null && !json) {
                 out.println("Plot written to " + plot);
             }
@@ -164,7 +165,8 @@ final class ReplayCommand implements Callable<Integer> {
         }
         Path written = outDir == null || results.isEmpty() && missing.isEmpty() && notUsed.isEmpty() ? null
                 : writeFolder(results, missing, notUsed, List.of(record, listFile));
-        out.print(json ? ReplayReport.json(results, missing, notUsed) : ReplayReport.text(results, missing, notUsed));
+        out.print(json ? ReplayReport.json(results, missing, notUsed) : ReplayReport.text(results, missing, notUsed)
+                + System.lineSeparator() + Cautions.SHORT + System.lineSeparator());
         if (written != null && !json) {
             out.println("Replay summary written to " + written);
         }

@@ -403,6 +403,7 @@ public final class AuditRows {
                                 + " least one loop is checked").append(nl);
             }
         }
+        sb.append(nl).append(Cautions.SHORT).append(nl);
         if (outFolder != null) {
             sb.append(nl).append("Written to ").append(outFolder).append(nl);
         }
