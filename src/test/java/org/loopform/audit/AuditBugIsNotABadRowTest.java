@@ -1,4 +1,4 @@
-// plumbing: no published source needed
+// plumbing: no published source needed (source: none)
 package org.loopform.audit;
 
 import static org.assertj.core.api.Assertions.assertThat;

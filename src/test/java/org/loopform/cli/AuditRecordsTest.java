@@ -1,3 +1,4 @@
+// source: records written by examples/records/generate.py (numpy, independent of loopform) from known controllers; positional PID and bumpless start as in Astrom & Hagglund, Advanced PID Control, ISA 2006, ch. 3 (chapter from memory)
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,3 +1,4 @@
+// source: Astrom & Hagglund, PID Controllers: Theory, Design and Tuning, 2nd ed., ISA 1995, sec. 3.4 (section from memory); common practice for the series form's derivative placement; the rest is plumbing
 package org.loopform.form;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,3 +1,4 @@
+// source: Astrom & Hagglund, PID Controllers: Theory, Design and Tuning, 2nd ed., ISA 1995, sec. 3.4 (section from memory); each law multiplied out by hand beside its check
 package org.loopform.form;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,3 +1,4 @@
+// source: hand derivations written out beside each check; Gaussian elimination with partial pivoting (common practice)
 package org.loopform.lti;
 
 import static org.assertj.core.api.Assertions.assertThat;

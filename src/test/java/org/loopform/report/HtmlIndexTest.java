@@ -1,4 +1,4 @@
-// plumbing: the report's index and print rules; no published source needed
+// plumbing: the report's index and print rules; no published source needed (source: none)
 package org.loopform.report;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,3 +1,4 @@
+// plumbing: every catalogue figure reaches every output; no published source needed (source: none)
 package org.loopform.report;
 
 import static org.assertj.core.api.Assertions.assertThat;
