@@ -19,12 +19,23 @@ public final class CheckReport {
         return Numbers.significant(v, digits);
     }
 
-    public static String text(CheckResult r) {
-        return text(r, "as-found");
+    /**
+     * How the text names the loop the new controller is compared with: the old controller as found,
+     * or, for a new loop tuned by a rule, the rule's law as published.
+     */
+    public record Reference(String column, String loop, String law, String noScan) {
+        public static final Reference AS_FOUND = new Reference("as-found", "the as-found loop", "old law",
+                "no scan was given for the old controller, so the as-found loop runs its law continuously");
+        public static final Reference PUBLISHED = new Reference("as published", "the published law's loop",
+                "the published law", "the published law has no scan, so it runs continuously");
     }
 
-    /** As {@link #text(CheckResult)}, the old loop's column headed {@code oldColumn} (a new loop has no as-found one). */
-    public static String text(CheckResult r, String oldColumn) {
+    public static String text(CheckResult r) {
+        return text(r, Reference.AS_FOUND);
+    }
+
+    /** As {@link #text(CheckResult)}, the reference loop named as {@code ref} says. */
+    public static String text(CheckResult r, Reference ref) {
         String nl = System.lineSeparator();
         Conversion c = r.conversion();
         StringBuilder sb = new StringBuilder();
@@ -43,10 +54,10 @@ public final class CheckReport {
                 .append(nl));
         sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
                 + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees()) + " deg").append(nl);
-        sb.append("  new controller as run vs old law: up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
+        sb.append("  new controller as run vs ").append(ref.law()).append(": up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
                 .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
-            TextTable t = new TextTable("figure", oldColumn, "as-left", "unit");
+            TextTable t = new TextTable("figure", ref.column(), "as-left", "unit");
             LoopSide d = LoopSide.design(r);
             LoopSide g = LoopSide.target(r);
             for (LoopFigure f : LoopFigure.tableOrder()) {
@@ -60,7 +71,7 @@ public final class CheckReport {
                     .append(fmt(r.steps().loadStepPercent(), 3)).append(" % at the process input (load) ").append(aboutOperatingPoint(r.steps())).append(", over ")
                     .append(fmt(sp.timeSeconds(sp.size() - 1), 4)).append(" s; ");
             if (r.referenceStepSeconds() > 0 && r.loop().sourceScanSeconds() == null) {
-                sb.append("no scan was given for the old controller, so the as-found loop runs its law continuously: simulated on ").append(fmt(r.referenceStepSeconds(), 3))
+                sb.append(ref.noScan()).append(": simulated on ").append(fmt(r.referenceStepSeconds(), 3))
                         .append(" s and ").append(fmt(2 * r.referenceStepSeconds(), 3))
                         .append(" s steps and extrapolated; estimated PV error under ")
                         .append(fmt(r.referenceErrorPercent(), 2)).append(" %.");
@@ -68,12 +79,12 @@ public final class CheckReport {
                 sb.append("the as-found loop runs the old controller's own algorithm at its scan.");
             }
             sb.append(nl);
-            sb.append("  Stability: as-found ").append(r.designStability().verdict().word()).append(" (")
+            sb.append("  Stability: ").append(ref.column()).append(" ").append(r.designStability().verdict().word()).append(" (")
                     .append(r.designStability().test().describe()).append("); as-left ")
                     .append(r.targetStability().verdict().word()).append(" (")
                     .append(r.targetStability().test().describe()).append(")").append(nl)
                     .append("    as-left: ").append(r.targetStability().explanation()).append(nl);
-            notStable(r).ifPresent(note -> sb.append("  ").append(notStableLabel(r)).append(": ").append(note)
+            notStable(r, ref).ifPresent(note -> sb.append("  ").append(notStableLabel(r)).append(": ").append(note)
                     .append(nl));
         } else {
             sb.append("  No process model: only the controller and the sampling rules were checked.").append(nl);
@@ -91,12 +102,16 @@ public final class CheckReport {
      * (or without a process model).
      */
     static java.util.Optional<String> notStable(CheckResult r) {
+        return notStable(r, Reference.AS_FOUND);
+    }
+
+    static java.util.Optional<String> notStable(CheckResult r, Reference ref) {
         if (!r.hasProcess()) {
             return java.util.Optional.empty();
         }
         java.util.List<String> loops = new java.util.ArrayList<>();
         if (!r.designStability().isStable()) {
-            loops.add("the as-found loop is " + r.designStability().verdict().word());
+            loops.add(ref.loop() + " is " + r.designStability().verdict().word());
         }
         if (!r.targetStability().isStable()) {
             loops.add("the as-left loop is " + r.targetStability().verdict().word());

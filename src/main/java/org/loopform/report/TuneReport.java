@@ -70,10 +70,7 @@ public final class TuneReport {
             // a new loop has no as-found controller: its reference is the rule's law as published, run continuously
             sb.append("The check compares the new controller (as-left) with the rule's law as published (the column"
                     + " 'as published').").append(nl);
-            sb.append(CheckReport.text(check, "as published").replace("no scan was given for the old controller, so the"
-                    + " as-found loop", "the published law has no scan, so it").replace("Stability: as-found ",
-                    "Stability: as published ").replace("the as-found loop", "the published law's loop")
-                    .replace("new controller as run vs old law", "new controller as run vs the published law"));
+            sb.append(CheckReport.text(check, CheckReport.Reference.PUBLISHED));
             return sb.toString();
         }
         if (design != null && design.hasProcess()) {

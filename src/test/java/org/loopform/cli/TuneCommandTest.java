@@ -76,4 +76,13 @@ class TuneCommandTest {
         assertThat(r.out()).contains("Ziegler & Nichols").contains("as published (ideal, no derivative filter):"
                 + " kc = 12 %/%, ti = 2 s, td = 0.5 s").contains("phase margin");
     }
+
+    /** A new loop has no as-found controller: tune's check names its reference the published law (plumbing of words). */
+    @Test
+    void the_check_of_a_tuning_compares_with_the_published_law_not_an_as_found_loop() {
+        CliRun r = CliRun.of("tune", "--process", K1_T10_L1, "--rule", "simc", "--scan", "0.1s");
+        assertThat(r.exitCode()).as(r.err()).isIn(0, 1);
+        assertThat(r.out()).contains("figure                   as published  as-left  unit",
+                "new controller as run vs the published law", "Stability: as published ").doesNotContain("as-found");
+    }
 }
