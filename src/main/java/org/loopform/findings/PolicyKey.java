@@ -19,20 +19,20 @@ public enum PolicyKey {
             + " phase lead at crossover the sampled derivative must keep", CheckRules.COMMON),
     MS_WARN("ms_warn", 2.0, "ratio", "as-left maximum sensitivity Ms above which the loop warns", CheckRules.MS_SOURCE),
     MS_FAIL("ms_fail", 3.0, "ratio", "as-left Ms above which the loop fails (the Nyquist curve within 1/3 of -1)",
-            "loopform policy (common practice): Ms 3 still guarantees GM >= 1.5 and PM >= 19.2 deg by "
+            "loopform policy (common practice): Ms 3 still guarantees GM >= 1.5 and PM >= 19.2 deg, as "
                     + CheckRules.MS_BOUNDS),
     MS_INCREASE_WARN("ms_increase_warn", 0.1, "fraction", "rise of Ms from as-found to as-left above which robustness is"
             + " lost in the migration", CheckRules.COMMON),
     PHASE_MARGIN_WARN_DEG("phase_margin_warn_deg", 30, "deg", "as-left phase margin below which the loop warns",
             "common practice: PM 30 to 60 deg; ControlSystems.jl docs, analysis example: 'above 30-45 deg'"),
     PHASE_MARGIN_FAIL_DEG("phase_margin_fail_deg", 20, "deg", "as-left phase margin below which the loop fails",
-            "loopform policy (common practice): the phase margin Ms 3 guarantees, 2 arcsin(1/6) = 19.2 deg, by "
+            "loopform policy (common practice): the phase margin Ms 3 guarantees, 2 arcsin(1/6) = 19.2 deg, as "
                     + CheckRules.MS_BOUNDS),
     GAIN_MARGIN_WARN("gain_margin_warn", 2, "ratio", "as-left gain margin below which the loop warns",
             "common practice: GM 2 to 5"),
     GAIN_MARGIN_FAIL("gain_margin_fail", 1.5, "ratio", "as-left gain margin below which the loop fails",
             "ControlSystems.jl docs, analysis example: 'we usually aim for a gain margin of > 1.5'; also the GM"
-                    + " Ms 3 guarantees, 3/(3-1), by " + CheckRules.MS_BOUNDS),
+                    + " Ms 3 guarantees, 3/(3-1), as " + CheckRules.MS_BOUNDS),
     DELAY_MARGIN_WARN_SCANS("delay_margin_warn_scans", 2, "scans", "as-left delay margin, in new scans, below which"
             + " the loop warns", "loopform policy (common practice): two scans of added latency must not make the"
             + " loop unstable"),
