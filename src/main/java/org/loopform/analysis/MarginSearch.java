@@ -157,6 +157,10 @@ final class MarginSearch {
         if (n < MAX_GRID_POINTS && x / w[last] - 1 > MIN_RELATIVE_WIDTH && turnsQuickly(last, xRe, xIm)) {
             double mid = Math.sqrt(w[last] * x);
             loop.at(mid, reIm);
+            if (!Double.isFinite(reIm[0]) || !Double.isFinite(reIm[1])) {
+                append(x, xRe, xIm); // the midpoint is a pole on the axis: no refinement resolves it
+                return;
+            }
             appendRefined(mid, reIm[0], reIm[1]);
             appendRefined(x, xRe, xIm);
         } else {
@@ -185,6 +189,11 @@ final class MarginSearch {
     }
 
     private void append(double x, double xRe, double xIm) {
+        if (!Double.isFinite(xRe) || !Double.isFinite(xIm)) {
+            // a pole of L on the axis exactly at a grid frequency (an undamped mode): L has no value there,
+            // and its neighbours on either side carry the walk past it
+            return;
+        }
         if (n == w.length) {
             int size = 2 * n;
             w = Arrays.copyOf(w, size);
