@@ -290,7 +290,10 @@ final class MarginSearch {
         double crossover = Double.NaN;
         double smallestDelayMargin = Double.POSITIVE_INFINITY;
         for (GainCrossover c : gainCrossovers) {
-            if (c.phaseMarginDegrees() < smallestPhaseMargin) {
+            // the crossover nearest -1 sets the phase margin: the least phase change, lag or lead, that puts the
+            // loop on -1. A crossover wrapped near -180 deg sits near +1 on a stable loop with several crossovers
+            // and is far from instability; the smallest signed value would call it the worst.
+            if (Math.abs(c.phaseMarginDegrees()) < Math.abs(smallestPhaseMargin)) {
                 smallestPhaseMargin = c.phaseMarginDegrees();
                 crossover = c.radPerSecond();
             }
