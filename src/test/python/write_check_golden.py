@@ -34,7 +34,7 @@ scipy.optimize.minimize_scalar. The gain margin is the smallest 1/|L| at or abov
 phase crossovers, the lower gain margin the largest below 1; a sampled loop whose L(-1) is real
 and negative has a phase crossover at the Nyquist frequency itself (its Nyquist plot passes the
 axis there and continues into its mirror image). Each phase margin is wrapped into (-180, 180]
-degrees and the smallest reported; the delay margin is the smallest ((PM mod 360) in rad) / w.
+degrees and the one smallest in size (the crossover nearest -1) reported with its sign; the delay margin is the smallest ((PM mod 360) in rad) / w.
 
 Earlier versions skipped the Nyquist end point as "a touch, not a pass", which is wrong: the
 plot of a sampled loop crosses the negative real axis at z = -1. No loop here has its crossover
@@ -193,8 +193,8 @@ def margins(response, low, high):
         p += 2 * math.pi * round((phase[k] - p) / (2 * math.pi))
         margin = math.degrees(math.pi + p)
         margin -= 360 * math.ceil((margin - 180) / 360)  # into (-180, 180]
-        if margin < pm:
-            pm, wc = margin, x
+        if wc is None or abs(margin) < abs(pm):
+            pm, wc = margin, x  # the crossover nearest -1: least lag or lead
         dm = min(dm, math.radians(margin % 360) / x)
 
     factors = []

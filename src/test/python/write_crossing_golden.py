@@ -37,8 +37,11 @@ loop on a log-spaced grid of 2,000,001 points, the phase is unwrapped along it, 
 crossover (sign change of |L| - 1) and every pass of the unwrapped phase through -180 + 360 k
 degrees is refined with scipy.optimize.brentq; a top of the band where L is real and negative (the
 sampled loop at z = -1) is a phase crossover. Gain margin: the smallest 1/|L| >= 1 over the phase
-crossovers; lower gain margin: the largest below 1. Phase margin: the smallest over the gain
-crossovers, each wrapped into (-180, 180] degrees. Delay margin: the smallest
+crossovers; lower gain margin: the largest below 1. Phase margin: 180 + arg L wrapped into
+(-180, 180] degrees at the gain crossover where it is smallest in size, the crossover nearest -1
+(the least phase change, lag or lead, that puts the loop on -1), with its sign; on a stable loop
+with several crossovers a crossover whose wrapped value is near -180 sits near +1, not -1, and
+does not set the margin. Delay margin: the smallest
 ((PM mod 360) in rad) / w over the gain crossovers, and for the target that over h in scans.
 Ms: 1 / min |1 + L|, refined with scipy.optimize.minimize_scalar.
 """
@@ -253,8 +256,8 @@ def margins(response, low, high):
         x = brentq(lambda v: abs(at(v)) - 1.0, w[k], w[k + 1], xtol=1e-15, rtol=1e-14)
         margin = math.degrees(math.pi + unwrapped(x, k))
         margin -= 360 * math.ceil((margin - 180) / 360)  # into (-180, 180]
-        if margin < pm:
-            pm, wc = margin, x
+        if wc is None or abs(margin) < abs(pm):
+            pm, wc = margin, x  # the crossover nearest -1: the smallest phase change, lag or lead
         dm = min(dm, math.radians(margin % 360) / x)
 
     factors = []

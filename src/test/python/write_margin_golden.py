@@ -20,8 +20,8 @@ Td = 0 no derivative action; phase is unwrapped from the bottom of the band (the
 does not matter: every figure is read modulo 360 degrees); the gain margin is the smallest
 1/|L| at or above 1 over the passes of the phase through -180 + 360 k degrees (a band top on
 the negative real axis, a sampled loop at z = -1, counts as one), the lower gain margin the
-largest below 1; each phase margin is wrapped into (-180, 180] degrees and the smallest
-reported; the delay margin is the smallest ((PM mod 360) in rad) / omega over the gain
+largest below 1; each phase margin is wrapped into (-180, 180] degrees and the one smallest
+in size (the crossover nearest -1) reported with its sign; the delay margin is the smallest ((PM mod 360) in rad) / omega over the gain
 crossovers (Astrom and Murray, Feedback Systems, 2008, ch. 9-10 - from memory). A sampled loop
 ("z") gives its loop polynomials in z and is evaluated at z = exp(i omega h) up to the Nyquist
 frequency pi / h.
@@ -98,7 +98,7 @@ def margins(row):
         p += 2 * math.pi * round((phase[k] - p) / (2 * math.pi))
         margin = math.degrees(math.pi + p)
         margin -= 360 * math.ceil((margin - 180) / 360)  # into (-180, 180]
-        if margin < pm_deg:
+        if wc is None or abs(margin) < abs(pm_deg):  # the crossover nearest -1: least lag or lead
             pm_deg, wc = margin, x
         dm = min(dm, math.radians(margin % 360) / x)
 

@@ -40,8 +40,8 @@ margins - from memory for the sections) on z = e^(i w h), w over [low, pi/h]:
   Re L < 0), refined by brentq on Im L; at the Nyquist frequency z = -1 L is real, and a negative
   L(-1) is a phase crossover there;
 - gain margin: the smallest 1/|L| >= 1 over the phase crossovers; lower gain margin: the largest
-  1/|L| < 1; phase margin: the smallest over the gain crossovers of 180 + arg L wrapped into
-  (-180, 180] degrees, the crossover where it is read; delay margin: the smallest
+  1/|L| < 1; phase margin: 180 + arg L wrapped into (-180, 180] degrees at the gain
+  crossover where it is smallest in size (nearest -1), with its sign, and that crossover; delay margin: the smallest
   ((180 + arg L) mod 360, in rad) / w over the gain crossovers;
 - every gain crossover with its own phase and delay margin, every phase crossover with its 1/|L|,
   in rising frequency, and |L| at the band's low end;
@@ -202,7 +202,7 @@ def margins(loop):
         p = (p + 180.0) % 360.0 - 180.0
         if p <= -180.0:
             p += 360.0
-        if pm is None or p < pm:
+        if pm is None or abs(p) < abs(pm):  # the crossover nearest -1: least lag or lead
             pm, wpm = p, wc
         delay = np.radians((180.0 + ang) % 360.0) / wc
         if dm is None or delay < dm:

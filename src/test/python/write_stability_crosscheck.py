@@ -67,8 +67,9 @@ bisected until neighbouring points differ by less than 0.02 rad in phase and 2 %
   above; for the sampled loop the Nyquist frequency itself (z = -1, where L is real) is a phase
   crossover when L(-1) < 0;
 - gain margin: the smallest 1/|L| > 1 over the phase crossovers; lower gain margin: the largest
-  1/|L| < 1; phase margin: the smallest over the gain crossovers of 180 deg + arg L wrapped into
-  (-180, 180]; delay margin: the smallest over the gain crossovers of ((180 deg + arg L) mod 360,
+  1/|L| < 1; phase margin: 180 deg + arg L wrapped into (-180, 180] at the gain crossover where
+  it is smallest in size (the crossover nearest -1, needing the least lag or lead to reach it),
+  with its sign; delay margin: the smallest over the gain crossovers of ((180 deg + arg L) mod 360,
   in rad) / w; Ms: the largest 1/|1 + L| (grid, then minimize_scalar around the best minima of
   |1 + L| and the band ends). Empty in the CSV where the quantity does not exist.
 - band: the design loop from 1e-3 times its lowest corner frequency to beyond the frequency
@@ -511,8 +512,8 @@ def margins_from(response, w, l, gain_x, phase_x):
         if abs(wrapped) < FRAGILE * 1e-3:
             raise Fragile("a gain crossover sits on -180 deg")
         deg = math.degrees(wrapped)
-        if pm is None or deg < pm:
-            pm, pm_w = deg, x
+        if pm is None or abs(deg) < abs(pm):
+            pm, pm_w = deg, x  # the crossover nearest -1: the smallest phase change, lag or lead
         delay = (raw % (2 * math.pi)) / x
         dm = delay if dm is None else min(dm, delay)
     gm, gm_w, lgm, lgm_w = None, None, None, None

@@ -16,9 +16,11 @@ import java.util.OptionalDouble;
  *   <li>{@code lowerGainMargin}: the largest {@code 1 / |L|} below 1 over the phase crossovers,
  *       the factor by which the gain may shrink (a conditionally stable loop); empty when every
  *       phase crossover has {@code |L| <= 1}.
- *   <li>{@code phaseMarginDegrees}: the smallest {@code 180 + arg L} over the gain crossovers
- *       ({@code |L| = 1}), each wrapped into (-180, 180] degrees; empty when there is no gain
- *       crossover ({@code phaseMarginNote} says why).
+ *   <li>{@code phaseMarginDegrees}: {@code 180 + arg L} wrapped into (-180, 180] degrees at the
+ *       gain crossover ({@code |L| = 1}) where it is smallest in size, with its sign: the crossover
+ *       nearest -1, which the least phase change (lag or lead) puts on -1. On a stable loop with
+ *       several crossovers one may wrap near -180 degrees: it lies near +1, far from -1, and does not
+ *       set the margin. Empty when there is no gain crossover ({@code phaseMarginNote} says why).
  *   <li>{@code crossoverRadPerSecond}: the gain crossover where that phase margin is read.
  *   <li>{@code delayMarginSeconds}: the smallest {@code ((PM_j mod 360) in rad) / omega_j} over
  *       the gain crossovers j, the least extra dead time that puts a crossover on -1.

@@ -157,6 +157,10 @@ final class MarginSearch {
         if (n < MAX_GRID_POINTS && x / w[last] - 1 > MIN_RELATIVE_WIDTH && turnsQuickly(last, xRe, xIm)) {
             double mid = Math.sqrt(w[last] * x);
             loop.at(mid, reIm);
+            if (!Double.isFinite(reIm[0]) || !Double.isFinite(reIm[1])) {
+                append(x, xRe, xIm); // the midpoint is a pole on the axis: no refinement resolves it
+                return;
+            }
             appendRefined(mid, reIm[0], reIm[1]);
             appendRefined(x, xRe, xIm);
         } else {
@@ -185,6 +189,11 @@ final class MarginSearch {
     }
 
     private void append(double x, double xRe, double xIm) {
+        if (!Double.isFinite(xRe) || !Double.isFinite(xIm)) {
+            // a pole of L on the axis exactly at a grid frequency (an undamped mode): L has no value there,
+            // and its neighbours on either side carry the walk past it
+            return;
+        }
         if (n == w.length) {
             int size = 2 * n;
             w = Arrays.copyOf(w, size);
@@ -281,7 +290,10 @@ final class MarginSearch {
         double crossover = Double.NaN;
         double smallestDelayMargin = Double.POSITIVE_INFINITY;
         for (GainCrossover c : gainCrossovers) {
-            if (c.phaseMarginDegrees() < smallestPhaseMargin) {
+            // the crossover nearest -1 sets the phase margin: the least phase change, lag or lead, that puts the
+            // loop on -1. A crossover wrapped near -180 deg sits near +1 on a stable loop with several crossovers
+            // and is far from instability; the smallest signed value would call it the worst.
+            if (Math.abs(c.phaseMarginDegrees()) < Math.abs(smallestPhaseMargin)) {
                 smallestPhaseMargin = c.phaseMarginDegrees();
                 crossover = c.radPerSecond();
             }

@@ -268,8 +268,9 @@ public final class CheckRules {
                 out.add(new Finding(Topic.ROBUSTNESS, fail ? Severity.FAIL : Severity.WARN, pm, limit, "deg",
                         (fail ? PolicyKey.PHASE_MARGIN_FAIL_DEG : PolicyKey.PHASE_MARGIN_WARN_DEG).source(),
                         "The as-left loop's phase margin is " + Numbers.significant(pm, 3) + " deg, below "
-                        + Numbers.plain(limit) + " deg" + (fail ? " (the fail threshold): it will ring badly and is at"
-                        + " the edge of instability; do not deploy this tuning: retune or scan faster." : ".")));
+                        + Numbers.plain(limit) + " deg" + (pm < 0 ? beyondMinus180(pm) : fail ? " (the fail threshold):"
+                        + " it will ring badly and is at the edge of instability; do not deploy this tuning: retune or"
+                        + " scan faster." : ".")));
             }
         }
         if (t.gainMargin().isPresent()) {
@@ -342,5 +343,17 @@ public final class CheckRules {
                     + " runs a positional algorithm without anti-windup: after the output saturates, the integral keeps"
                     + " growing and the loop overshoots when it comes off the limit."));
         }
+    }
+
+    /**
+     * The words for a stable loop whose gain crossover nearest -1 lies beyond -180 deg: its Nyquist plot
+     * passes -1 on the far side there and the loop is stable only because another crossing makes up the
+     * count (Nyquist criterion, Astrom and Murray, Feedback Systems, 2008, ch. 9 - from memory).
+     */
+    private static String beyondMinus180(double pm) {
+        return " (the fail threshold): at its gain crossover nearest -1 the phase is " + Numbers.significant(-pm, 3)
+                + " deg beyond -180 deg, so the loop is stable only because another crossing of its frequency"
+                + " response makes up for it; a little phase lead there, or a small change in the process, makes it"
+                + " unstable; do not deploy this tuning: retune or scan faster.";
     }
 }

@@ -136,6 +136,17 @@ public final class HeldProcess {
         return scanSeconds;
     }
 
+    /**
+     * The scan at whose instant a step reaching the process leaves the controller blind longest:
+     * ceil(L / h). A step applied with the controller's output at scan 0 reaches the process at L,
+     * which the controller first sees at the next scan instant after it; one that reaches the
+     * process just after a scan instant is seen a whole scan later (with L a whole number of scans
+     * the two coincide).
+     */
+    public int blindestOnsetScan() {
+        return fractionSeconds > 0 ? delayScans + 1 : delayScans;
+    }
+
     /** Back to rest: zero state and an empty (zero) delay line. */
     public void reset() {
         Arrays.fill(state, 0.0);
@@ -155,12 +166,21 @@ public final class HeldProcess {
      * the output at the end of the scan, just before the following input takes effect.
      */
     public double scan(double u, double[] between) {
+        return scan(u, 0.0, between);
+    }
+
+    /**
+     * As {@link #scan(double, double[])}, with {@code direct} added at the process input over the
+     * whole scan, behind no hold and no dead time: a disturbance that reaches the process at the
+     * scan instant itself (a load whose effect starts just after a sample).
+     */
+    public double scan(double u, double direct, double[] between) {
         int size = inputRing.length;
         newest = newest + 1 == size ? 0 : newest + 1;
         inputRing[newest] = u;
-        double arriving = inputRing[slot(delayScans)];
+        double arriving = inputRing[slot(delayScans)] + direct;
         // u(k-d-1) sits in the slot just after the newest one: the ring holds d + 2 inputs
-        double leaving = inputRing[newest + 1 == size ? 0 : newest + 1];
+        double leaving = inputRing[newest + 1 == size ? 0 : newest + 1] + direct;
         if (earlySteps == 0 && lateSteps == 1 && order == 1) {
             // one sample a scan, first order: the whole scan in one exact step
             state[0] = lateA[0] * state[0] + lateB[0] * arriving;

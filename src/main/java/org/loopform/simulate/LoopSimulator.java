@@ -161,9 +161,18 @@ public final class LoopSimulator {
             }
         }
 
-        /** Holds {@code u} over a scan; fills {@link #between}, returns the output at the next scan instant. */
-        double scan(double u) {
-            return held != null ? held.scan(u, between) : sampled.step(u);
+        /**
+         * Holds {@code u} over scan {@code k} with the step {@code load} at the process input; fills
+         * {@link #between}, returns the output at the next scan instant. At the scan instants only, the
+         * load enters with the output (behind the dead time, from scan 0); followed between the scans, it
+         * reaches the process just after a scan instant, from {@link HeldProcess#blindestOnsetScan()}
+         * on, the timing a sampled controller answers latest.
+         */
+        double scan(double u, double load, int k) {
+            if (held == null) {
+                return sampled.step(u + load);
+            }
+            return held.scan(u, k >= held.blindestOnsetScan() ? load : 0.0, between);
         }
     }
 
@@ -234,7 +243,7 @@ public final class LoopSimulator {
                 response.holdRemaining();
                 break;
             }
-            double next = pv0 + plant.scan(out - u0 + load);
+            double next = pv0 + plant.scan(out - u0, load, k);
             for (int j = 0; j < between.length; j++) {
                 response.add(pv0 + between[j], out);
             }

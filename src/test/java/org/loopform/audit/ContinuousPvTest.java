@@ -78,12 +78,22 @@ class ContinuousPvTest {
                     .isCloseTo(setpoint.settlingSeconds(), within(SETTLING_SECONDS));
         }
 
+        /**
+         * The load reaches the process just after a scan instant, the timing the sampled controller
+         * answers latest: here at t = 5 s (the first scan instant at or after the dead time). Derived by
+         * hand: the PV rises as 10 (1 - e^(-(t - 5)/10)) %, the controller first sees it at t = 10 s, its
+         * correction (kc (1 + h/ti) = 3.25 times 3.93 %, far more than the load) reaches the process at
+         * t = 11 s, so the peak is 10 (1 - e^(-0.6)) = 4.512 %. A load that reached the process at the
+         * dead time (t = 1 s) would peak at only 10 (1 - e^(-0.5)) = 3.935 %, understating it.
+         */
         @Test
         void rejects_a_load_step_with_the_continuous_peak() {
             int loadScans = scans(r.targetRun().load(), 5.0);
             HeldPiReference.Figures load = HeldPiReference.run(HeldPiReference.firstOrder(1, 10), 2, 8, 5, 1, 0, 10,
-                    loadScans, 0.2);
+                    5.0, loadScans, 0.2);
             double peak = Math.max(load.largestPv(), -load.smallestPv());
+            assertThat(peak).as("reference against the hand derivation").isCloseTo(10 * (1 - Math.exp(-0.6)),
+                    within(1e-6));
             assertThat(peak - load.largestPvAtScans()).as("the scans miss part of the peak").isGreaterThan(0.3);
             assertThat(r.targetLoad().peakDeviationPercent()).isCloseTo(peak, within(PEAK_POINTS));
             assertThat(r.targetLoad().integralAbsoluteErrorPercentSeconds())
@@ -123,7 +133,8 @@ class ContinuousPvTest {
                 .isCloseTo(sp.iae(), within(IAE_SHARE * sp.iae()));
         assertThat(r.targetSetpoint().settlingTimeSeconds().getAsDouble())
                 .isCloseTo(sp.settlingSeconds(), within(SETTLING_SECONDS));
-        HeldPiReference.Figures load = HeldPiReference.run(p, 1, 10, 2, 4.3, 0, 10,
+        // the load reaches the process just after the scan instant 6 s, the first at or after the dead time
+        HeldPiReference.Figures load = HeldPiReference.run(p, 1, 10, 2, 4.3, 0, 10, 6.0,
                 scans(r.targetRun().load(), 2.0), 0.2);
         assertThat(r.targetLoad().peakDeviationPercent())
                 .isCloseTo(Math.max(load.largestPv(), -load.smallestPv()), within(PEAK_POINTS));

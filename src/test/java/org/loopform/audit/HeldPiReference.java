@@ -20,8 +20,8 @@ import org.apache.commons.math3.ode.nonstiff.DormandPrince853Integrator;
  *
  * (Astrom &amp; Wittenmark, Computer-Controlled Systems, 3rd ed., 1997, ch. 2, a computer-controlled
  * system: sample, compute, hold - from memory for the section; the PI recursion is common
- * practice.) The load is a step added to the controller output, so it passes the dead time with
- * it. The input is constant between the scan instants and the switch instants {@code k h + L},
+ * practice.) The load is a step at the process input; by default it is added to the controller
+ * output, so it passes the dead time with it, or it reaches the process at a given instant. The input is constant between the scan instants and the switch instants {@code k h + L},
  * so the integration runs piece by piece between them and never steps across a discontinuity.
  * Events locate every extremum of y (dy/dt = 0), every zero of the error (where |e| has a corner:
  * the IAE integrand restarts there) and every crossing of the settling band.
@@ -58,11 +58,23 @@ final class HeldPiReference {
      */
     static Figures run(Process p, double kc, double tiSeconds, double h, double deadTimeSeconds, double setpointStep,
                        double load, int scans, double band) {
+        return run(p, kc, tiSeconds, h, deadTimeSeconds, setpointStep, load, deadTimeSeconds, scans, band);
+    }
+
+    /**
+     * As above, with the load reaching the process input at {@code loadOnsetSeconds} instead of at
+     * the dead time: {@code v(t) = u(floor((t - L) / h)) [t >= L] + load [t >= onset]}.
+     */
+    static Figures run(Process p, double kc, double tiSeconds, double h, double deadTimeSeconds, double setpointStep,
+                       double load, double loadOnsetSeconds, int scans, double band) {
         int n = p.dimension();
         double[] state = new double[n + 1]; // process states, then the integral of |e|
         double[] inputs = new double[scans];
         double integral = 0;
         List<Double> breaks = new ArrayList<>();
+        if (loadOnsetSeconds < scans * h && Math.abs(loadOnsetSeconds - Math.rint(loadOnsetSeconds / h) * h) > 1e-9) {
+            breaks.add(loadOnsetSeconds);
+        }
         for (int k = 0; k <= scans; k++) {
             breaks.add(k * h);
             double sw = k * h + deadTimeSeconds;
@@ -71,6 +83,12 @@ final class HeldPiReference {
             }
         }
         breaks.sort(Double::compare);
+        // the load onset may coincide with a switch instant: one break each
+        for (int i = breaks.size() - 1; i > 0; i--) {
+            if (breaks.get(i) - breaks.get(i - 1) <= 1e-9) {
+                breaks.remove(i);
+            }
+        }
         double[] largest = {Double.NEGATIVE_INFINITY};
         double[] smallest = {Double.POSITIVE_INFINITY};
         double largestAtScans = Double.NEGATIVE_INFINITY;
@@ -128,7 +146,8 @@ final class HeldPiReference {
                 scan++;
             }
             double source = 0.5 * (t0 + t1) - deadTimeSeconds;
-            v[0] = source < 0 ? 0.0 : inputs[(int) Math.floor(source / h)] + load;
+            v[0] = (source < 0 ? 0.0 : inputs[(int) Math.floor(source / h)])
+                    + (0.5 * (t0 + t1) >= loadOnsetSeconds ? load : 0.0);
             largest[0] = Math.max(largest[0], p.output(state));
             smallest[0] = Math.min(smallest[0], p.output(state));
             integrator.integrate(equations, t0, state, t1, state);

@@ -91,6 +91,22 @@ class RobustnessRulesTest {
             });
         }
 
+        /**
+         * A stable loop whose gain crossover nearest -1 lies beyond -180 deg (phase margin -32 deg, as the
+         * resonance loop several-crossovers-04 of the committed cross-check has): stable only because its
+         * plot also passes -1 the other way at another crossing (Nyquist criterion, Astrom and Murray 2008,
+         * ch. 9 - from memory). It fails, and the words say why instead of "it will ring badly".
+         */
+        @Test
+        void a_negative_phase_margin_on_a_stable_loop_is_explained() {
+            assertThat(robustness(margins(5, -32.2, 20, 1.3), CheckPolicy.DEFAULT)).singleElement().satisfies(f -> {
+                assertThat(f.severity()).isEqualTo(Severity.FAIL);
+                assertThat(f.message()).contains("phase margin is -32.2 deg")
+                        .contains("32.2 deg beyond -180 deg").contains("stable only because")
+                        .contains("do not deploy").doesNotContain("ring badly");
+            });
+        }
+
         @Test
         void a_short_delay_margin_in_seconds_and_scans() {
             assertThat(robustness(margins(5, 60, 0.6, 1.3), CheckPolicy.DEFAULT)).singleElement().satisfies(f -> {
