@@ -26,7 +26,11 @@ import org.loopform.units.BadInput;
  * response rules (common practice) hold the target's responses to the design's.
  *
  * <p>Invariants: every value finite and &gt;= 0, and each fail threshold on the bad side of its
- * warning (or equal), so that a loop fails only where it would also warn.
+ * warning (or equal), so that a loop fails only where it would also warn. No policy may switch off
+ * the edge of instability: {@code ms_fail} is at most 10, {@code gain_margin_fail} at least 1.1 and
+ * {@code phase_margin_fail_deg} at least 5 (loopform policy, common practice: a Nyquist curve within
+ * 1/10 of -1, a 10 % gain error or 5 deg of phase from instability is not a loop to deploy; Ms 10
+ * alone guarantees only GM &gt;= 10/9 and PM &gt;= 2 arcsin(1/20) = 5.7 deg).
  */
 public record CheckPolicy(Map<PolicyKey, Double> values) {
 
@@ -47,6 +51,15 @@ public record CheckPolicy(Map<PolicyKey, Double> values) {
             new Pair(PolicyKey.FIT_FAIL_DEG, PolicyKey.FIT_WARN_DEG, true),
             new Pair(PolicyKey.ROUNDING_WARN_DB, PolicyKey.ROUNDING_INFO_DB, true),
             new Pair(PolicyKey.ROUNDING_WARN_DEG, PolicyKey.ROUNDING_INFO_DEG, true));
+
+    /** A fail key, the laxest value any policy may give it, and whether higher figures are worse. */
+    private record Floor(PolicyKey key, double laxest, boolean higherIsWorse) {
+    }
+
+    private static final List<Floor> EDGE_OF_INSTABILITY = List.of(
+            new Floor(PolicyKey.MS_FAIL, 10, true),
+            new Floor(PolicyKey.GAIN_MARGIN_FAIL, 1.1, false),
+            new Floor(PolicyKey.PHASE_MARGIN_FAIL_DEG, 5, false));
 
     public CheckPolicy {
         EnumMap<PolicyKey, Double> copy = new EnumMap<>(PolicyKey.class);
@@ -69,6 +82,16 @@ public record CheckPolicy(Map<PolicyKey, Double> values) {
                         + p.warn().unit() + "): a loop must fail only where it would also warn; "
                         + (p.higherIsWorse() ? "raise " : "lower ") + p.fail().id() + " or "
                         + (p.higherIsWorse() ? "lower " : "raise ") + p.warn().id() + ".", p.fail(), p.warn());
+            }
+        }
+        for (Floor f : EDGE_OF_INSTABILITY) {
+            double v = copy.get(f.key());
+            if (f.higherIsWorse() ? v > f.laxest() : v < f.laxest()) {
+                throw new PolicyException(f.key().id() + ": must not be " + (f.higherIsWorse() ? "above " : "below ")
+                        + plain(f.laxest()) + " " + f.key().unit() + " (got " + plain(v) + "): a loop that close to"
+                        + " instability fails whatever the policy (an Ms of 10, a gain margin of 1.1 or a phase margin"
+                        + " of 5 deg is the edge of instability); give a value from " + plain(f.laxest())
+                        + (f.higherIsWorse() ? " down." : " up."), f.key());
             }
         }
         values = java.util.Collections.unmodifiableMap(copy);

@@ -50,6 +50,37 @@ class CheckPolicyOptionTest {
         assertThat(strict.out()).contains("verdict: FAIL", "below 3.5 (the fail threshold)");
     }
 
+    /**
+     * The same process at a 0.01 s scan with Kc 15: theta about 1.005 s, w180 = (pi/2)/theta =
+     * 1.563 rad/s, GM = 10 w180 / Kc = 1.04 and PM = 90 deg - theta Kc/10 rad = 3.6 deg (derived as
+     * above). The laxest policy loopform accepts (Ms 10, GM 1.1, PM 5 deg: loopform policy, common
+     * practice) still fails it: no policy passes a loop at the edge of instability.
+     */
+    @Test
+    void the_laxest_policy_allowed_still_fails_a_loop_at_the_edge_of_instability() throws IOException {
+        Path loop = Files.writeString(dir.resolve("edge.yaml"), LOOP.replace("kc: 5", "kc: 15")
+                .replace("scan: 0.1 s", "scan: 0.01 s"));
+        Path lax = Files.writeString(dir.resolve("lax.yaml"), """
+                ms_warn: 10
+                ms_fail: 10
+                gain_margin_warn: 1.1
+                gain_margin_fail: 1.1
+                phase_margin_warn_deg: 5
+                phase_margin_fail_deg: 5
+                delay_margin_warn_scans: 0
+                delay_margin_fail_scans: 0
+                """);
+        CliRun run = CliRun.of("check", loop.toString(), "--policy", lax.toString());
+
+        assertThat(run.exitCode()).as(run.out() + run.err()).isEqualTo(1);
+        assertThat(run.out()).contains("verdict: FAIL", "below 1.1 (the fail threshold)",
+                "below 5 deg (the fail threshold)");
+
+        CliRun laxer = check("gain_margin_warn: 1\ngain_margin_fail: 1\n");
+        assertThat(laxer.exitCode()).isEqualTo(2);
+        assertThat(laxer.err()).contains("policy.yaml:2: gain_margin_fail: must not be below 1.1");
+    }
+
     @Test
     void a_fail_threshold_laxer_than_its_warning_is_exit_2_naming_the_key_and_line() throws IOException {
         CliRun run = check("ms_warn: 2\nphase_margin_fail_deg: 40\n");

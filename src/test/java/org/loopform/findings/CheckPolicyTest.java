@@ -44,6 +44,23 @@ class CheckPolicyTest {
                 .hasMessageContaining("fail only where it would also warn");
     }
 
+    @ParameterizedTest(name = "{0} = {1}")
+    @CsvSource({
+            "ms_warn, 1000, ms_fail, 1000, above 10",
+            "gain_margin_warn, 1, gain_margin_fail, 1, below 1.1",
+            "phase_margin_warn_deg, 0, phase_margin_fail_deg, 0, below 5"})
+    void no_policy_switches_off_the_edge_of_instability(String warn, double warnValue, String fail, double value,
+            String says) {
+        // loopform policy (common practice): Ms 10, GM 1.1 or PM 5 deg is the edge of instability
+        assertThatThrownBy(() -> CheckPolicy.DEFAULT.with(Map.of(warn, warnValue, fail, value)))
+                .isInstanceOf(PolicyException.class)
+                .hasMessageContaining(fail + ": must not be " + says)
+                .hasMessageContaining("fails whatever the policy");
+        double laxest = Double.parseDouble(says.substring(6));
+        assertThat(CheckPolicy.DEFAULT.with(Map.of(warn, laxest, fail, laxest)).get(PolicyKey.byId(fail)))
+                .isEqualTo(laxest);
+    }
+
     @Test
     void a_fail_threshold_equal_to_its_warning_is_allowed() {
         assertThat(CheckPolicy.DEFAULT.with(Map.of("gain_margin_fail", 2.0)).gainMarginFail()).isEqualTo(2.0);

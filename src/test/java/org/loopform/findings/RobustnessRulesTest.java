@@ -120,9 +120,9 @@ class RobustnessRulesTest {
 
     @Test
     void an_unstable_loop_raises_no_margin_findings_and_fails_by_its_poles_whatever_the_policy() {
-        CheckPolicy lax = CheckPolicy.DEFAULT.with(java.util.Map.of("ms_warn", 1000.0, "ms_fail", 1000.0,
-                "phase_margin_fail_deg", 0.0, "phase_margin_warn_deg", 0.0, "gain_margin_fail", 0.0,
-                "gain_margin_warn", 0.0, "delay_margin_fail_scans", 0.0, "delay_margin_warn_scans", 0.0));
+        CheckPolicy lax = CheckPolicy.DEFAULT.with(java.util.Map.of("ms_warn", 10.0, "ms_fail", 10.0,
+                "phase_margin_fail_deg", 5.0, "phase_margin_warn_deg", 5.0, "gain_margin_fail", 1.1,
+                "gain_margin_warn", 1.1, "delay_margin_fail_scans", 0.0, "delay_margin_warn_scans", 0.0));
         LoopMargins unstable = new LoopMargins(OptionalDouble.of(0.8), OptionalDouble.of(0.3),
                 OptionalDouble.of(-10), OptionalDouble.of(0.1), OptionalDouble.of(-1.7), 5, 0.2);
         // the margins of an unstable loop describe nothing to hold against thresholds
