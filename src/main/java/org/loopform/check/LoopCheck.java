@@ -171,7 +171,7 @@ public final class LoopCheck {
                 p.integrators() + (designLaw.terms().hasIntegral() ? 1 : 0));
         DesignLoop design = DesignLoop.of(loop, conversion, p, low);
         TargetLoop target = TargetLoop.of(loop.targetForm(), entered, targetPulse, h, p, low);
-        ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
+        ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators()).ifPresent(findings::add);
         findings.addAll(StabilityRule.evaluate(design.stability(), target.stability()));
 
         double horizon = Double.isNaN(horizonSeconds)

@@ -87,7 +87,7 @@ final class ConvertCommand implements Callable<Integer> {
         List<Finding> findings = new java.util.ArrayList<>(ConversionRules.findings(c, CheckPolicy.DEFAULT));
         if (process != null) {
             ProcessModel p = ProcessReader.fromOption(process, "--process", pvRange, outRange);
-            ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0).ifPresent(findings::add);
+            ActionRule.check(c.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators()).ifPresent(findings::add);
         }
         var out = spec.commandLine().getOut();
         out.print(format.format.renderer().conversion(c, findings, raw));

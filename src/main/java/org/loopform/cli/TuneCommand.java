@@ -159,7 +159,7 @@ final class TuneCommand implements Callable<Integer> {
                 org.loopform.findings.ConversionRules.findings(conv));
         boolean failed = org.loopform.findings.Finding.worst(convFindings) == Severity.FAIL;
         if (p != null) {
-            ActionRule.check(conv.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators() > 0)
+            ActionRule.check(conv.sourceLaw().terms(), p.lowFrequencyGain(), p.integrators())
                     .ifPresent(convFindings::add);
             if (scanSeconds != null) {
                 check = LoopCheck.run(new LoopSpec("tune", p, source, values, null, target, scanSeconds, pvRange,

@@ -23,19 +23,31 @@ public final class ActionRule {
      * A fail finding when the controller acts in the wrong direction for the process.
      *
      * @param controller the law's terms (signed gain, positive = reverse acting)
-     * @param processGain the process's low-frequency gain, %/% or %/s per % when it integrates
-     * @param integrating whether the process integrates (changes the words only)
+     * @param processGain the process's low-frequency gain {@code lim s^q G(s)}: %/% when it
+     *        regulates itself (q = 0), %/s per % when it integrates once (q = 1), %/s^q per % for q
+     *        integrators, % s^-q per % when it differentiates (q < 0)
+     * @param integrators q, the process's integrators less its differentiators at s = 0 (changes
+     *        the words and unit only)
      */
-    public static Optional<Finding> check(PidTerms controller, double processGain, boolean integrating) {
+    public static Optional<Finding> check(PidTerms controller, double processGain, int integrators) {
         double controllerGain = controller.i() != 0 ? controller.i() : controller.p();
         if (controllerGain == 0 || processGain == 0 || Math.signum(controllerGain) == Math.signum(processGain)) {
             return Optional.empty();
         }
-        String what = integrating ? "a process slope of " + Numbers.significant(processGain, 3) + " %/s per %"
-                : "a process gain of " + Numbers.significant(processGain, 3) + " %/%";
+        String unit = switch (integrators) {
+            case 0 -> "%/%";
+            case 1 -> "%/s per %";
+            case -1 -> "% s per %";
+            default -> integrators > 1 ? "%/s^" + integrators + " per %" : "% s^" + -integrators + " per %";
+        };
+        String name = switch (integrators) {
+            case 0 -> "a process gain of ";
+            case 1 -> "a process slope of ";
+            default -> "a low-frequency process gain of ";
+        };
+        String what = name + Numbers.significant(processGain, 3) + " " + unit;
         String needed = processGain < 0 ? "direct" : "reverse";
         String has = controllerGain < 0 ? "direct" : "reverse";
-        String unit = integrating ? "%/s per %" : "%/%";
         return Optional.of(new Finding(Topic.ACTION, Severity.FAIL, processGain, 0.0, unit, SOURCE,
                 "The controller acts in the wrong direction for this process: with " + what + " it must be " + needed
                         + " acting, but the tuning is " + has + " acting, so the loop is positive feedback and runs"
