@@ -235,9 +235,7 @@ public final class LoopSimulator {
                 break;
             }
             double next = pv0 + plant.scan(out - u0 + load);
-            for (int j = 0; j < between.length; j++) {
-                response.add(pv0 + between[j], out);
-            }
+            response.addHeld(pv0, between, between.length, out);
             pv = next;
         }
         return response.toResponse();
