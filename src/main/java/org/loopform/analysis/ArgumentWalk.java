@@ -280,23 +280,19 @@ final class ArgumentWalk {
     static double smallArctangent(double x) {
         double t = x / (1 + Math.sqrt(1 + x * x));
         double t2 = t * t;
-        // Horner's rule on the coefficients 1/29, 1/27, ..., 1/3, 1, innermost first, written out (no
-        // loop index, bounds check or table load a term under the client compiler the launcher runs)
-        double sum = 1.0 / 29;
-        sum = 1.0 / 27 - t2 * sum;
-        sum = 1.0 / 25 - t2 * sum;
-        sum = 1.0 / 23 - t2 * sum;
-        sum = 1.0 / 21 - t2 * sum;
-        sum = 1.0 / 19 - t2 * sum;
-        sum = 1.0 / 17 - t2 * sum;
-        sum = 1.0 / 15 - t2 * sum;
-        sum = 1.0 / 13 - t2 * sum;
-        sum = 1.0 / 11 - t2 * sum;
-        sum = 1.0 / 9 - t2 * sum;
-        sum = 1.0 / 7 - t2 * sum;
-        sum = 1.0 / 5 - t2 * sum;
-        sum = 1.0 / 3 - t2 * sum;
-        sum = 1.0 / 1 - t2 * sum;
+        double sum = ODD_RECIPROCALS[0];
+        for (int k = 1; k < ODD_RECIPROCALS.length; k++) {
+            sum = ODD_RECIPROCALS[k] - t2 * sum;
+        }
         return 2 * t * sum;
+    }
+
+    /** 1/29, 1/27, ..., 1/3, 1: the series' coefficients, innermost first. */
+    private static final double[] ODD_RECIPROCALS = new double[15];
+
+    static {
+        for (int k = 0; k < ODD_RECIPROCALS.length; k++) {
+            ODD_RECIPROCALS[k] = 1.0 / (29 - 2 * k);
+        }
     }
 }
