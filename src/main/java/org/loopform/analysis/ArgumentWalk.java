@@ -74,9 +74,7 @@ final class ArgumentWalk {
      */
     double change(double[] ts) {
         double[] sorted = ts.clone();
-        if (!ascending(sorted)) {
-            Arrays.sort(sorted);
-        }
+        Arrays.sort(sorted);
         wraps = 0;
         double[] left = new double[4];
         evaluate(sorted[0], left);
@@ -92,16 +90,6 @@ final class ArgumentWalk {
         }
         return principalArgumentOfReturnDifference(left) - principalArgumentOfReturnDifference(first)
                 + 2 * Math.PI * wraps;
-    }
-
-    /** Whether {@code v} is already in the order {@link Arrays#sort(double[])} puts it in (so sorting would leave it as it is). */
-    static boolean ascending(double[] v) {
-        for (int k = 1; k < v.length; k++) {
-            if (Double.compare(v[k - 1], v[k]) > 0) {
-                return false;
-            }
-        }
-        return true;
     }
 
     /** True when some step could not be resolved: 1 + L vanishes on (or within rounding of) the path. */

@@ -279,31 +279,6 @@ public final class SampledStability {
         out[1] = dr * fi + di * fr;
     }
 
-    /**
-     * The first {@code size} values of {@code v}, made of {@code runs} ascending runs starting at
-     * {@code runStarts}, merged into one ascending array (a run may be empty). Ties keep any order:
-     * equal values are the same double here (no -0.0, no NaN among the seeds).
-     */
-    static double[] mergeRuns(double[] v, int size, int[] runStarts, int runs) {
-        int[] head = new int[runs];
-        int[] end = new int[runs];
-        for (int r = 0; r < runs; r++) {
-            head[r] = runStarts[r];
-            end[r] = r + 1 < runs ? runStarts[r + 1] : size;
-        }
-        double[] merged = new double[size];
-        for (int k = 0; k < size; k++) {
-            int best = -1;
-            for (int r = 0; r < runs; r++) {
-                if (head[r] < end[r] && (best < 0 || v[head[r]] < v[head[best]])) {
-                    best = r;
-                }
-            }
-            merged[k] = v[head[best]++];
-        }
-        return merged;
-    }
-
     /** Counts closed-loop poles outside circles about 0. */
     private static final class Counter {
         private final SampledLoop loop;
@@ -363,11 +338,7 @@ public final class SampledStability {
             }
             double radius = 1 + offset;
             int openLoopOutside = 0;
-            // the seed points come in ascending runs (each pole's window, the base points, the
-            // log-spaced ones), merged rather than sorted: the same array Arrays.sort would give
             double[] points = new double[2 + BASE_POINTS + WINDOW.length * poles.size() + 64];
-            int[] runStarts = new int[poles.size() + 3];
-            int runs = 0;
             int size = 0;
             double finest = 1e-7;
             for (Complex p : poles) {
@@ -377,7 +348,6 @@ public final class SampledStability {
                 }
                 double width = Math.abs(r - radius) / radius;
                 double angle = Math.abs(Math.atan2(p.getImaginary(), p.getReal()));
-                runStarts[runs++] = size;
                 for (double k : WINDOW) {
                     double t = angle + k * width;
                     if (t > 0 && t < Math.PI) {
@@ -386,26 +356,27 @@ public final class SampledStability {
                     }
                 }
             }
-            runStarts[runs++] = size;
             points[size++] = 0.0;
+            points[size++] = Math.PI;
             for (int k = 1; k < BASE_POINTS; k++) {
                 points[size++] = Math.PI * k / BASE_POINTS;
             }
-            points[size++] = Math.PI;
             int decades = (int) Math.ceil(Math.log10(Math.PI / finest));
             if (size + decades * POINTS_PER_DECADE > points.length) {
                 points = java.util.Arrays.copyOf(points, size + decades * POINTS_PER_DECADE);
             }
-            runStarts[runs++] = size;
             for (int k = 0; k < decades * POINTS_PER_DECADE; k++) {
-                double t = finest * decadeStep(k);
-                // every point lies in [0, pi] by construction but the log-spaced ones may pass pi
-                if (t > Math.PI) {
-                    break;
-                }
-                points[size++] = t;
+                points[size++] = finest * decadeStep(k);
             }
-            double[] ts = mergeRuns(points, size, runStarts, runs);
+            // every point lies in [0, pi] by construction but the log-spaced ones may pass pi
+            int kept = 0;
+            for (int k = 0; k < size; k++) {
+                double t = points[k];
+                if (t >= 0 && t <= Math.PI) {
+                    points[kept++] = t;
+                }
+            }
+            double[] ts = java.util.Arrays.copyOf(points, kept);
             final double circle = offset;
             ArgumentWalk walk = new ArgumentWalk((theta, out) -> loop.at(circle, theta, out), loop.delayScans());
             double turns = walk.change(ts) / Math.PI;
