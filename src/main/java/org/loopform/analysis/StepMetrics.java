@@ -101,17 +101,9 @@ public record StepMetrics(
         int lastOutside = -1;
         double previous = 0;
         double previousTime = 0;
-        // the samples in order, step by step: sample k is sample j of step `step` (no division per sample)
-        int perStep = response.samplesPerStep();
-        int step = 0;
-        int j = 0;
         for (int k = 0; k < stored; k++) {
             double error = setpointPercent - response.processValuePercent(k);
-            double time = response.timeSeconds(step, j);
-            if (++j == perStep) {
-                j = 0;
-                step++;
-            }
+            double time = response.timeSeconds(k);
             double size = Math.abs(error);
             // a comparison, not a Math.max call: a response's samples are finite
             peak = size > peak ? size : peak;

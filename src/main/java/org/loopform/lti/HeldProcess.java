@@ -166,9 +166,6 @@ public final class HeldProcess {
             state[0] = lateA[0] * state[0] + lateB[0] * arriving;
             return d * arriving + c[0] * state[0];
         }
-        if (order == 1) {
-            return scanFirstOrder(arriving, leaving, between);
-        }
         int m = samplesPerScan();
         int written = 0;
         for (int j = 0; j < earlySteps; j++) {
@@ -186,39 +183,6 @@ public final class HeldProcess {
             }
         }
         throw new IllegalStateException("unreachable: a scan has at least one late sub-step");
-    }
-
-    /**
-     * {@link #scan} for a first-order process: the same sub-steps and the same operations in the same
-     * order as {@link #advance} and {@link #outputWith} (so the same rounding), written out in two
-     * loops with the coefficients in locals: a sub-sample is then a few multiplications and a store,
-     * with no call and no test (common practice; the calls dominated a sub-sample under the client
-     * compiler the launcher runs).
-     */
-    private double scanFirstOrder(double arriving, double leaving, double[] between) {
-        double x = state[0];
-        double c0 = c[0];
-        int written = 0;
-        if (earlySteps > 0) {
-            double a0 = earlyA[0];
-            double b0 = earlyB[0];
-            double dLeaving = d * leaving;
-            for (int j = 0; j < earlySteps; j++) {
-                x = a0 * x + b0 * leaving;
-                // at the switch (j = earlySteps - 1) this is the left limit: the old input still acts
-                between[written++] = dLeaving + c0 * x;
-            }
-        }
-        double a0 = lateA[0];
-        double b0 = lateB[0];
-        double dArriving = d * arriving;
-        for (int j = 1; j < lateSteps; j++) {
-            x = a0 * x + b0 * arriving;
-            between[written++] = dArriving + c0 * x;
-        }
-        x = a0 * x + b0 * arriving;
-        state[0] = x;
-        return dArriving + c0 * x;
     }
 
     private void advance(double[] a, double[] b, double v) {

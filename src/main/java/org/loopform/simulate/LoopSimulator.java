@@ -271,7 +271,9 @@ public final class LoopSimulator {
                 break;
             }
             double next = pv0 + plant.scan(out - u0 + load);
-            response.addHeld(pv0, between, between.length, out);
+            for (int j = 0; j < between.length; j++) {
+                response.add(pv0 + between[j], out);
+            }
             pv = next;
         }
         return response.toResponse();

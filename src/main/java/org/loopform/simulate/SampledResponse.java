@@ -125,27 +125,6 @@ public final class SampledResponse {
         return m == 1 ? k * stepSeconds : (k / m) * stepSeconds + offsetsSeconds[k % m];
     }
 
-    /**
-     * Samples per step: the sample instants within each scan of a response recorded between scans,
-     * 1 on a uniform step or for times given one by one. Sample {@code k} is sample
-     * {@code k % samplesPerStep()} of step {@code k / samplesPerStep()}.
-     */
-    public int samplesPerStep() {
-        return offsetsSeconds == null ? 1 : offsetsSeconds.length;
-    }
-
-    /**
-     * The time of sample {@code sample} of step {@code step}, that is of sample
-     * {@code step * samplesPerStep() + sample}: the same value as {@link #timeSeconds(int)} gives it,
-     * without the division a reader walking the samples in order does not need.
-     */
-    public double timeSeconds(int step, int sample) {
-        if (timesSeconds != null) {
-            return timesSeconds[step];
-        }
-        return offsetsSeconds.length == 1 ? step * stepSeconds : step * stepSeconds + offsetsSeconds[sample];
-    }
-
     public double processValuePercent(int k) {
         return processValuesPercent[k < stored ? k : checkedTail(k)];
     }
@@ -256,22 +235,6 @@ public final class SampledResponse {
             processValuesPercent[count] = processValuePercent;
             controllerOutputsPercent[count] = controllerOutputPercent;
             count++;
-        }
-
-        /**
-         * Records {@code count} samples at the next instants of the grid: process values
-         * {@code biasPercent + deviationsPercent[j]}, each with the controller output {@code controllerOutputPercent}
-         * (the sub-instants of one scan, over which the output is held).
-         */
-        public void addHeld(double biasPercent, double[] deviationsPercent, int count, double controllerOutputPercent) {
-            double[] pv = processValuesPercent;
-            double[] out = controllerOutputsPercent;
-            int at = this.count;
-            for (int j = 0; j < count; j++) {
-                pv[at + j] = biasPercent + deviationsPercent[j];
-                out[at + j] = controllerOutputPercent;
-            }
-            this.count = at + count;
         }
 
         /** The response recorded; every sample must have been added and be finite. */

@@ -81,30 +81,6 @@ class SampledResponseRecorderTest {
     }
 
     @Test
-    void between_scans_takes_a_scan_s_held_sub_samples_at_once_and_names_each_time_by_scan_and_sub_instant() {
-        SampledResponse.Recorder r = SampledResponse.recorder(2, 5.0, new double[] {0.0, 1.0, 3.0});
-        r.add(50, 40);
-        r.addHeld(50, new double[] {1, 2, 99}, 2, 40);
-        r.add(53, 41);
-        r.addHeld(50, new double[] {4, 5}, 2, 41);
-        r.add(56, 42);
-        SampledResponse response = r.toResponse();
-
-        assertThat(response.processValuesPercent()).containsExactly(50, 51, 52, 53, 54, 55, 56);
-        assertThat(response.controllerOutputsPercent()).containsExactly(40, 40, 40, 41, 41, 41, 42);
-        assertThat(response.samplesPerStep()).isEqualTo(3);
-        // scan 1's sub-instant 2 is 5 s + 3 s; the end is scan 2's first instant, 10 s
-        assertThat(response.timeSeconds(1, 2)).isEqualTo(8.0);
-        assertThat(response.timeSeconds(2, 0)).isEqualTo(10.0);
-        assertThat(threeSamples().samplesPerStep()).isEqualTo(1);
-        assertThat(threeSamples().timeSeconds(2, 0)).isEqualTo(2 * 0.1);
-        SampledResponse given = SampledResponse.of(new double[] {0.0, 0.25, 0.5}, new double[] {1, 2, 3},
-                new double[] {0, 0, 0});
-        assertThat(given.samplesPerStep()).isEqualTo(1);
-        assertThat(given.timeSeconds(1, 0)).isEqualTo(0.25);
-    }
-
-    @Test
     void between_scans_refuses_sub_instants_that_do_not_start_at_0_or_leave_the_scan() {
         assertThatThrownBy(() -> SampledResponse.recorder(2, 5.0, new double[] {0.5, 1.0}))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("start at 0 s");
