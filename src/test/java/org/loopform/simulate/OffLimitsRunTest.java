@@ -1,3 +1,4 @@
+// source: hand derivations (the proportional kick, the static loop gain), written out beside each check
 package org.loopform.simulate;
 
 import static org.assertj.core.api.Assertions.assertThat;
