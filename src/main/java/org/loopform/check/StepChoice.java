@@ -34,26 +34,30 @@ record StepChoice(StepTest steps, ClosedLoopRun targetRun, List<Finding> finding
     static StepChoice run(StepTest standard, FormDefinition target, PidSetting entered, double scanSeconds,
                           SampledStateSpace process, org.loopform.lti.TransferFunction g, double deadTimeSeconds,
                           boolean stable) {
-        ClosedLoopRun run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g,
-                deadTimeSeconds, scanSeconds, standard, stable);
         if (!stable) {
-            return new StepChoice(standard, run, List.of());
+            return new StepChoice(standard, LoopSimulator.runBetweenScans(ScanController.of(target, entered,
+                    scanSeconds), g, deadTimeSeconds, scanSeconds, standard, false), List.of());
         }
         double low = target.algorithm().outputLowPercent();
         double high = target.algorithm().outputHighPercent();
+        // the run under the standard steps is kept only when its output stays off the limits
+        // (OutputExtremes.reaches); one that reaches a limit is cut there
+        Optional<ClosedLoopRun> offLimits = LoopSimulator.runBetweenScansOffLimits(ScanController.of(target, entered,
+                scanSeconds), g, deadTimeSeconds, scanSeconds, standard, low, high);
+        ClosedLoopRun run = offLimits.orElse(null);
         Optional<SaturationRules.LinearOutput> linearOutput = Optional.empty();
         StepTest steps = standard;
-        if (OutputExtremes.of(run.setpoint()).reaches(low, high) || OutputExtremes.of(run.load()).reaches(low, high)) {
+        if (offLimits.isEmpty()) {
             ClosedLoopRun linear = LoopSimulator.run(ScanController.unlimited(entered, target.filter().placement(),
                     target.algorithm(), scanSeconds), process, standard, true);
             OutputExtremes linearSetpoint = OutputExtremes.of(linear.setpoint());
             OutputExtremes linearLoad = OutputExtremes.of(linear.load());
             linearOutput = Optional.of(new SaturationRules.LinearOutput(linearSetpoint, linearLoad));
             steps = standard.scaledToStayWithin(linearSetpoint, linearLoad, low, high);
-            if (!steps.equals(standard)) {
-                run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g, deadTimeSeconds,
-                        scanSeconds, steps, true);
-            }
+            // the cut run is not kept: the run under the steps chosen (the standard ones again, should the
+            // linear loop leave room enough; a loop reaches a limit only once its linear output does)
+            run = LoopSimulator.runBetweenScans(ScanController.of(target, entered, scanSeconds), g, deadTimeSeconds,
+                    scanSeconds, steps, true);
         }
         List<Finding> findings = SaturationRules.evaluate(new SaturationRules.Inputs(standard, steps, run.setpoint(),
                 run.load(), linearOutput, low, high));

@@ -105,6 +105,31 @@ public final class LoopSimulator {
         return new ClosedLoopRun(sp, load, scanSeconds);
     }
 
+    /**
+     * {@link #runBetweenScans} of a loop proven stable, cut short as soon as the controller output
+     * written at a scan reaches {@code lowPercent} or {@code highPercent} (at or past it): then
+     * empty, else the run itself, sample for sample the one {@link #runBetweenScans} gives. For a
+     * caller that keeps a run only when its output stays off the limits: an output that reaches
+     * one is seen at the scan where it does, since the output changes only at the scans, and the
+     * rest of that run (and the load run, when the setpoint run reaches a limit) is not simulated.
+     */
+    public static java.util.Optional<ClosedLoopRun> runBetweenScansOffLimits(ScanController controller,
+            TransferFunction g, double deadTimeSeconds, double scanSeconds, StepTest test, double lowPercent,
+            double highPercent) {
+        int steps = Math.max(2, (int) Math.ceil(test.horizonSeconds() / scanSeconds));
+        HeldProcess held = HeldProcess.of(g, deadTimeSeconds, scanSeconds, subStepSeconds(g, test));
+        Plant plant = new Plant(null, held);
+        int quiet = quietScans(test, scanSeconds, deadTimeSeconds);
+        SampledResponse sp = simulate(controller, plant, test, steps, scanSeconds, true, quiet, lowPercent, highPercent);
+        if (sp == null) {
+            return java.util.Optional.empty();
+        }
+        SampledResponse load = simulate(controller, plant, test, steps, scanSeconds, false, quiet, lowPercent,
+                highPercent);
+        return load == null ? java.util.Optional.empty()
+                : java.util.Optional.of(new ClosedLoopRun(sp, load, scanSeconds));
+    }
+
     /** A quiet window no run reaches: the loop is simulated to the end of its horizon. */
     private static final int NEVER = Integer.MAX_VALUE;
 
@@ -214,6 +239,14 @@ public final class LoopSimulator {
 
     private static SampledResponse simulate(ScanController c, Plant plant, StepTest test, int steps,
                                             double h, boolean setpointStep, int quietNeeded) {
+        return simulate(c, plant, test, steps, h, setpointStep, quietNeeded, Double.NEGATIVE_INFINITY,
+                Double.POSITIVE_INFINITY);
+    }
+
+    /** The run, or null as soon as an output written reaches {@code stopLow} or {@code stopHigh}. */
+    private static SampledResponse simulate(ScanController c, Plant plant, StepTest test, int steps,
+                                            double h, boolean setpointStep, int quietNeeded, double stopLow,
+                                            double stopHigh) {
         double pv0 = test.operatingPvPercent();
         double u0 = test.operatingOutputPercent();
         double r = pv0 + (setpointStep ? test.setpointStepPercent() : 0.0);
@@ -229,6 +262,9 @@ public final class LoopSimulator {
         double previousOut = u0;
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
+            if (out <= stopLow || out >= stopHigh) {
+                return null;
+            }
             response.add(pv, out);
             // settled: PV on its setpoint and the output still, both within a hair of the step, for a
             // good while; the rest of the horizon would only repeat these values
