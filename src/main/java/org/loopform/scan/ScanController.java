@@ -67,6 +67,8 @@ public final class ScanController {
     private double previousDerivativeTerm;
     private double outputPercent;
     private double unlimitedPercent;
+    /** Whether the last scan's output was clipped or its integral held by clamping: the loop was not linear. */
+    private boolean limitsActed;
 
     private ScanController(PidSetting setting, FilterPlacement placement, DiscreteAlgorithm algorithm,
                            double scanSeconds, boolean limited) {
@@ -162,6 +164,7 @@ public final class ScanController {
         integral = outputPercent - previousProportional;
         this.outputPercent = outputPercent;
         this.unlimitedPercent = outputPercent;
+        this.limitsActed = false;
     }
 
     /** One scan: reads setpoint and PV (%), returns the output (%) written this scan. */
@@ -207,6 +210,7 @@ public final class ScanController {
         }
         this.outputPercent = u;
         this.unlimitedPercent = u;
+        this.limitsActed = false;
     }
 
     // The two forms' output steps live in their own methods to keep update() small enough for
@@ -217,21 +221,26 @@ public final class ScanController {
         double unlimited = outputPercent + (proportional - previousProportional) + integralIncrement
                 + (derivativeTerm - previousDerivativeTerm);
         unlimitedPercent = unlimited;
-        return limited ? limit(unlimited) : unlimited;
+        double output = limited ? limit(unlimited) : unlimited;
+        limitsActed = output != unlimited;
+        return output;
     }
 
     /** The positional form's output this scan, with anti-windup; sets the integral and {@link #unlimitedPercent}. */
     private double positionalScan(double proportional, double integralIncrement, double derivativeTerm) {
         double nextIntegral = integral + integralIncrement;
         double unlimited = proportional + nextIntegral + derivativeTerm;
+        boolean held = false;
         if (limited && antiWindup == AntiWindup.CLAMPING
                 && ((unlimited > highPercent && integralIncrement > 0)
                 || (unlimited < lowPercent && integralIncrement < 0))) {
             // conditional integration: keep the integral where it was while it would push further into the limit
             nextIntegral = integral;
             unlimited = proportional + nextIntegral + derivativeTerm;
+            held = true;
         }
         double output = limited ? limit(unlimited) : unlimited;
+        limitsActed = held || output != unlimited;
         if (limited && antiWindup == AntiWindup.BACK_CALCULATION) {
             nextIntegral += trackingGain * (output - unlimited);
         }
@@ -260,6 +269,14 @@ public final class ScanController {
     /** The output written by the last scan (or set by {@link #reset}), %. */
     public double outputPercent() {
         return outputPercent;
+    }
+
+    /**
+     * Whether the output limits acted in the last scan: the output was clipped, or clamping held the
+     * integral (the output can then stay just inside a limit while the loop is no longer linear).
+     */
+    public boolean limitsActedLastScan() {
+        return limitsActed;
     }
 
     /** The last scan's output before limiting (v), %. */

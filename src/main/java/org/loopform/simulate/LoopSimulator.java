@@ -107,7 +107,8 @@ public final class LoopSimulator {
 
     /**
      * {@link #runBetweenScans} of a loop proven stable, cut short as soon as the controller output
-     * written at a scan reaches {@code lowPercent} or {@code highPercent} (at or past it): then
+     * written at a scan reaches {@code lowPercent} or {@code highPercent} (at or past it), or the limits act
+     * without it (clamping holds the integral while the output stays just inside): then
      * empty, else the run itself, sample for sample the one {@link #runBetweenScans} gives. For a
      * caller that keeps a run only when its output stays off the limits: an output that reaches
      * one is seen at the scan where it does, since the output changes only at the scans, and the
@@ -243,7 +244,11 @@ public final class LoopSimulator {
                 Double.POSITIVE_INFINITY);
     }
 
-    /** The run, or null as soon as an output written reaches {@code stopLow} or {@code stopHigh}. */
+    /**
+     * The run, or null as soon as an output written reaches {@code stopLow} or {@code stopHigh}, or (when
+     * either is finite) the limits act in a scan without the output reaching them (clamping held the
+     * integral: the loop is no longer linear).
+     */
     private static SampledResponse simulate(ScanController c, Plant plant, StepTest test, int steps,
                                             double h, boolean setpointStep, int quietNeeded, double stopLow,
                                             double stopHigh) {
@@ -260,9 +265,10 @@ public final class LoopSimulator {
         int quiet = 0;
         boolean moved = false;
         double previousOut = u0;
+        boolean stops = stopLow > Double.NEGATIVE_INFINITY || stopHigh < Double.POSITIVE_INFINITY;
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
-            if (out <= stopLow || out >= stopHigh) {
+            if (stops && (out <= stopLow || out >= stopHigh || c.limitsActedLastScan())) {
                 return null;
             }
             response.add(pv, out);

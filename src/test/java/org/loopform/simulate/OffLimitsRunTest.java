@@ -69,4 +69,29 @@ class OffLimitsRunTest {
         assertThat(LoopSimulator.runBetweenScansOffLimits(proportional(1), LAG, 1.0, 0.1, StepTest.standard(60), 39, 100))
                 .isPresent();
     }
+
+    /**
+     * PI (parallel, kp 1, ki 2/s, backward integral: increment ki h e) with clamping, limits 0..61 %: at
+     * the first scan of the 10 % setpoint step P = 10, the integral 50 + 0.2 x 10 = 52 would make
+     * 62 % > 61 %, so clamping holds it at 50 and the output is 60 %, inside the limit. The PV stays still
+     * for the 1 s dead time, so the next scans do the same. The output never reaches 61 %, yet the limits
+     * acted and the loop is not linear: the run is cut like one that reaches the limit (hand derivation;
+     * conditional integration as anti-windup: Astrom and Hagglund 2006, ch. 3, from memory).
+     */
+    @Test
+    void a_run_whose_integral_clamping_holds_below_the_limit_is_cut_too() {
+        PidSetting pi = new PidSetting(Structure.PARALLEL, 1.0, 2.0, 0.0, 0.0, 1.0, 0.0);
+        DiscreteAlgorithm algorithm = new DiscreteAlgorithm(AlgorithmKind.POSITIONAL, Discretization.BACKWARD,
+                Discretization.BACKWARD, AntiWindup.CLAMPING, 0.0, 0.0, 61.0, List.of(), 0.0, Double.MAX_VALUE);
+        ScanController c = ScanController.limited(pi, FilterPlacement.DERIVATIVE, algorithm, 0.1);
+        c.reset(50, 50, 50);
+        assertThat(c.update(60, 50)).isCloseTo(60.0, within(1e-12));
+        assertThat(c.limitsActedLastScan()).isTrue();
+        c.reset(50, 50, 50);
+        assertThat(c.update(50, 50)).isCloseTo(50.0, within(1e-12));
+        assertThat(c.limitsActedLastScan()).isFalse();
+
+        assertThat(LoopSimulator.runBetweenScansOffLimits(ScanController.limited(pi, FilterPlacement.DERIVATIVE,
+                algorithm, 0.1), LAG, 1.0, 0.1, StepTest.standard(60), 0, 61)).isEmpty();
+    }
 }
