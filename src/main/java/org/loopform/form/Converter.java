@@ -194,6 +194,9 @@ public final class Converter {
             return;
         }
         PidSetting withDefault;
+        // the textbook values as a person would enter them: with the same default filter setting
+        PidSetting textbookWithDefault = textbookDiffers && textbookSetting != null
+                ? project(textbookSetting, to, law.terms()) : null;
         String parameter;
         double needed;
         double defaultValue;
@@ -205,6 +208,10 @@ public final class Converter {
                 return;
             }
             withDefault = result.withFilterSeconds(td / nDefault);
+            if (textbookWithDefault != null) {
+                textbookWithDefault = textbookWithDefault.withFilterSeconds(
+                        textbookWithDefault.derivativeTimeSeconds() / nDefault);
+            }
             parameter = "n";
             needed = n;
             defaultValue = nDefault;
@@ -215,6 +222,9 @@ public final class Converter {
                 return;
             }
             withDefault = result.withFilterSeconds(tfDefault);
+            if (textbookWithDefault != null) {
+                textbookWithDefault = textbookWithDefault.withFilterSeconds(tfDefault);
+            }
             parameter = "tf";
             needed = to.filter().unit().fromSeconds(result.filterSeconds());
             defaultValue = to.filter().defaultTime();
@@ -226,12 +236,18 @@ public final class Converter {
         boolean seriesInvolved = from.structure() != to.structure() && (from.structure() == Structure.SERIES
                 || to.structure() == Structure.SERIES);
         Optional<LawDeviation> textbookCost = Optional.empty();
-        if (textbookDiffers && textbookSetting != null) {
+        if (textbookWithDefault != null) {
             textbookCost = Optional.of(LawDeviation.ofFeedback(law, StructureLaw.toLaw(
-                    project(textbookSetting, to, law.terms()), to.filter().placement()), lives));
+                    textbookWithDefault, to.filter().placement()), lives));
         }
+        double sourceTf = src.filterSeconds();
+        boolean kept = sourceTf == 0 ? result.filterSeconds() == 0
+                : Math.abs(sourceTf * td / src.derivativeTimeSeconds() - result.filterSeconds())
+                        <= TEXTBOOK_DIFFERS * result.filterSeconds()
+                  || to.filter().kind() == FilterKind.TIME_CONSTANT
+                        && Math.abs(sourceTf - result.filterSeconds()) <= TEXTBOOK_DIFFERS * sourceTf;
         notes.add(new ConversionNote.FilterSettingNeeded(parameter, needed, defaultValue, unit, seriesInvolved,
-                src.filterSeconds(), cost, textbookCost));
+                sourceTf, kept, cost, textbookCost));
     }
 
     /** Feedback path first: a setpoint-path gain never buys a feedback-path loss. */
