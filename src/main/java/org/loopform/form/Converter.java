@@ -26,8 +26,8 @@ public final class Converter {
      * weighs one unit (the fail limits of the default policy, {@code fit_fail_db} and
      * {@code fit_fail_deg}; a weighting, not a threshold).
      */
-    static final double FIT_SCALE_GAIN_DB = 3.0;
-    static final double FIT_SCALE_PHASE_DEG = 20.0;
+    public static final double FIT_SCALE_GAIN_DB = 3.0;
+    public static final double FIT_SCALE_PHASE_DEG = 20.0;
 
     private Converter() {
     }
@@ -132,6 +132,15 @@ public final class Converter {
                 textbookValues = t;
             }
         }
+        Optional<LawDeviation> textbookLoopDeviation = Optional.empty();
+        if (!exact && textbookValues != null) {
+            try {
+                textbookLoopDeviation = Optional.of(LawDeviation.ofFeedback(law, StructureLaw.toLaw(
+                        project(textbookSetting, to, law.terms()), to.filter().placement()), lives));
+            } catch (IllegalArgumentException e) {
+                // the target cannot write the textbook values at all: nothing to set beside the fit
+            }
+        }
         if (exact) {
             explainExactFilter(from, src, to, result, law, textbookSetting, textbookValues != null, lives, notes);
         }
@@ -143,7 +152,7 @@ public final class Converter {
             enteredLaw = checkRounding(to, written, entered, targetLaw, band, ctx, notes);
         }
         return new Conversion(from, to, src, law, result, targetLaw, enteredLaw, exact, written, entered, deviation,
-                band, notes, textbookValues, assumptions, lives, loopDeviation, refused);
+                band, notes, textbookValues, assumptions, lives, loopDeviation, refused, textbookLoopDeviation);
     }
 
     /**

@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
 import org.loopform.findings.Finding;
 import org.loopform.form.Conversion;
+import org.loopform.form.Converter;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.FormUnits;
@@ -58,10 +59,24 @@ public final class ConversionReport {
                 .append(nl));
         if (tb != null) {
             sb.append("  textbook: the relations for laws without a derivative filter (").append(TEXTBOOK_SOURCE)
-                    .append(c.exact() ? "). They differ from the exact values because the old derivative filter"
-                            + " enters the conversion; see the filter finding."
-                            : "), that is the values kept. The nearest setting differs from them because the new form"
-                            + " cannot write the old law exactly; it is closer where the loop lives.").append(nl);
+                    .append(")");
+            if (c.exact()) {
+                sb.append(". They differ from the exact values because the old derivative filter enters the"
+                        + " conversion; see the filter finding.");
+            } else {
+                // the textbook values are the old ones only when the structure is the same
+                sb.append(c.from().structure() == c.to().structure() ? ", that is the values kept" : "")
+                        .append(". The new form cannot write the old law exactly");
+                c.textbookLoopDeviation().ifPresent(d -> sb.append(": the textbook values as the new form holds them"
+                        + " deviate by up to ").append(Numbers.deviation(d.gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(d.phaseDegrees())).append(" deg where the loop lives, the nearest"
+                        + " setting by up to ").append(Numbers.deviation(c.loopDeviation().gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(c.loopDeviation().phaseDegrees()))
+                        .append(" deg (the fit weighs ").append(Numbers.plain(Converter.FIT_SCALE_GAIN_DB))
+                        .append(" dB as much as ").append(Numbers.plain(Converter.FIT_SCALE_PHASE_DEG)).append(" deg)"));
+                sb.append('.');
+            }
+            sb.append(nl);
         }
         sb.append(nl);
         if (c.exact()) {

@@ -46,6 +46,22 @@ class PrintedDigitsTest {
         assertThat(longNumbers(r.out(), 6)).isEmpty();
     }
 
+    /**
+     * The textbook line says "the values kept" only where the structure is the same (ideal into
+     * ideal), never for series into ideal, where the textbook relations (Astrom & Hagglund 1995
+     * sec. 3.4) change every value. Plumbing of the wording; the figures are tested in
+     * form.ExplainedConversionTest.
+     */
+    @Test
+    void the_textbook_line_says_values_kept_only_for_the_same_structure() {
+        CliRun series = CliRun.of("convert", "--from", "series", "--to", "ideal-unfiltered", "kc=2", "ti=10", "td=2");
+        assertThat(series.out()).contains("textbook:").doesNotContain("values kept")
+                .contains("the textbook values as the new form holds them deviate by up to 0.243 dB and 13.5 deg where the loop lives");
+        CliRun ideal = CliRun.of("convert", "--from", "ideal", "--to", "ideal-fixed-n8", "kc=1", "ti=60", "td=10");
+        assertThat(ideal.out()).contains("that is the values kept")
+                .contains("the textbook values as the new form holds them deviate by up to 0.107 dB and 2.08 deg where the loop lives");
+    }
+
     @Test
     void the_number_scanner_finds_what_it_should() {
         assertThat(longNumbers("kc 1.7459463691836428 %/% and 1.74 and 0.000265 and 6.28", 6))

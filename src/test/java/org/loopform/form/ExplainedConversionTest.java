@@ -189,6 +189,25 @@ class ExplainedConversionTest {
                             .doesNotContain("different share"));
         }
 
+        /**
+         * The textbook values beside a nearest fit are priced where the loop lives, so the reader can
+         * see the trade the fit made. Series 2/10/2 (N = 10) into the unfiltered ideal form: the
+         * textbook values 2.4, 12 s, 1.667 s (Astrom & Hagglund 1995 sec. 3.4) deviate from
+         * 2 (1 + 1/(10 s))(1 + 2 s)/(1 + 0.2 s) by 0.243 dB and 13.5 deg over 0.04167 to 1.2 rad/s
+         * (numpy, 4000 points). Ideal 1/60/10 (N = 10) into ideal-fixed-n8: the values kept, with
+         * N = 8, deviate by 0.107 dB and 2.08 deg over 0.0082 to 0.185 rad/s (numpy).
+         */
+        @Test
+        void prices_the_textbook_values_beside_the_nearest_fit() {
+            Conversion unfiltered = convert("series", "kc=2 ti=10 td=2", "ideal-unfiltered");
+            assertThat(unfiltered.exact()).isFalse();
+            assertThat(unfiltered.textbookLoopDeviation().orElseThrow().gainDb()).isCloseTo(0.243, within(0.002));
+            assertThat(unfiltered.textbookLoopDeviation().orElseThrow().phaseDegrees()).isCloseTo(13.5, within(0.05));
+            Conversion kept = convert("ideal", "kc=1 ti=60 td=10", "ideal-fixed-n8");
+            assertThat(kept.textbookLoopDeviation().orElseThrow().gainDb()).isCloseTo(0.107, within(0.002));
+            assertThat(kept.textbookLoopDeviation().orElseThrow().phaseDegrees()).isCloseTo(2.08, within(0.02));
+        }
+
         @Test
         void n_off_reads_as_no_filter() {
             PidSetting s = FormCodec.decode(form("ideal"), values("kc=1 ti=60 td=10 n=off"), WritingContext.NONE,
