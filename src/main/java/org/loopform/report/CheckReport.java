@@ -190,7 +190,7 @@ public final class CheckReport {
         p.put("to", c.to().id());
         p.put("exact", c.exact());
         ConversionReport.putValues(p.putObject("converted"), c.parameters());
-        ConversionReport.putValues(p.putObject("entered"), c.entered());
+        ConversionReport.putEntered(p.putObject("entered"), c);
         if (!c.refused().isEmpty()) {
             ObjectNode dne = p.putObject("do_not_enter");
             c.refused().forEach(dne::put);

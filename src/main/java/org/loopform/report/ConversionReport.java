@@ -130,6 +130,23 @@ public final class ConversionReport {
         });
     }
 
+    /**
+     * Puts the values to enter as the text prints them: a form's resolution where it names one,
+     * else {@link #DIGITS} significant digits (the conversion keeps more, so that the checked law is
+     * the converted one; a person enters these, and JSON says the same as the text and loops.csv).
+     */
+    static void putEntered(ObjectNode n, Conversion c) {
+        c.entered().values().forEach((k, v) -> {
+            if (FormCodec.isFilterOff(k, v)) {
+                n.put(k, FormCodec.OFF);
+            } else if (c.to().limit(k).resolution() != null) {
+                n.put(k, v);
+            } else {
+                n.put(k, Double.parseDouble(Numbers.significant(v, DIGITS)));
+            }
+        });
+    }
+
     /** {@code c} and its {@code findings} as JSON. */
     public static String json(Conversion c, java.util.List<Finding> findings) {
         ObjectNode n = Json.object();
@@ -139,7 +156,7 @@ public final class ConversionReport {
         putValues(n.putObject("parameters"), c.parameters());
         ObjectNode units = n.putObject("units");
         c.parameters().values().keySet().forEach(k -> units.put(k, FormUnits.of(c.to(), k)));
-        putValues(n.putObject("entered"), c.entered());
+        putEntered(n.putObject("entered"), c);
         if (c.textbook() != null) {
             ObjectNode tb = n.putObject("textbook");
             for (String k : java.util.List.of(c.to().gainName(), c.to().integralName(), c.to().derivativeName())) {

@@ -62,6 +62,25 @@ class PrintedDigitsTest {
                 .contains("the textbook values as the new form holds them deviate by up to 0.107 dB and 2.08 deg where the loop lives");
     }
 
+    /**
+     * JSON's entered values are what the text says to enter: six significant digits for a form
+     * without a resolution. Series 2/10/2 (N = 10) into ideal is exact with Td = 4/2.36 - 0.2 =
+     * 1.4949152... s (derived in form.ExplainedConversionTest), entered as 1.49492 s; the converted
+     * value keeps its ten digits.
+     */
+    @Test
+    void json_entered_values_are_the_values_the_text_says_to_enter() throws Exception {
+        CliRun r = CliRun.of("convert", "--from", "series", "--to", "ideal", "kc=2", "ti=10", "td=2", "--format", "json");
+        assertThat(r.exitCode()).isZero();
+        var json = new com.fasterxml.jackson.databind.ObjectMapper().readTree(r.out());
+        assertThat(json.get("entered").get("td").asDouble()).isEqualTo(1.49492);
+        assertThat(json.get("entered").get("kc").asDouble()).isEqualTo(2.36);
+        assertThat(json.get("parameters").get("td").asDouble())
+                .isCloseTo(4 / 2.36 - 0.2, org.assertj.core.api.Assertions.within(1e-9));
+        CliRun text = CliRun.of("convert", "--from", "series", "--to", "ideal", "kc=2", "ti=10", "td=2");
+        assertThat(text.out()).containsPattern("td\\s+1\\.49492\\s+s\\s+1\\.49492");
+    }
+
     @Test
     void the_number_scanner_finds_what_it_should() {
         assertThat(longNumbers("kc 1.7459463691836428 %/% and 1.74 and 0.000265 and 6.28", 6))
