@@ -91,7 +91,7 @@ public final class LoopCheck {
                 comparison.map(c -> c.design().margins()), comparison.map(c -> c.target().margins()),
                 Optional.of(discretization),
                 mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true),
-                sourceFacts(loop, conversion)), policy));
+                sourceFacts(loop, conversion), sourceDiscretization(loop, conversion, mismatchBand)), policy));
         compared.ifPresent(c -> {
             findings.addAll(c.stepFindings());
             findings.addAll(responseFindings(c.comparison(), h, policy));
@@ -111,6 +111,24 @@ public final class LoopCheck {
                     + " --scan for every loop");
         }
         return loop.targetScanSeconds();
+    }
+
+    /**
+     * What its own scan did to the old controller: its continuous law against its discrete run, over
+     * the band the new one is judged on, cut at the old scan's Nyquist frequency; empty for a
+     * continuous design.
+     */
+    private static Optional<LawDeviation> sourceDiscretization(LoopSpec loop, Conversion conversion,
+                                                               FrequencyBand band) {
+        Double scan = loop.sourceScanSeconds();
+        if (scan == null) {
+            return Optional.empty();
+        }
+        FormDefinition from = loop.sourceForm();
+        PulseLaw old = PulseLaw.of(conversion.sourceSetting(), from.filter().placement(), from.algorithm(), scan);
+        double top = Math.min(band.highRadPerSecond(), Math.PI / scan);
+        double low = Math.min(band.lowRadPerSecond(), top / 100);
+        return Optional.of(ControllerMismatch.over(conversion.sourceLaw(), old, new FrequencyBand(low, top)));
     }
 
     /** The old controller's scan facts when the design loop runs it at its own scan; empty for a continuous design. */
