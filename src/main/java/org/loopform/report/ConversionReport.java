@@ -27,7 +27,9 @@ public final class ConversionReport {
         StringBuilder sb = new StringBuilder();
         sb.append("From ").append(c.from().id()).append("  (").append(c.from().title()).append(')').append(nl);
         TextTable src = new TextTable("parameter", "given", "unit");
-        sourceValues.forEach((k, v) -> src.row(k, v, k.equals("action") ? "" : FormUnits.of(c.from(), k)));
+        // a value typed with its own unit (ti=120s) is read in that unit, not the form's
+        sourceValues.forEach((k, v) -> src.row(k, v, k.equals("action") ? ""
+                : isPlainNumber(v) ? FormUnits.of(c.from(), k) : "as typed"));
         sb.append(src.render(2));
         sb.append(nl).append("To   ").append(c.to().id()).append("  (").append(c.to().title()).append(')').append(nl);
         WrittenTuning w = c.parameters();
@@ -103,6 +105,10 @@ public final class ConversionReport {
         sb.append(FindingText.render(findings));
         sb.append(nl).append(Cautions.SHORT).append(nl);
         return sb.toString();
+    }
+
+    private static boolean isPlainNumber(String text) {
+        return text.trim().matches("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
     }
 
     /** "Assumed:" and one line per assumption, or nothing. */

@@ -81,6 +81,23 @@ class PrintedDigitsTest {
         assertThat(text.out()).containsPattern("td\\s+1\\.49492\\s+s\\s+1\\.49492");
     }
 
+    /** check's conversion line gives the nearest fit's deviation where the loop lives before the whole band's. */
+    @Test
+    void check_says_how_close_the_fit_is_where_the_loop_lives() {
+        CliRun r = CliRun.of("check", "examples/loops/tic-301.yaml");
+        assertThat(r.out()).containsPattern("conversion: nearest setting, feedback path within [0-9.<> ]+ dB and [0-9.<> ]+"
+                + " deg where the loop lives \\([0-9.]+ to [0-9.]+ rad/s\\), [0-9.]+ dB and [0-9.]+ deg over the whole band");
+    }
+
+    /** A source value typed with its own unit is not shown beside the form's unit. */
+    @Test
+    void a_value_typed_with_its_unit_is_not_labelled_with_the_forms_unit() {
+        CliRun r = CliRun.of("convert", "--from", "series-pb-min", "--to", "ideal", "pb=50%", "ti=120s", "td=0.1h");
+        assertThat(r.out()).containsPattern("ti\\s+120s\\s+as typed").doesNotContain("120s   min/repeat");
+        CliRun plain = CliRun.of("convert", "--from", "series-pb-min", "--to", "ideal", "pb=50", "ti=2", "td=6");
+        assertThat(plain.out()).containsPattern("ti\\s+2\\s+min/repeat");
+    }
+
     @Test
     void the_number_scanner_finds_what_it_should() {
         assertThat(longNumbers("kc 1.7459463691836428 %/% and 1.74 and 0.000265 and 6.28", 6))
