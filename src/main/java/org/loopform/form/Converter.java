@@ -56,6 +56,18 @@ public final class Converter {
      */
     public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
                                             FormDefinition to, WritingContext ctx, FrequencyBand loopBand) {
+        return convertBetween(from, values, fromCtx, to, ctx, loopBand, null);
+    }
+
+    /**
+     * As {@link #convertBetween(FormDefinition, Map, WritingContext, FormDefinition, WritingContext,
+     * FrequencyBand)}, the nearest fit's frequencies also weighted by {@code loopWeight} (rad/s to a
+     * weight >= 0; with a process, the design loop's |S T|, which peaks at the crossover); null: none.
+     * The candidates are still judged unweighted over {@code loopBand}.
+     */
+    public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
+                                            FormDefinition to, WritingContext ctx, FrequencyBand loopBand,
+                                            java.util.function.DoubleUnaryOperator loopWeight) {
         List<ConversionNote> notes = new ArrayList<>();
         List<String> assumptions = new ArrayList<>();
         PidSetting src = FormCodec.decode(from, values, fromCtx, "source");
@@ -94,7 +106,7 @@ public final class Converter {
             // textbook values with the target's filter; the best where the loop lives wins, so the fit
             // is never worse there than keeping the values
             List<PidSetting> candidates = new ArrayList<>();
-            candidates.add(new NearestFit(to, law, band, lives).fit(start));
+            candidates.add(new NearestFit(to, law, band, lives, loopWeight).fit(start));
             candidates.add(start);
             if (textbookSetting != null) {
                 candidates.add(project(textbookSetting, to, law.terms()));

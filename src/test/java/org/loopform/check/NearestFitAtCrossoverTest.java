@@ -22,7 +22,7 @@ import org.loopform.law.ControlLaw;
  * crossover (|C P| = 1, bisection in numpy), the source law's response and the deviation of the
  * textbook values (Astrom & Hagglund 1995 sec. 3.4) as the target holds them, at a tenth to three
  * times the crossover. With the process known the check weights the nearest fit around the
- * crossover, so the fit must be no worse there than entering the textbook values (plus 0.01 dB /
+ * crossover (by the design loop's |S T| from a decade below to three times it), so the fit must be no worse there than entering the textbook values (plus 0.01 dB /
  * 0.1 deg for the fit's own tolerance); for the invented demo loop TIC-301 also at the crossover
  * itself, where the textbook values are 0.0178 dB and 0.868 deg off.
  */
@@ -76,6 +76,20 @@ class NearestFitAtCrossoverTest {
         }
         assertThat(fitDb).as("gain deviation around crossover, dB").isLessThanOrEqualTo(keptDb + 0.01);
         assertThat(fitDeg).as("phase deviation around crossover, deg").isLessThanOrEqualTo(keptDeg + 0.1);
+    }
+
+    /**
+     * The process's weight, |S T| = |L| / |1 + L|^2, derived by hand for a P controller (K = 1) on
+     * 1/(1 + s): L = 1/(1 + i w), 1 + L = (2 + i w)/(1 + i w), so |S T| = sqrt(1 + w^2)/(4 + w^2):
+     * 1/4 at w = 0.001 (to 1e-6), sqrt(2)/5 at 1 rad/s, sqrt(5)/8 at 2 rad/s.
+     */
+    @Test
+    void the_process_weight_is_the_design_loops_s_times_t() {
+        var weight = LoopCheck.loopEmphasis(new ControlLaw(new org.loopform.law.PidTerms(1, 0, 0, 0, 1, 0)),
+                new org.loopform.process.FirstOrderPlusDeadTime(1, 1, 0));
+        assertThat(weight.applyAsDouble(0.001)).isCloseTo(0.25, org.assertj.core.api.Assertions.within(1e-6));
+        assertThat(weight.applyAsDouble(1)).isCloseTo(Math.sqrt(2) / 5, org.assertj.core.api.Assertions.within(1e-12));
+        assertThat(weight.applyAsDouble(2)).isCloseTo(Math.sqrt(5) / 8, org.assertj.core.api.Assertions.within(1e-12));
     }
 
     @Test
