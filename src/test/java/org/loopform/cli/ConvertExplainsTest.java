@@ -38,4 +38,11 @@ class ConvertExplainsTest {
                 .containsPattern("td\\s+61\\.2973\\s+s\\s+61\\.2973\\s+90\\b")
                 .contains("Exact with n = 1.703 instead of ideal's default n = 10");
     }
+
+    /** Plumbing: a form's description says how to write "no filter" for an adjustable filter. */
+    @Test
+    void forms_show_says_how_to_write_no_filter() {
+        assertThat(CliRun.of("forms", "show", "ideal").out()).contains("n=off: no filter");
+        assertThat(CliRun.of("forms", "show", "ideal-pv-filter").out()).contains("tf=off: no filter");
+    }
 }
