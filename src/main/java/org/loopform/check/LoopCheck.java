@@ -91,7 +91,7 @@ public final class LoopCheck {
                 comparison.map(c -> c.design().margins()), comparison.map(c -> c.target().margins()),
                 Optional.of(discretization),
                 mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true),
-                sourceFacts(loop, conversion)), policy));
+                sourceFacts(loop, conversion), sourceDiscretization(loop, conversion, mismatchBand)), policy));
         compared.ifPresent(c -> {
             findings.addAll(c.stepFindings());
             findings.addAll(responseFindings(c.comparison(), h, policy));
@@ -113,6 +113,24 @@ public final class LoopCheck {
         return loop.targetScanSeconds();
     }
 
+    /**
+     * What its own scan did to the old controller: its continuous law against its discrete run, over
+     * the band the new one is judged on, cut at the old scan's Nyquist frequency; empty for a
+     * continuous design.
+     */
+    private static Optional<LawDeviation> sourceDiscretization(LoopSpec loop, Conversion conversion,
+                                                               FrequencyBand band) {
+        Double scan = loop.sourceScanSeconds();
+        if (scan == null) {
+            return Optional.empty();
+        }
+        FormDefinition from = loop.sourceForm();
+        PulseLaw old = PulseLaw.of(conversion.sourceSetting(), from.filter().placement(), from.algorithm(), scan);
+        double top = Math.min(band.highRadPerSecond(), Math.PI / scan);
+        double low = Math.min(band.lowRadPerSecond(), top / 100);
+        return Optional.of(ControllerMismatch.over(conversion.sourceLaw(), old, new FrequencyBand(low, top)));
+    }
+
     /** The old controller's scan facts when the design loop runs it at its own scan; empty for a continuous design. */
     private static Optional<ScanFacts> sourceFacts(LoopSpec loop, Conversion conversion) {
         Double scan = loop.sourceScanSeconds();
@@ -124,7 +142,7 @@ public final class LoopCheck {
      * The tuning converted to the target. Where the target cannot hold the law exactly and the process is
      * known, the nearest fit is weighted where this loop lives: a decade below to three times above the
      * design loop's crossover (the source law with the process, continuous), rather than around the law's
-     * own corners.
+     * own corners, and within it by the design loop's |S T| ({@link #loopEmphasis}).
      */
     private static Conversion convert(LoopSpec loop, WritingContext ctx, double h) {
         try {
@@ -136,12 +154,37 @@ public final class LoopCheck {
             }
             Optional<FrequencyBand> lives = aroundCrossover(c.sourceLaw(), loop.process(), h);
             return lives.isEmpty() ? c : Converter.convertBetween(loop.sourceForm(), loop.tuning(), sourceCtx,
-                    loop.targetForm(), ctx, lives.get());
+                    loop.targetForm(), ctx, lives.get(), loopEmphasis(c.sourceLaw(), loop.process()));
         } catch (FormException e) {
             throw new FormException(loop.whereOf(e.getMessage()) + ": loop " + loop.tag() + ": tuning: "
                     + e.getMessage());
         }
     }
+
+    /**
+     * The weight the process gives each frequency in the nearest fit: |S T| = |L| / |1 + L|^2 of the
+     * continuous design loop L = C_y P. To first order a relative error e of the controller changes the
+     * sensitivity S by -T e and the complementary sensitivity T by S e (relative; Astrom and Murray,
+     * Feedback Systems, 2008, ch. 12 - from memory), so |S T| is where an error of the controller moves
+     * the loop most: it peaks around the crossover and falls off on both sides. Capped where
+     * |1 + L| nears 0 (a loop at its stability limit).
+     */
+    static java.util.function.DoubleUnaryOperator loopEmphasis(ControlLaw law, ProcessModel p) {
+        return omega -> {
+            double[] c = new double[2];
+            double[] g = new double[2];
+            law.feedbackAt(omega, c);
+            p.responseAt(omega, g);
+            double re = c[0] * g[0] - c[1] * g[1];
+            double im = c[0] * g[1] + c[1] * g[0];
+            double loopGain = Math.hypot(re, im);
+            double returnDifference = Math.hypot(1 + re, im);
+            return loopGain / Math.max(returnDifference * returnDifference, EMPHASIS_FLOOR);
+        };
+    }
+
+    /** |1 + L|^2 below this reads as this: the weight of a frequency where the loop is marginal stays finite. */
+    private static final double EMPHASIS_FLOOR = 1e-6;
 
     /** From a decade below to three times the continuous design loop's crossover; empty without one. */
     static Optional<FrequencyBand> aroundCrossover(ControlLaw law, ProcessModel p, double h) {

@@ -28,6 +28,7 @@ import org.loopform.report.AuditInfo;
 import org.loopform.report.AuditRendering;
 import org.loopform.report.HtmlReport;
 import org.loopform.report.AuditRows;
+import org.loopform.report.Json;
 import org.loopform.report.AuditReplayRows;
 import org.loopform.audit.AuditRecords;
 
@@ -175,12 +176,13 @@ final class AuditRunner {
                         writtenAt(reproducibleTime), s.settingsText(), s.signOff(),
                         VersionProvider.version(), files, s.policy());
                 Map<String, ObjectNode> more = new LinkedHashMap<>();
-                more.put("signoff", AuditRows.signOffJson(info));
-                more.put("provenance", AuditRows.provenanceJson(info));
+                // every number as the printed JSON has it: no binary noise (117.99999999999999)
+                more.put("signoff", Json.tidy(AuditRows.signOffJson(info)));
+                more.put("provenance", Json.tidy(AuditRows.provenanceJson(info)));
                 if (chainData != null) {
-                    more.put("chain", org.loopform.report.ChainSection.json(chainData));
+                    more.put("chain", Json.tidy(org.loopform.report.ChainSection.json(chainData)));
                 }
-                output.finish(AuditRows.summaryJson(summary), more, (doc, index, sections) ->
+                output.finish(Json.tidy(AuditRows.summaryJson(summary)), more, (doc, index, sections) ->
                         HtmlReport.writeDocument(doc, summary, info, index, sections, chain));
             }
         } finally {

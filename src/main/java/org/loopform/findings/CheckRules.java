@@ -44,12 +44,14 @@ public final class CheckRules {
     /**
      * What the rules look at. The loops' margins are there only with a process model (absent without
      * one); {@code mismatch} is the controller as run against its own continuous law, absent where
-     * it was not computed.
+     * it was not computed; {@code sourceMismatch} the same for the old controller at its own scan
+     * (absent for a continuous design), so that a condition it already had is said so.
      */
     public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts,
                          Optional<LoopMargins> designLoop, Optional<LoopMargins> targetLoop,
                          Optional<LawDeviation> mismatch, double mismatchBandHighRadPerSecond,
-                         boolean targetStable, Optional<ScanFacts> sourceFacts) {
+                         boolean targetStable, Optional<ScanFacts> sourceFacts,
+                         Optional<LawDeviation> sourceMismatch) {
 
         public Inputs {
             Objects.requireNonNull(targetForm, "targetForm");
@@ -58,6 +60,7 @@ public final class CheckRules {
             Objects.requireNonNull(targetLoop, "targetLoop (Optional.empty() without a process model)");
             Objects.requireNonNull(mismatch, "mismatch (Optional.empty() when not computed)");
             Objects.requireNonNull(sourceFacts, "sourceFacts (Optional.empty() for a continuous design)");
+            Objects.requireNonNull(sourceMismatch, "sourceMismatch (Optional.empty() for a continuous design)");
         }
 
         /**
@@ -68,7 +71,8 @@ public final class CheckRules {
                       LoopMargins targetLoop, LawDeviation mismatch, double mismatchBandHighRadPerSecond,
                       boolean targetStable) {
             this(targetForm, scanSeconds, facts, Optional.ofNullable(designLoop), Optional.ofNullable(targetLoop),
-                    Optional.ofNullable(mismatch), mismatchBandHighRadPerSecond, targetStable, Optional.empty());
+                    Optional.ofNullable(mismatch), mismatchBandHighRadPerSecond, targetStable, Optional.empty(),
+                    Optional.empty());
         }
 
         /** The loop whose crossover the sampling rules read: the target's, else the design's; absent without a process. */
@@ -222,11 +226,27 @@ public final class CheckRules {
         }
         LawDeviation d = in.mismatch().get();
         if ((d.gainDb() > p.mismatchWarnDb() || d.phaseDegrees() > p.mismatchWarnDegrees())) {
-            out.add(new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
+            Finding departs = new Finding(Topic.DISCRETIZATION, Severity.WARN, d.gainDb(), p.mismatchWarnDb(), "dB", COMMON,
                     "At this scan the new controller as it will run departs from its own continuous law by up to "
                     + Numbers.significant(d.gainDb(), 3) + " dB and " + Numbers.significant(d.phaseDegrees(), 3)
                     + " deg over its band (to " + Numbers.significant(in.mismatchBandHighRadPerSecond(), 3)
-                    + " rad/s, at most the Nyquist frequency)."));
+                    + " rad/s, at most the Nyquist frequency).");
+            // the old controller, run at its own scan, departed from its own law too: said so, and info
+            // unless the migration makes it worse (in gain and in phase)
+            Optional<LawDeviation> old = in.sourceMismatch().filter(o -> o.gainDb() > p.mismatchWarnDb()
+                    || o.phaseDegrees() > p.mismatchWarnDegrees());
+            if (old.isPresent() && in.sourceFacts().isPresent()) {
+                LawDeviation o = old.get();
+                String was = " The old controller had the same condition (up to " + Numbers.significant(o.gainDb(), 3)
+                        + " dB and " + Numbers.significant(o.phaseDegrees(), 3) + " deg at its "
+                        + Numbers.plain(in.sourceFacts().get().scanSeconds()) + " s scan)";
+                boolean worse = d.gainDb() > o.gainDb() * (1 + NOT_WORSE_SHARE)
+                        || d.phaseDegrees() > o.phaseDegrees() * (1 + NOT_WORSE_SHARE);
+                departs = new Finding(departs.topic(), worse ? departs.severity() : Severity.INFO, departs.figure(),
+                        departs.threshold(), departs.unit(), departs.source(), departs.message() + was + (worse ? ": the migration makes it worse."
+                        : ": the migration does not make it worse."));
+            }
+            out.add(departs);
         }
     }
 

@@ -165,7 +165,12 @@ public final class ConversionRules {
         LawDeviation cost = n.defaultCost();
         StringBuilder m = new StringBuilder("Exact with " + needed + " instead of " + c.to().id() + "'s default "
                 + defaultText + ": ");
-        if (n.seriesInvolved()) {
+        if (n.sourceFilterSeconds() == 0) {
+            m.append("the old law has no derivative filter, and ").append(needed).append(" writes it so. ");
+        } else if (n.sourceFilterKept() && !n.seriesInvolved()) {
+            m.append("the old controller's own filter (Tf = ").append(Numbers.significant(n.sourceFilterSeconds(), 4))
+                    .append(" s) is kept as it was. ");
+        } else if (n.seriesInvolved()) {
             m.append("a series controller filters its derivative lead-lag K(1 + 1/(Ti s))(1 + Td s)/(1 + Tf s), and"
                     + " written in the other structure that same filter time is a different share of the derivative"
                     + " time. ");

@@ -24,19 +24,22 @@ import org.loopform.law.LawDeviation;
  * @param loopDeviation the feedback path's deviation over {@code loopBand}
  * @param refused      values the target does not accept, by parameter name, with the reason: the
  *                     entry sheet marks them "do not enter"
+ * @param textbookLoopDeviation for an inexact conversion with {@code textbook} values: their feedback
+ *                     path's deviation over {@code loopBand}, written with the target's filter rule
+ *                     (what entering them would give), beside the nearest setting's {@code loopDeviation}
  */
 public record Conversion(FormDefinition from, FormDefinition to, PidSetting sourceSetting, ControlLaw sourceLaw,
                          PidSetting targetSetting, ControlLaw targetLaw, ControlLaw enteredLaw, boolean exact,
                          WrittenTuning parameters, WrittenTuning entered, LawDeviation deviation,
                          FrequencyBand band, List<ConversionNote> notes, WrittenTuning textbook,
                          List<String> assumptions, FrequencyBand loopBand, LawDeviation loopDeviation,
-                         Map<String, String> refused) {
+                         Map<String, String> refused, java.util.Optional<LawDeviation> textbookLoopDeviation) {
 
     public Conversion {
         notes = List.copyOf(notes);
         assumptions = List.copyOf(assumptions);
         refused = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(refused));
-        if (loopBand == null || loopDeviation == null) {
+        if (loopBand == null || loopDeviation == null || textbookLoopDeviation == null) {
             throw new IllegalArgumentException("a conversion needs the band where the loop lives and its deviation there");
         }
     }

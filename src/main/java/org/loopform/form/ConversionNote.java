@@ -41,13 +41,17 @@ public sealed interface ConversionNote {
      * @param defaultValue       the target's default setting, in the same unit
      * @param unitSymbol         the unit of a time constant, empty for a ratio
      * @param seriesInvolved     whether source or target is a series controller of another structure
-     * @param sourceFilterSeconds the source's filter time constant, s
+     * @param sourceFilterSeconds the source's filter time constant, s (0: the source has no filter)
+     * @param sourceFilterKept   whether the setting needed is the source's own (the same ratio, or
+     *                           the same filter time), so only the target's default differs
      * @param defaultCost        the feedback deviation, where the loop lives, of entering the
      *                           exact values with the default filter
-     * @param textbookCost       the same for the textbook values, when they differ from the exact ones
+     * @param textbookCost       the same for the textbook values entered with the default filter,
+     *                           when they differ from the exact ones
      */
     record FilterSettingNeeded(String parameter, double neededValue, double defaultValue, String unitSymbol,
-                               boolean seriesInvolved, double sourceFilterSeconds, LawDeviation defaultCost,
+                               boolean seriesInvolved, double sourceFilterSeconds, boolean sourceFilterKept,
+                               LawDeviation defaultCost,
                                Optional<LawDeviation> textbookCost) implements ConversionNote {
     }
 

@@ -26,8 +26,8 @@ public final class Converter {
      * weighs one unit (the fail limits of the default policy, {@code fit_fail_db} and
      * {@code fit_fail_deg}; a weighting, not a threshold).
      */
-    static final double FIT_SCALE_GAIN_DB = 3.0;
-    static final double FIT_SCALE_PHASE_DEG = 20.0;
+    public static final double FIT_SCALE_GAIN_DB = 3.0;
+    public static final double FIT_SCALE_PHASE_DEG = 20.0;
 
     private Converter() {
     }
@@ -56,6 +56,18 @@ public final class Converter {
      */
     public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
                                             FormDefinition to, WritingContext ctx, FrequencyBand loopBand) {
+        return convertBetween(from, values, fromCtx, to, ctx, loopBand, null);
+    }
+
+    /**
+     * As {@link #convertBetween(FormDefinition, Map, WritingContext, FormDefinition, WritingContext,
+     * FrequencyBand)}, the nearest fit's frequencies also weighted by {@code loopWeight} (rad/s to a
+     * weight >= 0; with a process, the design loop's |S T|, which peaks at the crossover); null: none.
+     * The candidates are still judged unweighted over {@code loopBand}.
+     */
+    public static Conversion convertBetween(FormDefinition from, Map<String, String> values, WritingContext fromCtx,
+                                            FormDefinition to, WritingContext ctx, FrequencyBand loopBand,
+                                            java.util.function.DoubleUnaryOperator loopWeight) {
         List<ConversionNote> notes = new ArrayList<>();
         List<String> assumptions = new ArrayList<>();
         PidSetting src = FormCodec.decode(from, values, fromCtx, "source");
@@ -94,7 +106,7 @@ public final class Converter {
             // textbook values with the target's filter; the best where the loop lives wins, so the fit
             // is never worse there than keeping the values
             List<PidSetting> candidates = new ArrayList<>();
-            candidates.add(new NearestFit(to, law, band, lives).fit(start));
+            candidates.add(new NearestFit(to, law, band, lives, loopWeight).fit(start));
             candidates.add(start);
             if (textbookSetting != null) {
                 candidates.add(project(textbookSetting, to, law.terms()));
@@ -132,6 +144,15 @@ public final class Converter {
                 textbookValues = t;
             }
         }
+        Optional<LawDeviation> textbookLoopDeviation = Optional.empty();
+        if (!exact && textbookValues != null) {
+            try {
+                textbookLoopDeviation = Optional.of(LawDeviation.ofFeedback(law, StructureLaw.toLaw(
+                        project(textbookSetting, to, law.terms()), to.filter().placement()), lives));
+            } catch (IllegalArgumentException e) {
+                // the target cannot write the textbook values at all: nothing to set beside the fit
+            }
+        }
         if (exact) {
             explainExactFilter(from, src, to, result, law, textbookSetting, textbookValues != null, lives, notes);
         }
@@ -143,7 +164,7 @@ public final class Converter {
             enteredLaw = checkRounding(to, written, entered, targetLaw, band, ctx, notes);
         }
         return new Conversion(from, to, src, law, result, targetLaw, enteredLaw, exact, written, entered, deviation,
-                band, notes, textbookValues, assumptions, lives, loopDeviation, refused);
+                band, notes, textbookValues, assumptions, lives, loopDeviation, refused, textbookLoopDeviation);
     }
 
     /**
@@ -194,6 +215,9 @@ public final class Converter {
             return;
         }
         PidSetting withDefault;
+        // the textbook values as a person would enter them: with the same default filter setting
+        PidSetting textbookWithDefault = textbookDiffers && textbookSetting != null
+                ? project(textbookSetting, to, law.terms()) : null;
         String parameter;
         double needed;
         double defaultValue;
@@ -205,6 +229,10 @@ public final class Converter {
                 return;
             }
             withDefault = result.withFilterSeconds(td / nDefault);
+            if (textbookWithDefault != null) {
+                textbookWithDefault = textbookWithDefault.withFilterSeconds(
+                        textbookWithDefault.derivativeTimeSeconds() / nDefault);
+            }
             parameter = "n";
             needed = n;
             defaultValue = nDefault;
@@ -215,6 +243,9 @@ public final class Converter {
                 return;
             }
             withDefault = result.withFilterSeconds(tfDefault);
+            if (textbookWithDefault != null) {
+                textbookWithDefault = textbookWithDefault.withFilterSeconds(tfDefault);
+            }
             parameter = "tf";
             needed = to.filter().unit().fromSeconds(result.filterSeconds());
             defaultValue = to.filter().defaultTime();
@@ -226,12 +257,18 @@ public final class Converter {
         boolean seriesInvolved = from.structure() != to.structure() && (from.structure() == Structure.SERIES
                 || to.structure() == Structure.SERIES);
         Optional<LawDeviation> textbookCost = Optional.empty();
-        if (textbookDiffers && textbookSetting != null) {
+        if (textbookWithDefault != null) {
             textbookCost = Optional.of(LawDeviation.ofFeedback(law, StructureLaw.toLaw(
-                    project(textbookSetting, to, law.terms()), to.filter().placement()), lives));
+                    textbookWithDefault, to.filter().placement()), lives));
         }
+        double sourceTf = src.filterSeconds();
+        boolean kept = sourceTf == 0 ? result.filterSeconds() == 0
+                : Math.abs(sourceTf * td / src.derivativeTimeSeconds() - result.filterSeconds())
+                        <= TEXTBOOK_DIFFERS * result.filterSeconds()
+                  || to.filter().kind() == FilterKind.TIME_CONSTANT
+                        && Math.abs(sourceTf - result.filterSeconds()) <= TEXTBOOK_DIFFERS * sourceTf;
         notes.add(new ConversionNote.FilterSettingNeeded(parameter, needed, defaultValue, unit, seriesInvolved,
-                src.filterSeconds(), cost, textbookCost));
+                sourceTf, kept, cost, textbookCost));
     }
 
     /** Feedback path first: a setpoint-path gain never buys a feedback-path loss. */

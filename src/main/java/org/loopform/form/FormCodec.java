@@ -187,13 +187,17 @@ public final class FormCodec {
 
     /**
      * A written value as a person reads and types it: "off" for a filter switched off, the
-     * resolution's digits where the form names a resolution, else {@code digits} significant digits.
+     * resolution's digits for a value on the resolution's grid (a value to enter), else
+     * {@code digits} significant digits (an unrounded conversion shown beside it: 1.74367, never
+     * 1.7436702884375173).
      */
     public static String show(FormDefinition form, String name, double value, int digits) {
         if (isFilterOff(name, value)) {
             return OFF;
         }
-        return form.limit(name).resolution() != null ? Numbers.plain(value)
+        ParameterLimit limit = form.limit(name);
+        // round() is exact decimal arithmetic, so a value already on the grid rounds to itself
+        return limit.resolution() != null && limit.round(value) == value ? Numbers.plain(value)
                 : Numbers.significant(value, digits);
     }
 

@@ -52,12 +52,23 @@ final class NearestFit {
     private final boolean freeFilter;
 
     NearestFit(FormDefinition target, ControlLaw source, FrequencyBand band, FrequencyBand lives) {
+        this(target, source, band, lives, null);
+    }
+
+    /**
+     * As {@link #NearestFit(FormDefinition, ControlLaw, FrequencyBand, FrequencyBand)}, each frequency's
+     * weight multiplied by {@code loopWeight} (the loop's own emphasis, for example |S T| of the design
+     * loop when the process is known; null: none).
+     */
+    NearestFit(FormDefinition target, ControlLaw source, FrequencyBand band, FrequencyBand lives,
+               java.util.function.DoubleUnaryOperator loopWeight) {
         this.target = target;
         this.source = source;
         this.omegas = band.grid(FIT_POINTS);
         this.weights = new double[omegas.length];
         for (int k = 0; k < omegas.length; k++) {
-            weights[k] = weight(omegas[k], lives);
+            double extra = loopWeight == null ? 1.0 : loopWeight.applyAsDouble(omegas[k]);
+            weights[k] = weight(omegas[k], lives) * (Double.isFinite(extra) && extra >= 0 ? extra : 1.0);
         }
         PidTerms t = source.terms();
         this.sign = Math.signum(t.p() != 0 ? t.p() : t.d() != 0 ? t.d() : t.i());

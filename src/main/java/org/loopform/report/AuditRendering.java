@@ -37,7 +37,8 @@ public final class AuditRendering {
             if (o.replay() != null) {
                 node.set("replay", AuditReplayRows.json(o.replay()));
             }
-            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(node);
+            // the replay block is built with raw doubles: tidied here as every printed JSON is
+            String json = MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(Json.tidy(node));
             String plain = null;
             String plotted = null;
             String index = null;

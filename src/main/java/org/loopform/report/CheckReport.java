@@ -53,7 +53,12 @@ public final class CheckReport {
         c.refused().forEach((k, why) -> sb.append("  ").append(k).append(": do not enter; ").append(why).append('.')
                 .append(nl));
         sb.append("  conversion: ").append(c.exact() ? "exact" : "nearest setting, feedback path within "
-                + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees()) + " deg").append(nl);
+                + Numbers.deviation(c.loopDeviation().gainDb()) + " dB and "
+                + Numbers.deviation(c.loopDeviation().phaseDegrees()) + " deg where the loop lives ("
+                + Numbers.significant(c.loopBand().lowRadPerSecond(), 3) + " to "
+                + Numbers.significant(c.loopBand().highRadPerSecond(), 3) + " rad/s), "
+                + Numbers.deviation(c.deviation().gainDb()) + " dB and " + Numbers.deviation(c.deviation().phaseDegrees())
+                + " deg over the whole band").append(nl);
         sb.append("  new controller as run vs ").append(ref.law()).append(": up to ").append(Numbers.deviation(r.mismatch().gainDb())).append(" dB, ")
                 .append(Numbers.deviation(r.mismatch().phaseDegrees())).append(" deg").append(nl).append(nl);
         if (r.hasProcess()) {
@@ -190,7 +195,7 @@ public final class CheckReport {
         p.put("to", c.to().id());
         p.put("exact", c.exact());
         ConversionReport.putValues(p.putObject("converted"), c.parameters());
-        ConversionReport.putValues(p.putObject("entered"), c.entered());
+        ConversionReport.putEntered(p.putObject("entered"), c);
         if (!c.refused().isEmpty()) {
             ObjectNode dne = p.putObject("do_not_enter");
             c.refused().forEach(dne::put);

@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Map;
 import org.loopform.findings.Finding;
 import org.loopform.form.Conversion;
+import org.loopform.form.Converter;
 import org.loopform.form.FormCodec;
 import org.loopform.form.FormDefinition;
 import org.loopform.form.FormUnits;
@@ -26,7 +27,9 @@ public final class ConversionReport {
         StringBuilder sb = new StringBuilder();
         sb.append("From ").append(c.from().id()).append("  (").append(c.from().title()).append(')').append(nl);
         TextTable src = new TextTable("parameter", "given", "unit");
-        sourceValues.forEach((k, v) -> src.row(k, v, k.equals("action") ? "" : FormUnits.of(c.from(), k)));
+        // a value typed with its own unit (ti=120s) is read in that unit, not the form's
+        sourceValues.forEach((k, v) -> src.row(k, v, k.equals("action") ? ""
+                : isPlainNumber(v) ? FormUnits.of(c.from(), k) : "as typed"));
         sb.append(src.render(2));
         sb.append(nl).append("To   ").append(c.to().id()).append("  (").append(c.to().title()).append(')').append(nl);
         WrittenTuning w = c.parameters();
@@ -58,10 +61,24 @@ public final class ConversionReport {
                 .append(nl));
         if (tb != null) {
             sb.append("  textbook: the relations for laws without a derivative filter (").append(TEXTBOOK_SOURCE)
-                    .append(c.exact() ? "). They differ from the exact values because the old derivative filter"
-                            + " enters the conversion; see the filter finding."
-                            : "), that is the values kept. The nearest setting differs from them because the new form"
-                            + " cannot write the old law exactly; it is closer where the loop lives.").append(nl);
+                    .append(")");
+            if (c.exact()) {
+                sb.append(". They differ from the exact values because the old derivative filter enters the"
+                        + " conversion; see the filter finding.");
+            } else {
+                // the textbook values are the old ones only when the structure is the same
+                sb.append(c.from().structure() == c.to().structure() ? ", that is the values kept" : "")
+                        .append(". The new form cannot write the old law exactly");
+                c.textbookLoopDeviation().ifPresent(d -> sb.append(": the textbook values as the new form holds them"
+                        + " deviate by up to ").append(Numbers.deviation(d.gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(d.phaseDegrees())).append(" deg where the loop lives, the nearest"
+                        + " setting by up to ").append(Numbers.deviation(c.loopDeviation().gainDb())).append(" dB and ")
+                        .append(Numbers.deviation(c.loopDeviation().phaseDegrees()))
+                        .append(" deg (the fit weighs ").append(Numbers.plain(Converter.FIT_SCALE_GAIN_DB))
+                        .append(" dB as much as ").append(Numbers.plain(Converter.FIT_SCALE_PHASE_DEG)).append(" deg)"));
+                sb.append('.');
+            }
+            sb.append(nl);
         }
         sb.append(nl);
         if (c.exact()) {
@@ -90,6 +107,10 @@ public final class ConversionReport {
         return sb.toString();
     }
 
+    private static boolean isPlainNumber(String text) {
+        return text.trim().matches("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
+    }
+
     /** "Assumed:" and one line per assumption, or nothing. */
     static String assumptionsText(java.util.List<String> assumptions) {
         if (assumptions.isEmpty()) {
@@ -115,6 +136,23 @@ public final class ConversionReport {
         });
     }
 
+    /**
+     * Puts the values to enter as the text prints them: a form's resolution where it names one,
+     * else {@link #DIGITS} significant digits (the conversion keeps more, so that the checked law is
+     * the converted one; a person enters these, and JSON says the same as the text and loops.csv).
+     */
+    static void putEntered(ObjectNode n, Conversion c) {
+        c.entered().values().forEach((k, v) -> {
+            if (FormCodec.isFilterOff(k, v)) {
+                n.put(k, FormCodec.OFF);
+            } else if (c.to().limit(k).resolution() != null) {
+                n.put(k, v);
+            } else {
+                n.put(k, Double.parseDouble(Numbers.significant(v, DIGITS)));
+            }
+        });
+    }
+
     /** {@code c} and its {@code findings} as JSON. */
     public static String json(Conversion c, java.util.List<Finding> findings) {
         ObjectNode n = Json.object();
@@ -124,7 +162,7 @@ public final class ConversionReport {
         putValues(n.putObject("parameters"), c.parameters());
         ObjectNode units = n.putObject("units");
         c.parameters().values().keySet().forEach(k -> units.put(k, FormUnits.of(c.to(), k)));
-        putValues(n.putObject("entered"), c.entered());
+        putEntered(n.putObject("entered"), c);
         if (c.textbook() != null) {
             ObjectNode tb = n.putObject("textbook");
             for (String k : java.util.List.of(c.to().gainName(), c.to().integralName(), c.to().derivativeName())) {

@@ -65,10 +65,10 @@ public final class FormReport {
             case NONE -> "none";
             case FIXED_RATIO -> "fixed ratio N = " + Numbers.plain(s.ratio()) + " (Tf = Td/N), on the "
                     + lower(s.placement());
-            case RATIO -> "adjustable ratio n, default " + Numbers.plain(s.ratio()) + " (Tf = Td/n), on the "
-                    + lower(s.placement());
+            case RATIO -> "adjustable ratio n, default " + Numbers.plain(s.ratio()) + " (Tf = Td/n; n=off: no filter),"
+                    + " on the " + lower(s.placement());
             case TIME_CONSTANT -> "time constant tf in " + s.unit().symbol() + ", default "
-                    + Numbers.plain(s.defaultTime()) + ", on the " + lower(s.placement());
+                    + Numbers.plain(s.defaultTime()) + " (tf=off: no filter), on the " + lower(s.placement());
         };
     }
 

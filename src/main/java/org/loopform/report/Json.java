@@ -66,6 +66,15 @@ public final class Json {
         }
     }
 
+    /**
+     * {@code n} with every floating-point number rounded as {@link #write} rounds it, in place: for
+     * trees written elsewhere (loops.json's loops, summary, sign-off, provenance and chain).
+     */
+    public static ObjectNode tidy(ObjectNode n) {
+        tidied(n);
+        return n;
+    }
+
     /** {@code node} with its floating-point numbers tidied, in place (the trees are built for one write). */
     static JsonNode tidied(JsonNode node) {
         if (node instanceof ObjectNode o) {

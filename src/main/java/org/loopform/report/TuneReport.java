@@ -121,7 +121,7 @@ public final class TuneReport {
         ConversionReport.putValues(n.putObject("parameters"), c.parameters());
         ObjectNode units = n.putObject("units");
         c.parameters().values().keySet().forEach(k -> units.put(k, org.loopform.form.FormUnits.of(c.to(), k)));
-        ConversionReport.putValues(n.putObject("entered"), c.entered());
+        ConversionReport.putEntered(n.putObject("entered"), c);
         if (c.parameters().action() != null) {
             n.put("action", c.parameters().action().id());
         }

@@ -6,6 +6,7 @@ import static org.assertj.core.api.Assertions.within;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Optional;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -64,6 +65,53 @@ class SourceAwareCheckTest {
     @Test
     void a_continuous_design_has_no_old_condition() throws IOException {
         Finding f = coarseDerivative(check(null, "ideal", "1 s"));
+        assertThat(f.severity()).isEqualTo(Severity.WARN);
+        assertThat(f.message()).doesNotContain("old controller");
+    }
+
+    /**
+     * The same tuning without a process: the controllers are compared up to the Nyquist frequency, where
+     * a 0.2 s filter (Td 2 s / N 10) run at a 1 s scan departs far from its continuous law.
+     */
+    private CheckResult checkWithoutProcess(String sourceScan, String targetScan) throws IOException {
+        Path file = Files.writeString(dir.resolve("bare-d.yaml"), "tag: TIC-901\n"
+                + "tuning: {form: ideal, kc: 1, ti: 60, td: 2, n: 10" + (sourceScan == null ? "" : ", scan: " + sourceScan)
+                + "}\ntarget: {form: ideal, scan: " + targetScan + "}\n");
+        return LoopCheck.run(LoopFileReader.readOne(file, file.toString()), CheckPolicy.DEFAULT);
+    }
+
+    private static Optional<Finding> discretization(CheckResult r) {
+        return r.findings().stream().filter(f -> f.topic() == Topic.DISCRETIZATION
+                && f.message().contains("departs from its own continuous law")).findFirst();
+    }
+
+    /**
+     * The same form, setting, algorithm and scan give the old and the new controller the same pulse
+     * law, so the new one departs from its continuous law exactly as the old one did (Td 2 s, N 10 at
+     * a 1 s scan: a filter of 0.2 s, far shorter than the scan): said so, and info.
+     */
+    @Test
+    void a_discretization_the_old_controller_had_at_the_same_scan_is_info() throws IOException {
+        Finding f = discretization(checkWithoutProcess("1 s", "1 s")).orElseThrow();
+        assertThat(f.severity()).isEqualTo(Severity.INFO);
+        assertThat(f.message()).contains("old controller had the same condition").contains("does not make it worse");
+    }
+
+    /**
+     * Twice the old scan departs further over the band both are judged on (to the new Nyquist
+     * frequency; the hold's delay h/2 alone doubles): it stays a warning and says the old figure.
+     */
+    @Test
+    void a_discretization_the_migration_makes_worse_stays_a_warning() throws IOException {
+        Finding f = discretization(checkWithoutProcess("1 s", "2 s")).orElseThrow();
+        assertThat(f.severity()).isEqualTo(Severity.WARN);
+        assertThat(f.message()).contains("old controller had the same condition").contains("makes it worse");
+    }
+
+    /** A continuous design has no old scan: nothing to compare. */
+    @Test
+    void a_continuous_design_has_no_old_discretization() throws IOException {
+        Finding f = discretization(checkWithoutProcess(null, "1 s")).orElseThrow();
         assertThat(f.severity()).isEqualTo(Severity.WARN);
         assertThat(f.message()).doesNotContain("old controller");
     }

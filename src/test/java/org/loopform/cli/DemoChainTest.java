@@ -25,11 +25,13 @@ class DemoChainTest {
     private CliRun demo;
     private String section;
     private JsonNode fitted;
+    private Path loopsJson;
 
     @BeforeAll
     void runTheDemoAndFitTheRecord(@TempDir Path dir) throws Exception {
         demo = CliRun.of("demo", "--out", dir.resolve("demo").toString());
         assertThat(demo.exitCode()).as(demo.err()).isEqualTo(0);
+        loopsJson = dir.resolve("demo").resolve("loops.json");
         String html = Files.readString(dir.resolve("demo").resolve("report.html"));
         int start = html.indexOf("<section id=\"chain\"");
         assertThat(start).as("the chain's section").isNotNegative();
@@ -48,6 +50,36 @@ class DemoChainTest {
         Matcher m = Pattern.compile(regex).matcher(text);
         assertThat(m.find()).as(regex).isTrue();
         return Double.parseDouble(m.group(1));
+    }
+
+    /**
+     * Plumbing: every number in loops.json (the loops with their replay blocks, the chain, the
+     * sign-off, the provenance and the summary) carries at most ten significant digits, as the
+     * printed JSON of every command does: no binary noise such as 700.8000000000001.
+     */
+    @Test
+    void loops_json_carries_no_binary_noise() throws Exception {
+        JsonNode root = new ObjectMapper().readTree(loopsJson.toFile());
+        List<String> noisy = new java.util.ArrayList<>();
+        collectNoisy(root, "", noisy);
+        assertThat(root.get("loops").size()).isEqualTo(33);
+        assertThat(root.get("chain")).isNotNull();
+        assertThat(noisy).isEmpty();
+    }
+
+    private static void collectNoisy(JsonNode n, String path, List<String> noisy) {
+        if (n.isContainerNode()) {
+            n.fields().forEachRemaining(e -> collectNoisy(e.getValue(), path + "." + e.getKey(), noisy));
+            for (int k = 0; n.isArray() && k < n.size(); k++) {
+                collectNoisy(n.get(k), path + "[" + k + "]", noisy);
+            }
+        } else if (n.isFloatingPointNumber()) {
+            String digits = new java.math.BigDecimal(n.asText()).unscaledValue().abs().toString()
+                    .replaceFirst("0+$", "");
+            if (digits.length() > 10) {
+                noisy.add(path + " = " + n.asText());
+            }
+        }
     }
 
     @Test

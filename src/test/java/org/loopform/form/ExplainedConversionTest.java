@@ -85,6 +85,51 @@ class ExplainedConversionTest {
             });
         }
 
+        /**
+         * The textbook values entered with the target's default n = 10 are the ideal law
+         * 2.4 (1 + 1/(12 s) + 1.6667 s/(1 + s 1.6667/10)), compared with the series law
+         * 2 (1 + 1/(10 s))(1 + 2 s)/(1 + 0.2 s) where the loop lives (half the ideal law's integral
+         * corner 1/12 to twice its derivative corner 1/1.6667: 0.04167 to 1.2 rad/s). Evaluated
+         * independently with numpy (4000 log-spaced points): 0.783 dB and 4.12 deg, both at 1.2 rad/s.
+         * The same ideal values kept at the series filter time Tf = 0.2 s (N = 8.33) would read
+         * 0.847 dB and 3.33 deg, which is not what the finding says it measures (n = 10).
+         * The relations: Astrom & Hagglund 1995 sec. 3.4 (textbook values), the laws as written above.
+         */
+        @Test
+        void prices_the_textbook_values_with_the_default_filter_it_names() {
+            ConversionNote.FilterSettingNeeded note = c.notes().stream()
+                    .filter(ConversionNote.FilterSettingNeeded.class::isInstance)
+                    .map(ConversionNote.FilterSettingNeeded.class::cast).findFirst().orElseThrow();
+            assertThat(note.textbookCost()).isPresent();
+            assertThat(note.textbookCost().get().gainDb()).isCloseTo(0.783, within(0.003));
+            assertThat(note.textbookCost().get().phaseDegrees()).isCloseTo(4.12, within(0.02));
+            assertThat(ConversionRules.findings(c)).filteredOn(f -> f.topic() == Topic.FILTER).singleElement()
+                    .satisfies(f -> assertThat(f.message()).contains("with n = 10 would move it by up to 0.783 dB"
+                            + " and 4.12 deg"));
+        }
+
+        /**
+         * A proportional-band case in mixed units, series-pb-min pb=50 % ti=120 s td=0.1 h (Kc' = 2, Ti' = 120 s,
+         * Td' = 360 s, Tf = 36 s) into ideal: exact with n = 1.703 (derived as above, with
+         * p = Kc'(1 + Td'/Ti') = 8, i = 1/60, d = 720: Kc = p - Tf i = 7.4, Ti = Kc/i = 444 s,
+         * Td = d/Kc - Tf = 61.297 s, N = 1.7027). Where the loop lives (0.5/480 to 2/90 rad/s, the
+         * textbook law's corners) numpy gives: the exact values with n = 10, 1.07 dB and 22.6 deg;
+         * the textbook values (8, 480 s, 90 s; sec. 3.4) with n = 10, 2.70 dB and 29.2 deg.
+         */
+        @Test
+        void prices_both_settings_with_n_10_for_the_band_case() {
+            Conversion pb = convert("series-pb-min", "pb=50% ti=120s td=0.1h", "ideal");
+            assertThat(pb.exact()).isTrue();
+            assertThat(pb.parameters().values().get("n")).isCloseTo(1.7027, within(1e-4));
+            ConversionNote.FilterSettingNeeded note = pb.notes().stream()
+                    .filter(ConversionNote.FilterSettingNeeded.class::isInstance)
+                    .map(ConversionNote.FilterSettingNeeded.class::cast).findFirst().orElseThrow();
+            assertThat(note.defaultCost().gainDb()).isCloseTo(1.07, within(0.01));
+            assertThat(note.defaultCost().phaseDegrees()).isCloseTo(22.6, within(0.1));
+            assertThat(note.textbookCost().orElseThrow().gainDb()).isCloseTo(2.70, within(0.01));
+            assertThat(note.textbookCost().orElseThrow().phaseDegrees()).isCloseTo(29.2, within(0.1));
+        }
+
         @Test
         void states_the_assumed_source_filter() {
             assertThat(c.assumptions()).anySatisfy(a -> assertThat(a).contains("N = 10").contains("series"));
@@ -122,6 +167,45 @@ class ExplainedConversionTest {
             Conversion c = convert("ideal-unfiltered", "kc=1 ti=60 td=10", "ideal");
             assertThat(c.exact()).isTrue();
             assertThat(FormCodec.asText(c.entered())).containsEntry("n", "off");
+        }
+
+        /**
+         * What the filter finding says must be true of the law: an unfiltered source has no filter
+         * time to be "a different share" of anything, and an ideal source with n = 7 into an ideal
+         * form keeps its own ratio (Tf = Td/N, Astrom & Hagglund 1995 sec. 3.4: the same ratio, the
+         * same law). Plumbing of the wording; the figures are tested above.
+         */
+        @Test
+        void the_filter_finding_explains_an_unfiltered_or_kept_filter_truthfully() {
+            for (Conversion c : List.of(convert("series", "kc=2 ti=10 td=2 n=off", "ideal"),
+                    convert("ideal-unfiltered", "kc=1 ti=60 td=10", "ideal"))) {
+                assertThat(ConversionRules.findings(c)).filteredOn(f -> f.topic() == Topic.FILTER).singleElement()
+                        .satisfies(f -> assertThat(f.message()).contains("the old law has no derivative filter")
+                                .contains("n = off").doesNotContain("different share").doesNotContain("Tf = 0"));
+            }
+            Conversion kept = convert("ideal", "kc=2 ti=10 td=2 n=7", "ideal");
+            assertThat(ConversionRules.findings(kept)).filteredOn(f -> f.topic() == Topic.FILTER).singleElement()
+                    .satisfies(f -> assertThat(f.message()).contains("own filter (Tf = 0.2857 s) is kept")
+                            .doesNotContain("different share"));
+        }
+
+        /**
+         * The textbook values beside a nearest fit are priced where the loop lives, so the reader can
+         * see the trade the fit made. Series 2/10/2 (N = 10) into the unfiltered ideal form: the
+         * textbook values 2.4, 12 s, 1.667 s (Astrom & Hagglund 1995 sec. 3.4) deviate from
+         * 2 (1 + 1/(10 s))(1 + 2 s)/(1 + 0.2 s) by 0.243 dB and 13.5 deg over 0.04167 to 1.2 rad/s
+         * (numpy, 4000 points). Ideal 1/60/10 (N = 10) into ideal-fixed-n8: the values kept, with
+         * N = 8, deviate by 0.107 dB and 2.08 deg over 0.0082 to 0.185 rad/s (numpy).
+         */
+        @Test
+        void prices_the_textbook_values_beside_the_nearest_fit() {
+            Conversion unfiltered = convert("series", "kc=2 ti=10 td=2", "ideal-unfiltered");
+            assertThat(unfiltered.exact()).isFalse();
+            assertThat(unfiltered.textbookLoopDeviation().orElseThrow().gainDb()).isCloseTo(0.243, within(0.002));
+            assertThat(unfiltered.textbookLoopDeviation().orElseThrow().phaseDegrees()).isCloseTo(13.5, within(0.05));
+            Conversion kept = convert("ideal", "kc=1 ti=60 td=10", "ideal-fixed-n8");
+            assertThat(kept.textbookLoopDeviation().orElseThrow().gainDb()).isCloseTo(0.107, within(0.002));
+            assertThat(kept.textbookLoopDeviation().orElseThrow().phaseDegrees()).isCloseTo(2.08, within(0.02));
         }
 
         @Test
