@@ -1,0 +1,185 @@
+package org.loopform.analysis;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.List;
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Nested;
+import org.junit.jupiter.api.Test;
+import org.loopform.lti.FrequencyBand;
+import org.loopform.lti.Polynomial;
+import org.loopform.lti.TransferFunction;
+
+/**
+ * The margin search at the edges of its band and of its grid: crossings at the band's ends and in
+ * its first interval, a gain margin of exactly 1, a sensitivity peak inside the last interval,
+ * every phase crossover of a long dead time, and the band and grid arguments. Each expected value
+ * is derived in the comment above its check.
+ */
+@DisplayName("Margin search at its edges")
+class MarginSearchEdgesTest {
+
+    private static TransferFunction integrator(double gainPerSecond) {
+        return new TransferFunction(Polynomial.constant(gainPerSecond), Polynomial.ofAscending(0, 1));
+    }
+
+    @Nested
+    @DisplayName("a crossing at an end of the band")
+    class BandEnds {
+
+        // source: hand derivation. L = 1/s: |L| = 1/w is exactly 1 at w = 1, the band's first
+        // point, with arg L = -90 deg: PM = 90 deg, DM = (pi/2)/1 s.
+        @Test
+        void a_gain_crossover_on_the_first_point_is_found() {
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1, 100)).analyze(LoopResponse.of(integrator(1)));
+
+            assertThat(margins.crossoverRadPerSecond().getAsDouble()).isCloseTo(1, within(1e-9));
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(90, within(1e-9));
+            assertThat(margins.delayMarginSeconds().getAsDouble()).isCloseTo(Math.PI / 2, within(1e-9));
+        }
+
+        // source: hand derivation. L = s: |L| = w >= 1 on [1, 100], equal to 1 only at the first
+        // point: the gain never falls below 1, so there is no crossover and the note says it stays above.
+        @Test
+        void a_gain_that_touches_one_at_the_bottom_and_rises_stays_above_one() {
+            TransferFunction differentiator = new TransferFunction(Polynomial.ofAscending(0, 1), Polynomial.ONE);
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1, 100)).analyze(LoopResponse.of(differentiator));
+
+            assertThat(margins.phaseMarginDegrees()).isEmpty();
+            assertThat(margins.phaseMarginNote()).contains(MarginNote.GAIN_STAYS_ABOVE_ONE);
+        }
+
+        // source: hand derivation. L = 500/s has |L| = 500/w >= 5 on [10, 100]: no gain crossover
+        // lies in the band (it is at 500 rad/s, outside it).
+        @Test
+        void a_crossover_above_the_band_is_not_reported() {
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(10, 100)).analyze(LoopResponse.of(integrator(500)));
+
+            assertThat(margins.gainCrossovers()).isEmpty();
+            assertThat(margins.phaseMarginNote()).contains(MarginNote.GAIN_STAYS_ABOVE_ONE);
+        }
+
+        // source: docs/references.md 10: 1/(s + 1)^3 has Ku = 8 at w = sqrt(3). With gain 2 the
+        // gain margin is 4. The band starts at 1.73 rad/s, just below sqrt(3) = 1.7321, so the
+        // crossing lies in the grid's first interval.
+        @Test
+        void a_phase_crossover_in_the_first_interval_is_found() {
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1.73, 100))
+                    .analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(2))));
+
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(4, within(4e-6));
+            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isCloseTo(Math.sqrt(3), within(2e-6));
+        }
+
+        // source: hand derivation. L(z) = k/(z - 1) at z = -1 (the Nyquist frequency pi/h) is
+        // -k/2: with k = 2 the plot passes through -1 exactly there, a gain margin of exactly 1
+        // (the loop is at its limit; Jury's test on z - 1 + k gives |1 - k| < 1, k = 2 the edge).
+        @Test
+        void a_gain_margin_of_exactly_one_at_the_nyquist_frequency_is_reported_not_dropped() {
+            double h = 0.5;
+            LoopResponse loop = Loops.sampled(Polynomial.constant(2), Polynomial.ofAscending(-1, 1), h);
+
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.belowNyquist(1e-3, h)).analyze(loop);
+
+            assertThat(margins.gainMargin().getAsDouble()).isCloseTo(1, within(1e-12));
+            assertThat(margins.phaseCrossoverRadPerSecond().getAsDouble()).isEqualTo(Math.PI / h);
+            assertThat(margins.lowerGainMargin()).isEmpty();
+            assertThat(margins.marginsPositive()).isFalse();
+        }
+    }
+
+    @Nested
+    @DisplayName("the sensitivity peak")
+    class SensitivityPeak {
+
+        // source: scipy.optimize.minimize_scalar (bounded, xatol 1e-12) on |1 + 2/(1 + i w)^3|
+        // gives w = 1.2247448705 and Ms = 1.6666666667, checked by hand: at w^2 = 3/2,
+        // (1 + i w)^3 + 2 = -1.5 + 1.5 i w, |.|^2 = 2.25 + 3.375 = 5.625, |1 + i w|^6 = 2.5^3 =
+        // 15.625, so |1 + L| = sqrt(0.36) = 0.6 and Ms = 5/3 at w = sqrt(3/2). The band ends 2 %
+        // above the peak, which then lies inside the grid's last interval.
+        @Test
+        void a_peak_inside_the_last_interval_is_refined() {
+            double peakRadPerSecond = Math.sqrt(1.5);
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, 1.02 * peakRadPerSecond))
+                    .analyze(LoopResponse.of(Loops.lag(3).times(TransferFunction.gain(2))));
+
+            assertThat(margins.maximumSensitivity()).isCloseTo(5.0 / 3, within(1e-9));
+            assertThat(margins.maximumSensitivityRadPerSecond()).isCloseTo(peakRadPerSecond, within(1e-5));
+        }
+    }
+
+    @Nested
+    @DisplayName("a long dead time")
+    class LongDeadTime {
+
+        // source: hand derivation. L = 0.5 e^(-s)/(s + 1) has phase -(w + atan w), which rises
+        // monotonically, so it passes -180 deg - m 360 deg once for each m with
+        // (2 m + 1) pi < 1000 + atan 1000, m = 0 .. 158: 159 crossovers, each where
+        // w + atan w = (2 m + 1) pi (solved by bisection below), with factor 1/|L| = 2 sqrt(1 + w^2).
+        @Test
+        void every_phase_crossover_up_to_the_band_top_is_found() {
+            double top = 1e3;
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, top))
+                    .analyze(LoopResponse.of(Loops.lag(1).times(TransferFunction.gain(0.5)), 1.0));
+
+            List<PhaseCrossover> crossings = margins.phaseCrossovers();
+            int expected = 0;
+            while ((2 * expected + 1) * Math.PI < top + Math.atan(top)) {
+                expected++;
+            }
+            assertThat(expected).isEqualTo(159);
+            assertThat(crossings).hasSize(expected);
+            for (int m = 0; m < expected; m++) {
+                double target = (2 * m + 1) * Math.PI;
+                double lo = 0;
+                double hi = target;
+                for (int i = 0; i < 200; i++) {
+                    double mid = 0.5 * (lo + hi);
+                    if (mid + Math.atan(mid) < target) {
+                        lo = mid;
+                    } else {
+                        hi = mid;
+                    }
+                }
+                PhaseCrossover c = crossings.get(m);
+                assertThat(c.radPerSecond()).as("crossing %d", m).isCloseTo(lo, within(1e-6 * lo));
+                assertThat(c.gainFactor()).as("factor %d", m).isCloseTo(2 * Math.hypot(1, lo), within(1e-6 * 2 * Math.hypot(1, lo)));
+            }
+        }
+    }
+
+    @Nested
+    @DisplayName("the band and the grid")
+    class BandAndGrid {
+
+        // plumbing: the smallest grid allowed is 8 points (MarginAnalysis.MIN_GRID_POINTS)
+        @Test
+        void a_grid_of_eight_points_is_accepted_and_seven_refused() {
+            assertThat(MarginAnalysis.over(FrequencyBand.of(0.1, 10), 8).gridPoints()).isEqualTo(8);
+            assertThatThrownBy(() -> MarginAnalysis.over(FrequencyBand.of(0.1, 10), 7))
+                    .isInstanceOf(IllegalArgumentException.class)
+                    .hasMessageContaining("got 7");
+        }
+
+        // source: hand derivation. L = 1/s: |L(100)| = 0.01, not below the negligible 0.01, so the
+        // top doubles once, to 200 rad/s, where |L| = 0.005.
+        @Test
+        void the_top_rises_until_the_gain_is_below_the_negligible_level() {
+            FrequencyBand band = MarginAnalysis.reachingNegligibleGain(LoopResponse.of(integrator(1)),
+                    FrequencyBand.of(1, 100));
+            assertThat(band.highRadPerSecond()).isEqualTo(200);
+            assertThat(band.lowRadPerSecond()).isEqualTo(1);
+        }
+
+        // plumbing: the documented bound, at most 20 doublings (a factor 2^20, about a million),
+        // for a loop whose gain never falls (|L| = 2 at every frequency)
+        @Test
+        void the_top_stops_after_twenty_doublings() {
+            FrequencyBand band = MarginAnalysis.reachingNegligibleGain(LoopResponse.of(TransferFunction.gain(2)),
+                    FrequencyBand.of(1, 10));
+            assertThat(band.highRadPerSecond()).isEqualTo(10 * Math.pow(2, 20));
+        }
+    }
+}
