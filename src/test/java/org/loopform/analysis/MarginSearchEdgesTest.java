@@ -91,6 +91,110 @@ class MarginSearchEdgesTest {
     }
 
     @Nested
+    @DisplayName("a very light resonance between base points")
+    class LightResonance {
+
+        // source: hand derivation, as in MarginAnalysisTest: x = w/wn, L = k/(1 - x^2 + 2 i zeta x),
+        // |L| = 1 where u = x^2 solves u^2 - 2 u (1 - 2 zeta^2) + 1 - k^2 = 0, PM = 180 deg -
+        // atan2(2 zeta x, 1 - x^2). With zeta = 0.001 the phase slope at the nearest base points
+        // (4 % away) is about zeta/d^2 = 0.6 rad per unit x, which predicts less than a 22.5 deg
+        // turn per base step: only the search's own bisection, seeing the phase flip by half a turn
+        // between neighbours, can find the two crossovers 0.2 % apart.
+        @Test
+        void both_gain_crossovers_of_a_resonance_with_damping_one_in_a_thousand_are_found() {
+            double zeta = 0.001;
+            double k = 0.0021;
+            TransferFunction resonance = new TransferFunction(Polynomial.constant(k),
+                    Polynomial.ofAscending(1, 2 * zeta, 1));
+
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, 1e3)).analyze(LoopResponse.of(resonance));
+
+            double b = 1 - 2 * zeta * zeta;
+            double root = Math.sqrt(b * b - 1 + k * k);
+            double[] x = {Math.sqrt(b - root), Math.sqrt(b + root)};
+            assertThat(margins.gainCrossovers()).hasSize(2);
+            for (int j = 0; j < 2; j++) {
+                GainCrossover c = margins.gainCrossovers().get(j);
+                assertThat(c.radPerSecond()).isCloseTo(x[j], within(1e-6 * x[j]));
+                double pm = 180 - Math.toDegrees(Math.atan2(2 * zeta * x[j], 1 - x[j] * x[j]));
+                assertThat(c.phaseMarginDegrees()).isCloseTo(pm, within(1e-4));
+            }
+            // Re L = k (1 - x^2)/|.|^2 >= 0 for x <= 1, so |1 + L| >= 1 up to wn; just above wn Re L
+            // is large and negative (about -1 at the upper crossover), |1 + L| < 1: Ms peaks above wn
+            assertThat(margins.maximumSensitivityRadPerSecond()).isGreaterThan(1);
+            // at a gain crossover L = e^(i (PM - 180 deg)), so |1 + L| = 2 sin(PM/2): Ms is at least
+            // 1/(2 sin(PM/2)) at the upper crossover
+            double pmUpper = Math.toRadians(180 - Math.toDegrees(Math.atan2(2 * zeta * x[1], 1 - x[1] * x[1])));
+            assertThat(margins.maximumSensitivity()).isGreaterThanOrEqualTo(1 / (2 * Math.sin(pmUpper / 2)) * (1 - 1e-9));
+        }
+    }
+
+    @Nested
+    @DisplayName("a resonance with an anti-resonance inside one base step")
+    class ResonanceAndAntiResonance {
+
+        private static final double ZETA = 0.001;
+        private static final double ZERO_RAD_PER_SECOND = 1.03;
+        private static final double GAIN = 0.05;
+
+        /** {|L|^2, arg L} of k (1 + 2 zeta s/wz + s^2/wz^2)/(1 + 2 zeta s + s^2) at s = i w, by hand. */
+        private double[] at(double w) {
+            double nr = 1 - w * w / (ZERO_RAD_PER_SECOND * ZERO_RAD_PER_SECOND);
+            double ni = 2 * ZETA * w / ZERO_RAD_PER_SECOND;
+            double dr = 1 - w * w;
+            double di = 2 * ZETA * w;
+            double mag2 = GAIN * GAIN * (nr * nr + ni * ni) / (dr * dr + di * di);
+            return new double[] {mag2, Math.atan2(ni, nr) - Math.atan2(di, dr)};
+        }
+
+        // source: hand derivation. A lightly damped pole pair at 1 rad/s and zero pair at 1.03 rad/s
+        // (a flexible mechanism with its anti-resonance just above the resonance), both inside the
+        // base step [0.957, 1.0445] rad/s of a 160-point grid over [1e-3, 1e3]. Across that step
+        // the phase comes back to about 0 (the pole pair's -180 deg and the zero pair's +180 deg)
+        // while |L| falls from 0.081 to 0.016, a factor of 5: only the magnitude check can send
+        // the search into the step. Near 1 rad/s |L| peaks at about k (1 - 1/wz^2)/(2 zeta) = 1.43,
+        // so two gain crossovers lie there; they are found below by scanning |L|^2 - 1 on a 1e-6
+        // grid over [0.98, 1.02] and bisecting each sign change, PM = 180 deg + arg L.
+        @Test
+        void both_gain_crossovers_are_found() {
+            TransferFunction loop = new TransferFunction(
+                    Polynomial.ofAscending(GAIN, GAIN * 2 * ZETA / ZERO_RAD_PER_SECOND,
+                            GAIN / (ZERO_RAD_PER_SECOND * ZERO_RAD_PER_SECOND)),
+                    Polynomial.ofAscending(1, 2 * ZETA, 1));
+
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, 1e3), 160).analyze(LoopResponse.of(loop));
+
+            java.util.List<Double> expected = new java.util.ArrayList<>();
+            double step = 1e-6;
+            for (double w = 0.98; w < 1.02; w += step) {
+                if ((at(w)[0] < 1) != (at(w + step)[0] < 1)) {
+                    double lo = w;
+                    double hi = w + step;
+                    for (int i = 0; i < 100; i++) {
+                        double mid = 0.5 * (lo + hi);
+                        if ((at(mid)[0] < 1) == (at(lo)[0] < 1)) {
+                            lo = mid;
+                        } else {
+                            hi = mid;
+                        }
+                    }
+                    expected.add(lo);
+                }
+            }
+            assertThat(expected).hasSize(2);
+            assertThat(margins.gainCrossovers()).hasSize(2);
+            for (int j = 0; j < 2; j++) {
+                double w = expected.get(j);
+                GainCrossover c = margins.gainCrossovers().get(j);
+                assertThat(c.radPerSecond()).isCloseTo(w, within(1e-6 * w));
+                double pm = 180 + Math.toDegrees(at(w)[1]);
+                pm -= 360 * Math.ceil((pm - 180) / 360);
+                assertThat(c.phaseMarginDegrees()).isCloseTo(pm, within(1e-3));
+            }
+        }
+    }
+
+    @Nested
     @DisplayName("the sensitivity peak")
     class SensitivityPeak {
 
