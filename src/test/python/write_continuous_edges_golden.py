@@ -23,7 +23,9 @@ do not show:
   first small;
 - the same resonance far above the loop's slowest frequency and with a very light damping, so that
   only points placed round its poles see the peak;
-- a fast lag with a slow process pole and a long dead time, and a resonance with a PI.
+- a slow lag with a long dead time, and a resonance with a PI;
+- a first-order lag under a gain so high that |L| is still above 1 ten times past every corner: the
+  path must go on until |L| is small, or it misses the encirclements beyond.
 """
 import csv
 import os
@@ -102,6 +104,8 @@ def main():
         ("resonance-pi-just-stable", ("res", 1.0, 3.0, 0.1), (0.15, 2.0, 0.0, None), 0.2, 0.05),
         ("slow-lag-long-delay-pi-stable", ("fo", 1.0, 200.0), (2.0, 150.0, 0.0, None), 30.0, 0.001),
         ("slow-lag-long-delay-pi-unstable", ("fo", 1.0, 200.0), (14.0, 150.0, 0.0, None), 30.0, 0.001),
+        ("high-gain-lag-p-unstable", ("fo", 1.0, 1.0), (25.0, None, 0.0, None), 1.0, 0.01),
+        ("high-gain-lag-p-unstable-short-delay", ("fo", 1.0, 1.0), (60.0, None, 0.0, None), 0.2, 0.01),
     ]
     rows = []
     for ident, proc, (k, ti, td, n), dead, slowest in cases:

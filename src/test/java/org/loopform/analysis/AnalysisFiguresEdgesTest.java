@@ -103,6 +103,19 @@ class AnalysisFiguresEdgesTest {
                     .hasMessageContaining("delay margin must be finite");
         }
 
+        // plumbing: a lower gain margin is a factor in (0, 1); zero or below is no factor
+        @Test
+        void a_lower_gain_margin_must_be_positive() {
+            for (double bad : new double[] {0, -0.5, Double.NEGATIVE_INFINITY}) {
+                assertThatThrownBy(() -> new LoopMargins(OptionalDouble.of(2), OptionalDouble.of(1), OptionalDouble.of(bad),
+                        OptionalDouble.empty(), OptionalDouble.empty(), OptionalDouble.empty(), 1.5, 1,
+                        java.util.Optional.empty(), java.util.Optional.of(MarginNote.GAIN_STAYS_BELOW_ONE),
+                        java.util.List.of(), java.util.List.of()))
+                        .as("lower gain margin %s", bad)
+                        .hasMessageContaining("lower gain margin must be finite and > 0");
+            }
+        }
+
         // plumbing: an ultimate gain of zero is no gain at all (Ku > 0, Ziegler and Nichols 1942)
         @Test
         void an_ultimate_gain_of_zero_is_refused() {

@@ -111,6 +111,18 @@ class ContinuousStabilityEdgesTest {
             assertThat(s.test()).isEqualTo(StabilityTest.NYQUIST);
         }
 
+        // source: the same small-gain argument: 0.95 (1 + 3.9 s)/(1 + 4 s) has |L| <= 0.95 on the
+        // axis, stable at any dead time; its high-frequency gain 0.95 x 3.9 / 4 = 0.926 keeps 1 + L
+        // up to 68 deg away from the positive real axis at the end of the path, so the count must
+        // take the argument there from the loop itself.
+        @ParameterizedTest
+        @ValueSource(doubles = {0.3, 1.0, 2.7, 7.3, 11.1, 0.05})
+        void a_lead_lag_just_inside_the_unit_disk_is_stable_at_any_dead_time(double deadTimeSeconds) {
+            LoopStability s = ContinuousStability.of(tf(new double[] {0.95, 0.95 * 3.9}, new double[] {1, 4}),
+                    deadTimeSeconds, 0.01);
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+        }
+
         // source: the neutral chain at Re s = ln|c| / L (Hale and Verduyn Lunel 1993, ch. 9 - from
         // memory): c = 1.5 x 4 / 2 = 3 > 1, so infinitely many poles lie right of the axis.
         @Test
@@ -176,6 +188,18 @@ class ContinuousStabilityEdgesTest {
                     .hasSize(3);
             assertThat(ContinuousStability.polesOf(Polynomial.ofAscending(0, 0, 3, 6)).get(2).getReal())
                     .isCloseTo(-0.5, org.assertj.core.api.Assertions.within(1e-12));
+        }
+
+        // source: hand derivation, and the stated tolerance (ContinuousStability.ROOT_AXIS_TOLERANCE,
+        // 1e-9 of the larger of the root's size and the slowest frequency). 1/(s + 1) under gain
+        // -(1 - 5e-9): the closed-loop pole is at -5e-9 rad/s. With a slowest frequency of 10 rad/s
+        // the band is 1e-8 rad/s wide, so the pole counts as on the axis (marginal); with 1e-3 rad/s
+        // the band is 1e-12 rad/s and the pole is stable.
+        @Test
+        void a_root_within_the_stated_band_of_the_axis_is_marginal() {
+            TransferFunction loop = tf(new double[] {-(1 - 5e-9)}, new double[] {1, 1});
+            assertThat(ContinuousStability.of(loop, 0, 10).verdict()).isEqualTo(Stability.MARGINAL);
+            assertThat(ContinuousStability.of(loop, 0, 1e-3).verdict()).isEqualTo(Stability.STABLE);
         }
 
         // source: hand derivation. A constant loop has no closed-loop poles.
