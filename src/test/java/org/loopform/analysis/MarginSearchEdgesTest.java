@@ -198,6 +198,21 @@ class MarginSearchEdgesTest {
     @DisplayName("the sensitivity peak")
     class SensitivityPeak {
 
+        // source: src/test/python/check_many_dips_ms.py (numpy/scipy; prints w = 97.39963704035503
+        // rad/s and Ms = 9.985794616339133). L = 0.45 (1 + s)/(1 + s/2) e^(-s) has a dip of
+        // |1 + L| near each of its 16 phase crossovers below 100 rad/s, about 1 - |L| deep, and |L|
+        // rises with w, so the deepest is the last one, near (2 x 15 + 1) pi - small = 97.4 rad/s:
+        // by hand 1/(1 - 0.45 x |1 + 97.4 i| / |1 + 48.7 i|) = 9.986. The grid point nearest a dip
+        // may sit up to 11 deg of phase away from it, so the grid alone can settle on a shallower dip.
+        @Test
+        void the_deepest_of_many_dips_is_found() {
+            TransferFunction lead = new TransferFunction(Polynomial.ofAscending(0.45, 0.45), Polynomial.ofAscending(1, 0.5));
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, 100)).analyze(LoopResponse.of(lead, 1.0));
+
+            assertThat(margins.maximumSensitivity()).isCloseTo(9.985794616339133, within(1e-7));
+            assertThat(margins.maximumSensitivityRadPerSecond()).isCloseTo(97.39963704035503, within(1e-4));
+        }
+
         // source: scipy.optimize.minimize_scalar (bounded, xatol 1e-12) on |1 + 2/(1 + i w)^3|
         // gives w = 1.2247448705 and Ms = 1.6666666667, checked by hand: at w^2 = 3/2,
         // (1 + i w)^3 + 2 = -1.5 + 1.5 i w, |.|^2 = 2.25 + 3.375 = 5.625, |1 + i w|^6 = 2.5^3 =
