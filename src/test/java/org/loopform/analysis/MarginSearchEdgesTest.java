@@ -195,6 +195,44 @@ class MarginSearchEdgesTest {
     }
 
     @Nested
+    @DisplayName("an undamped notch")
+    class UndampedNotch {
+
+        // source: hand derivation. L = 2 (1 + s^2)/(s + 1)^3: the undamped zero pair (a notch filter
+        // with zero damping) makes L vanish at w = 1, where the real factor 1 - w^2 changes sign and
+        // the phase flips by half a turn, which no bisection resolves: the search must stop closing
+        // in at its smallest width. Elsewhere |L| = 2 |1 - w^2| / (1 + w^2)^(3/2): 2 at w = 0, 0 at
+        // w = 1 and below 0.55 above it, so the one gain crossover lies below 1 rad/s, where
+        // 2 (1 - w^2) = (1 + w^2)^(3/2) (solved by bisection below) and arg L = -3 atan w:
+        // PM = 180 deg - 3 atan(wc). The phase -3 atan w stays above -180 deg below w = 1 and
+        // 180 deg - 3 atan w stays in (-90, 45] deg above it, so no finite gain factor puts the
+        // plot on -1: no gain margin.
+        @Test
+        void the_crossover_below_an_undamped_notch_is_found_and_the_notch_ends_the_bisection() {
+            TransferFunction notched = new TransferFunction(Polynomial.ofAscending(2, 0, 2),
+                    Polynomial.ofAscending(1, 3, 3, 1));
+
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(1e-3, 1e3)).analyze(LoopResponse.of(notched));
+
+            double lo = 0;
+            double hi = 1;
+            for (int i = 0; i < 200; i++) {
+                double mid = 0.5 * (lo + hi);
+                if (2 * (1 - mid * mid) > Math.pow(1 + mid * mid, 1.5)) {
+                    lo = mid;
+                } else {
+                    hi = mid;
+                }
+            }
+            assertThat(margins.gainCrossovers()).hasSize(1);
+            assertThat(margins.crossoverRadPerSecond().getAsDouble()).isCloseTo(lo, within(1e-6 * lo));
+            assertThat(margins.phaseMarginDegrees().getAsDouble())
+                    .isCloseTo(180 - 3 * Math.toDegrees(Math.atan(lo)), within(1e-4));
+            assertThat(margins.gainMargin()).isEmpty();
+        }
+    }
+
+    @Nested
     @DisplayName("the sensitivity peak")
     class SensitivityPeak {
 
