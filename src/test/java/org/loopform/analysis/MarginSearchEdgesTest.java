@@ -97,9 +97,9 @@ class MarginSearchEdgesTest {
         // source: hand derivation, as in MarginAnalysisTest: x = w/wn, L = k/(1 - x^2 + 2 i zeta x),
         // |L| = 1 where u = x^2 solves u^2 - 2 u (1 - 2 zeta^2) + 1 - k^2 = 0, PM = 180 deg -
         // atan2(2 zeta x, 1 - x^2). With zeta = 0.001 the phase slope at the nearest base points
-        // (4 % away) is about zeta/d^2 = 0.6 rad per unit x, which predicts less than a 22.5 deg
-        // turn per base step: only the search's own bisection, seeing the phase flip by half a turn
-        // between neighbours, can find the two crossovers 0.2 % apart.
+        // (about 4.4 % away) is about zeta/d^2 = 0.5 rad per unit x, which predicts a turn of
+        // 3 deg per base step: only the search's own bisection, seeing the phase flip by half a
+        // turn between neighbours, can find the two crossovers 0.06 % apart.
         @Test
         void both_gain_crossovers_of_a_resonance_with_damping_one_in_a_thousand_are_found() {
             double zeta = 0.001;
