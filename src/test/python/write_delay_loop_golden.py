@@ -15,8 +15,9 @@ which has no poles, so the number of zeros inside a closed contour is the turn o
 (the argument principle; Astrom and Murray, Feedback Systems, 2008, ch. 9, the Nyquist criterion -
 from memory for the section). A zero with Re s >= 0 needs |R(s)| >= 1 (|e^(-s L)| <= 1 there),
 so for a strictly proper R, or a biproper R whose high-frequency gain is below 1, every such zero
-lies inside the half disc |s| < rho where |R| < 1 on and beyond its arc (rho found here by
-doubling until |R| < 0.9 on the arc and beyond, checked on rays); the contour is the rectangle
+lies inside the half disc |s| < rho where |R| < 1 on and beyond its arc (rho starts at twice the
+largest pole or zero of R and doubles until |R| < 0.9 on 400 half circles over [rho, 1000 rho]);
+the contour is the rectangle
 [eps, rho] x [-rho, rho], eps = 1e-9 rad/s, walked with steps bisected until arg F moves less
 than 0.2 rad; the count must come out within 1e-6 of a whole number. Without dead time the count is
 that of numpy.roots of den R + num R with a positive real part.
@@ -65,16 +66,11 @@ def rhp_count(num, den, dead):
     def f(s):
         return np.polyval(den, s) + np.polyval(num, s) * np.exp(-s * dead)
 
-    rho = 1.0
-    while True:
-        angles = np.linspace(-np.pi / 2, np.pi / 2, 2001)
-        ok = True
-        for scale in (1.0, 2.0, 4.0, 16.0, 256.0):
-            if np.max(np.abs(r(scale * rho * np.exp(1j * angles)))) >= 0.9:
-                ok = False
-                break
-        if ok:
-            break
+    # start past every pole and zero of R and check |R| on 400 half circles out to 1000 rho: a few
+    # radii alone can pass between them over a lightly damped resonance and leave its zeros outside
+    rho = 2 * max([abs(x) for x in np.roots(den)] + [abs(x) for x in np.roots(num)] + [1.0])
+    angles = np.linspace(-np.pi / 2, np.pi / 2, 2001)
+    while max(np.max(np.abs(r(radius * np.exp(1j * angles)))) for radius in np.geomspace(rho, 1000 * rho, 400)) >= 0.9:
         rho *= 2
     rho *= 1.5
     corners = [EPS - 1j * rho, rho - 1j * rho, rho + 1j * rho, EPS + 1j * rho, EPS - 1j * rho]

@@ -107,16 +107,15 @@ final class MarginSearch {
                 if (topOnAxis && k == last - 1 && level == topLevel) {
                     continue; // counted once, as the end point below
                 }
-                phaseCrossover(k, level, turnsAfter < turnsBefore);
+                phaseCrossover(k, level);
             }
         }
         if (topOnAxis) {
-            // its own mirror image: the plot passes the axis here once, and no encirclement is counted from it
+            // its own mirror image: the plot passes the axis here once, and no encirclement is counted from it.
+            // Its |1 + L| is the last grid point's, which the sensitivity peak's grid search already sees.
             double magnitude = Math.sqrt(magnitudeSquared(last));
-            noteReturnDifference(w[last], returnDifferenceSquared(last), last - 1);
             phaseCrossovers.add(new PhaseCrossover(w[last], 1 / magnitude));
         }
-        boolean startsBeyondMinus180 = re[0] < 0 && im[0] >= 0;
         return margins();
     }
 
@@ -237,7 +236,7 @@ final class MarginSearch {
         gainCrossovers.add(new GainCrossover(omega, wrappedDegrees, Math.toRadians(turnToLimitDegrees) / omega));
     }
 
-    private void phaseCrossover(int k, int level, boolean falling) {
+    private void phaseCrossover(int k, int level) {
         anchorPhase = phase[k];
         anchorRe = re[k];
         anchorIm = im[k];

@@ -117,14 +117,13 @@ public record StepMetrics(
             previous = error;
             previousTime = time;
         }
-        if (stored < n) {
-            // the held tail: the error stays at its last value, so its IAE is |e| times the tail's
-            // length (each trapezoid is |e| dt), nothing moves the output, and it stays outside the
-            // band to the end if it was outside at its start
-            iae += Math.abs(previous) * (response.timeSeconds(n - 1) - previousTime);
-            if (lastOutside == stored - 1) {
-                lastOutside = n - 1;
-            }
+        // the held tail: the error stays at its last value, so its IAE is |e| times the tail's
+        // length (each trapezoid is |e| dt), nothing moves the output, and it stays outside the
+        // band to the end if it was outside at its start. Without a tail (stored == n) the length
+        // is 0 and the last sample is the end: neither line changes anything.
+        iae += Math.abs(previous) * (response.timeSeconds(n - 1) - previousTime);
+        if (lastOutside == stored - 1) {
+            lastOutside = n - 1;
         }
         OptionalDouble settling;
         if (lastOutside == n - 1) {
