@@ -87,6 +87,15 @@ class TrendCsvColumnsTest {
                     .hasMessageStartingWith("t.csv:2: the row has 4 cells, the header 6;");
         }
 
+        @ParameterizedTest
+        @CsvSource({"time,'setpoint,pv,output',--time", "setpoint,'time,pv,output',--setpoint",
+                "pv,'time,setpoint,output',--pv", "output,'time,setpoint,pv',--output"})
+        void each_required_column_missing_is_named_with_its_option(String missing, String header, String option) {
+            assertThatThrownBy(() -> parse(header + "\n0,40,40\n1,40,40\n")).isInstanceOf(InputException.class)
+                    .hasMessageStartingWith("t.csv:1: " + missing + ": no such column")
+                    .hasMessageEndingWith("; name the column with " + option + " NAME");
+        }
+
         @Test
         void a_missing_column_names_the_columns_there_are_and_the_option() {
             assertThatThrownBy(() -> parse("time,setpoint,pv\n0,40,40\n1,40,40\n"))
