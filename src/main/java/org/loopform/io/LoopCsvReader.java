@@ -121,36 +121,33 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
     /** Opens {@code path}, once; file-level problems (no file, a folder, bad header) are thrown at once. */
     public static LoopCsvReader open(Path path, String shownName, LoopDefaults defaults) {
         WorkbookBytes.refuseWorkbookAsCsv(path, shownName);
-        Utf8Reader in = TextInput.open(path, shownName);
-        try {
-            Path abs = path.toAbsolutePath();
-            return new LoopCsvReader(in, in::bytesRead, shownName, abs.getParent(), defaults);
-        } catch (NotUtf8Exception e) {
-            LoopFields.closeQuietly(in);
-            throw e.toInput();
-        } catch (IOException e) {
-            LoopFields.closeQuietly(in);
-            throw TextInput.unreadable(e, shownName);
-        } catch (RuntimeException e) {
-            LoopFields.closeQuietly(in);
-            throw e;
-        }
+        Path folder = path.toAbsolutePath().getParent();
+        return over(TextInput.open(path, shownName), shownName, folder, defaults);
     }
 
     /**
      * Reads CSV bytes from a stream once, as strict UTF-8 (bundled examples, pipes); forms given by
-     * path are resolved against {@code folder}.
+     * path are resolved against {@code folder}. The stream is closed when its header cannot be read.
      */
     public static LoopCsvReader of(InputStream stream, String shownName, Path folder, LoopDefaults defaults) {
-        Utf8Reader in = new Utf8Reader(stream, shownName);
+        return over(new Utf8Reader(stream, shownName), shownName, folder, defaults);
+    }
+
+    /** A reader of {@code in} from its header on; {@code in} is closed when the header cannot be read. */
+    private static LoopCsvReader over(Utf8Reader in, String shownName, Path folder, LoopDefaults defaults) {
+        boolean opened = false;
         try {
-            return new LoopCsvReader(in, in::bytesRead, shownName, folder, defaults);
+            LoopCsvReader reader = new LoopCsvReader(in, in::bytesRead, shownName, folder, defaults);
+            opened = true;
+            return reader;
         } catch (NotUtf8Exception e) {
-            LoopFields.closeQuietly(in);
             throw e.toInput();
         } catch (IOException e) {
-            LoopFields.closeQuietly(in);
             throw TextInput.unreadable(e, shownName);
+        } finally {
+            if (!opened) {
+                LoopFields.closeQuietly(in);
+            }
         }
     }
 
@@ -193,7 +190,7 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
         if (c instanceof NotUtf8Exception n) {
             return n.toInput();
         }
-        String m = c != null && c.getMessage() != null ? c.getMessage() : String.valueOf(e.getMessage());
+        String m = messages(e);
         String where = name + ":" + line + ": ";
         if (m.contains("EOF reached before encapsulated token finished")) {
             return new InputException(where + "a quote (\") opens a cell on this line and is never closed, so the"
@@ -209,6 +206,15 @@ public final class LoopCsvReader implements Iterator<LoopRow>, AutoCloseable {
             return TextInput.unreadable(io, name);
         }
         return new InputException(where + "not valid CSV near this line; check its quotes and separators");
+    }
+
+    /** The messages of {@code e} and of its causes, one a line (the parser's wording is in the cause). */
+    private static String messages(Throwable e) {
+        StringBuilder all = new StringBuilder();
+        for (Throwable t = e; t != null; t = t.getCause()) {
+            all.append(t.getMessage()).append('\n');
+        }
+        return all.toString();
     }
 
     @Override

@@ -75,9 +75,6 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
             XlsxCell c = XlsxCell.of(header.getCell(k), false);
             raw.add(c.bad() ? "" : c.text());
         }
-        while (!raw.isEmpty() && raw.get(raw.size() - 1).isBlank()) {
-            raw.remove(raw.size() - 1);
-        }
         List<String> columns = LoopListRows.header(raw, at(headerRow, 0), k -> at(headerRow, k),
                 LoopXlsxReader::letter);
         this.rows = new LoopListRows(name, folder, defaults, columns, LoopXlsxReader::letter);
@@ -358,7 +355,8 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
                 + " spreadsheet program and save it again, or save the sheet as CSV");
     }
 
-    private static String reason(Throwable e) {
+    /** The first message along {@code e}'s causes (past wrappers), on one line, at most 160 characters. */
+    static String reason(Throwable e) {
         Throwable t = e;
         while ((t instanceof UncheckedIOException || t.getMessage() == null) && t.getCause() != null) {
             t = t.getCause();

@@ -35,7 +35,7 @@ final class TextInput {
             StringWriter w = new StringWriter();
             char[] buffer = new char[1 << 14];
             long total = 0;
-            for (int n; (n = r.read(buffer)) >= 0; ) {
+            for (int n; (n = r.read(buffer)) != -1; ) { // a Reader gives -1 at the end, never another negative
                 total += n;
                 if (total > maxChars) {
                     throw new InputException(tooLarge);

@@ -35,11 +35,15 @@ import org.loopform.replay.Trend;
  */
 public final class TrendCsvReader {
 
+    /** The problems a refused record lists at most: the first ones show what is wrong. */
+    private static final int MAX_PROBLEMS = 20;
     private static final Pattern DECIMAL_COMMA = Pattern.compile("^[-+]?\\d+,\\d+$");
 
     private final String name;
     private final TrendColumns columns;
     private final Map<String, Integer> index = new HashMap<>();
+    /** The header's cells, blank ones included: every row has as many. */
+    private int headerCells;
     private final List<String> problems = new ArrayList<>();
 
     private TrendCsvReader(String name, TrendColumns columns) {
@@ -79,16 +83,19 @@ public final class TrendCsvReader {
         char separator = LoopCsvReader.separator(header);
         CSVFormat format = CSVFormat.RFC4180.builder().setDelimiter(separator).setTrim(true).get();
         readHeader(header, format);
-        int time = required(columns.time(), "--time");
-        int sp = required(columns.setpoint(), "--setpoint");
-        int pv = required(columns.pv(), "--pv");
-        int out = required(columns.output(), "--output");
-        Integer mode = index.get(key(columns.mode()));
-        Integer tracking = index.get(key(columns.tracking()));
+        require(columns.time(), "--time");
+        require(columns.setpoint(), "--setpoint");
+        require(columns.pv(), "--pv");
+        require(columns.output(), "--output");
         if (!problems.isEmpty()) {
             throw new InputException(problems);
         }
-        Series t = new Series();
+        int time = index.get(key(columns.time()));
+        int sp = index.get(key(columns.setpoint()));
+        int pv = index.get(key(columns.pv()));
+        int out = index.get(key(columns.output()));
+        Integer mode = index.get(key(columns.mode()));
+        Integer tracking = index.get(key(columns.tracking()));
         Series s = new Series();
         Series p = new Series();
         Series o = new Series();
@@ -103,8 +110,8 @@ public final class TrendCsvReader {
                 if (r.size() == 1 && r.get(0).isEmpty()) {
                     continue; // a blank line
                 }
-                if (r.size() != index.size()) {
-                    problems.add(name + ":" + line + ": the row has " + r.size() + " cells, the header " + index.size()
+                if (r.size() != headerCells) {
+                    problems.add(name + ":" + line + ": the row has " + r.size() + " cells, the header " + headerCells
                             + "; check for a decimal comma or a missing separator");
                     continue;
                 }
@@ -143,7 +150,6 @@ public final class TrendCsvReader {
                     continue;
                 }
                 previous = seconds;
-                t.add(seconds, seconds);
                 value(r, sp, columns.setpoint(), line, seconds, s);
                 value(r, pv, columns.pv(), line, seconds, p);
                 value(r, out, columns.output(), line, seconds, o);
@@ -167,7 +173,7 @@ public final class TrendCsvReader {
             }
         }
         if (!problems.isEmpty()) {
-            throw new InputException(problems.size() > 20 ? problems.subList(0, 20) : problems);
+            throw new InputException(problems.subList(0, Math.min(problems.size(), MAX_PROBLEMS)));
         }
         ModeTrack track = modes.isEmpty() ? null : new ModeTrack(toArray(modeTimes), modes);
         return new Trend(s.signal(columns.setpoint()), p.signal(columns.pv()), o.signal(columns.output()), track,
@@ -185,20 +191,19 @@ public final class TrendCsvReader {
                 }
                 k++;
             }
+            headerCells = k;
         } catch (IOException | UncheckedIOException e) {
             throw new InputException(name + ":1: the header's quotes are not closed; write the column names without"
                     + " quotes");
         }
     }
 
-    private int required(String column, String option) {
-        Integer k = index.get(key(column));
-        if (k == null) {
+    /** Notes a problem when the header has no column {@code column} (named with {@code option}). */
+    private void require(String column, String option) {
+        if (!index.containsKey(key(column))) {
             problems.add(name + ":1: " + column + ": no such column (the header has " + String.join(", ",
                     index.keySet().stream().sorted().toList()) + "); name the column with " + option + " NAME");
-            return -1;
         }
-        return k;
     }
 
     private void value(CSVRecord r, int column, String columnName, long line, double seconds, Series into) {

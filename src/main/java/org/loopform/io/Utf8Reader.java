@@ -75,7 +75,7 @@ final class Utf8Reader extends Reader {
     private void fill() throws IOException {
         bytes.compact();
         int n = in.read(bytes.array(), bytes.position(), bytes.remaining());
-        if (n < 0) {
+        if (n == -1) { // an InputStream gives -1 at the end, never another negative
             endOfInput = true;
         } else {
             bytes.position(bytes.position() + n);

@@ -61,10 +61,13 @@ public final class YamlSource {
                 + " time, or as CSV";
     }
 
-    /** SnakeYAML's options: no duplicate keys, and the limits above. */
+    /**
+     * SnakeYAML's options: the limits above. Duplicate keys are found by {@link #duplicateKeys}, as
+     * loopform only composes nodes and SnakeYAML applies its own duplicate-key rule only when it
+     * constructs objects.
+     */
     static LoaderOptions options(int codePointLimit) {
         LoaderOptions options = new LoaderOptions();
-        options.setAllowDuplicateKeys(false);
         options.setMaxAliasesForCollections(MAX_ALIASES);
         options.setNestingDepthLimit(MAX_NESTING);
         options.setCodePointLimit(codePointLimit);
@@ -136,15 +139,9 @@ public final class YamlSource {
                 + "); check the file's indentation and quoting");
     }
 
-    private static int lineAt(String text, int codePointPosition) {
-        int line = 1;
-        int cp = 0;
-        for (int k = 0; k < text.length() && cp < codePointPosition; k += Character.charCount(text.codePointAt(k)), cp++) {
-            if (text.charAt(k) == '\n') {
-                line++;
-            }
-        }
-        return line;
+    /** The line of the code point at {@code codePointPosition} (from 0): one more than the line breaks before it. */
+    private static long lineAt(String text, int codePointPosition) {
+        return text.codePoints().limit(codePointPosition).filter(c -> c == '\n').count() + 1;
     }
 
     /** Every key given twice in one mapping of {@code root}, as located problems. */
