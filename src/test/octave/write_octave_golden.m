@@ -89,6 +89,7 @@ loops = {
   "resonance-02", "several-crossovers", "sopdt", [1, 0.01, 1], 20, 0.25, 0.025, 5, 0, 10, "damping 0.01: two gain crossovers close together at the resonance"
   "resonance-03", "resonance", "sopdt", [1, 0.1, 2], 10, 0.1, 0.3, 2, 0, 10, "resonance at 2 rad/s, dead time 1 s"
   "resonance-04", "resonance", "sopdt", [2, 0.03, 0.5], 4, 0.5, 0.1, 10, 1, 10, "PID on a resonance at 0.5 rad/s"
+  "resonance-05", "several-crossovers", "sopdt", [1, 0.02, 1], 4, 0.5, 0.05, 2, 0, 10, "stable with three gain crossovers, the one nearest -1 beyond -180 deg: a negative phase margin"
   "sopdt-01", "sopdt", "sopdt", [1, 0.7, 0.5], 2, 0.5, 1, 4, 1, 10, "PID, damping 0.7"
   "sopdt-02", "sopdt", "sopdt", [1, 1.5, 0.2], 3, 1.0, 1.5, 8, 0, 10, "overdamped, PI"
   "sopdt-03", "sopdt", "sopdt", [0.5, 0.3, 1], 5, 0.1, 2, 3, 0.5, 5, "PID with N = 5"
