@@ -54,6 +54,37 @@ class AntiWindupTest {
         assertThat(c.update(60.0, 70.0)).isCloseTo(85.0, within(TOL));
     }
 
+    // Whether the limits acted, by the same hand derivation: scan 1 reaches v = 100 exactly (not beyond:
+    // nothing acted); scan 2's trial 105 is clamped to the kept integral, v = 100, the limits acted; the
+    // reversal's u = 85 is inside (nothing acted). Clipping alone acts too: without anti-windup the
+    // second scan writes 100 for v = 105; the velocity form clips its accumulated output likewise.
+    @Test
+    void the_controller_says_when_its_limits_acted() {
+        ScanController clamped = pi(AlgorithmKind.POSITIONAL, AntiWindup.CLAMPING);
+        clamped.update(60.0, 50.0);
+        assertThat(clamped.limitsActedLastScan()).isFalse();
+        clamped.update(60.0, 50.0);
+        assertThat(clamped.limitsActedLastScan()).isTrue();
+        clamped.update(60.0, 70.0);
+        assertThat(clamped.limitsActedLastScan()).isFalse();
+
+        ScanController clipped = pi(AlgorithmKind.POSITIONAL, AntiWindup.NONE);
+        clipped.update(60.0, 50.0);
+        assertThat(clipped.limitsActedLastScan()).isFalse();
+        clipped.update(60.0, 50.0);
+        assertThat(clipped.limitsActedLastScan()).isTrue();
+        clipped.reset(90.0, 50.0, 50.0);
+        assertThat(clipped.limitsActedLastScan()).isFalse();
+
+        ScanController velocity = pi(AlgorithmKind.VELOCITY, AntiWindup.NONE);
+        velocity.update(60.0, 50.0);
+        assertThat(velocity.limitsActedLastScan()).isFalse();
+        velocity.update(60.0, 50.0);
+        assertThat(velocity.limitsActedLastScan()).isTrue();
+        velocity.track(40.0);
+        assertThat(velocity.limitsActedLastScan()).isFalse();
+    }
+
     // Without anti-windup the integral runs on (same source): 90 + 21 x 5 = 195 after the
     // saturated scans; then v = -5 + 195 - 5 = 185, still beyond the limit.
     @Test
