@@ -130,6 +130,15 @@ public final class LoopXlsxReader implements Iterator<LoopRow>, AutoCloseable {
         if (sheets.isEmpty()) {
             throw new InputException(name + ": the workbook has no sheet; put the loop list on a sheet");
         }
+        for (int k = 0; k < sheets.size(); k++) {
+            String sheetName = sheets.get(k).getName();
+            if (sheetName == null || sheetName.isBlank()) {
+                // the workbook's part lists a sheet without its name: no formula, no person and no --sheet can name it
+                throw new InputException(name + ": sheet " + (k + 1) + " of " + sheets.size() + " has no name in the"
+                        + " workbook; the workbook is damaged: open it in a spreadsheet program and save it again, or"
+                        + " save the sheet as CSV");
+            }
+        }
         Path folder = path.toAbsolutePath().getParent();
         if (choice != null) {
             Sheet s = chosen(name, sheets, choice);

@@ -423,6 +423,17 @@ class LoopXlsxReaderTest {
             refused(ole2(""), "Excel 97-2003 workbook (.xls)");
         }
 
+        // ECMA-376 Part 1, 18.2.19: a sheet element's name attribute is required. Fuzzing found a workbook
+        // part whose sheet lacked it (the reader then stopped on a null name); it is a damaged workbook.
+        @Test
+        void a_sheet_without_a_name_in_the_workbook_part() throws IOException {
+            Path f = book(ws -> XlsxTestFiles.csvRows(ws, 0, HEADER + "\nFIC-1,ideal,1,60,0,1 s,ideal-min"));
+            XlsxTestFiles.editPart(f, "xl/workbook.xml", xml -> xml.replace("name=\"Loops\"", ""));
+            assertThatThrownBy(() -> read(f, null)).isInstanceOf(InputException.class)
+                    .hasMessage("loops.xlsx: sheet 1 of 1 has no name in the workbook; the workbook is damaged: open it"
+                            + " in a spreadsheet program and save it again, or save the sheet as CSV");
+        }
+
         @Test
         void a_workbook_protected_by_a_password() throws IOException {
             refused(ole2("EncryptedPackage"), "protected by a password");
