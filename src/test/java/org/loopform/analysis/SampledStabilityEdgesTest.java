@@ -1,0 +1,150 @@
+package org.loopform.analysis;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+import static org.loopform.analysis.RootPlacedLoop.at;
+import static org.loopform.analysis.RootPlacedLoop.concat;
+import static org.loopform.analysis.RootPlacedLoop.join;
+import static org.loopform.analysis.RootPlacedLoop.pair;
+
+import org.junit.jupiter.api.DisplayName;
+import org.junit.jupiter.api.Nested;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+/**
+ * Sampled stability on loops built from their roots ({@link RootPlacedLoop}): the closed-loop poles
+ * are chosen, so every expected verdict, count and largest magnitude is the chosen root itself (hand
+ * derivation: {@code 1 + L = C(z) / (z^d D(z))} vanishes exactly at the roots of C). The contract
+ * checked is the one {@link SampledStability} states: stable, marginal or unstable by the ring
+ * {@code 1 +- 1e-8}, the largest magnitude to 1e-6 of |ln r|, held at e^+-40 beyond.
+ */
+@DisplayName("Sampled stability on loops with chosen closed-loop poles")
+class SampledStabilityEdgesTest {
+
+    /** Twice the stated accuracy, as SampledLoopGoldenTest allows. */
+    private static final double LOG_TOLERANCE = 2 * SampledStability.RELATIVE_LOG_TOLERANCE;
+
+    private static void assertLargest(LoopStability s, double expected) {
+        double got = Math.log(s.largestPoleMagnitude().getAsDouble());
+        double want = Math.log(expected);
+        assertThat(got).as("ln of the largest |z|").isCloseTo(want, within(Math.max(1e-12, LOG_TOLERANCE * Math.abs(want))));
+    }
+
+    @Nested
+    @DisplayName("the largest pole")
+    class Largest {
+
+        // source: hand derivation; 1 + L = (z - p) / (z - 0.2) has its one closed-loop pole at p
+        @ParameterizedTest(name = "pole at {0}")
+        @CsvSource({"0.999", "0.9999", "0.99", "0.9", "0.5", "0.1", "0.01", "1e-4", "1e-9", "-0.7", "-0.99995",
+                "1.00001", "1.001", "1.01", "1.5", "3", "20", "1e5", "1e12", "-4"})
+        void one_real_pole_is_found_at_every_decade(double p) {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(p, 0)), join(at(0.2, 0)), 0));
+            boolean outside = Math.abs(p) > 1;
+            assertThat(s.verdict()).isEqualTo(outside ? Stability.UNSTABLE : Stability.STABLE);
+            assertThat(s.unstablePoles()).isEqualTo(outside ? 1 : 0);
+            assertThat(s.test()).isEqualTo(StabilityTest.SAMPLED_POLES);
+            assertLargest(s, Math.abs(p));
+        }
+
+        // source: hand derivation; the closed-loop poles are the chosen pair r e^(+-i theta) and 0.3
+        @ParameterizedTest(name = "pair of magnitude {0} at {1} rad")
+        @CsvSource({"0.95, 2.0", "0.6, 0.3", "0.999, 3.0", "1.05, 1.0", "2.5, 0.05", "1.0002, 2.9", "1e-3, 1.5",
+                "40, 0.7"})
+        void a_complex_pair_is_found(double r, double theta) {
+            double[][] closed = concat(pair(r, theta), join(at(0.3, 0)));
+            double[][] open = join(at(0.9, 0), at(0.5, 0), at(-0.4, 0));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, open, 0));
+            assertThat(s.unstablePoles()).isEqualTo(r > 1 ? 2 : 0);
+            assertLargest(s, Math.max(r, 0.3));
+        }
+
+        // source: hand derivation; 1 + L = (z - p) / (z - 0.2), and the contract holds magnitudes at e^40.
+        // (Nothing is asserted below e^-10 inward: a circle is passed as its offset from 1, so radii under
+        // about 1e-12 are not represented finely enough, and e^-40 itself rounds to radius 0.)
+        @Test
+        void beyond_e_to_the_40_the_magnitude_is_held_at_the_bound() {
+            LoopStability huge = SampledStability.of(RootPlacedLoop.of(join(at(Math.exp(45), 0)), join(at(0.2, 0)), 0));
+            assertThat(huge.verdict()).isEqualTo(Stability.UNSTABLE);
+            assertThat(huge.largestPoleMagnitude().getAsDouble()).isEqualTo(Math.exp(SampledStability.LARGEST_LOG_RADIUS));
+        }
+
+        // source: hand derivation; 1 + L = (z - p) / z, a gain behind one scan of delay (L = -p z^-1):
+        // poles far out, up to just inside the bound e^40, and far in are located
+        @ParameterizedTest(name = "ln|p| = {0}")
+        @CsvSource({"39", "35", "12", "3", "-3", "-9.5"})
+        void far_poles_are_located(double logRadius) {
+            double p = Math.exp(logRadius);
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(p, 0)), new double[0][], 1));
+            assertLargest(s, p);
+        }
+
+        // source: hand derivation; the largest of several poles at different radii, the rest far inside it
+        @Test
+        void the_largest_of_several_poles_is_the_one_reported() {
+            double[][] closed = concat(pair(0.7, 1.0), join(at(0.69, 0), at(-0.3, 0)), pair(0.2, 2.5));
+            double[][] open = concat(pair(0.95, 0.2), join(at(1.0, 0), at(0.5, 0)), pair(1.2, 2.0));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, open, 0));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(s, 0.7);
+        }
+    }
+
+    @Nested
+    @DisplayName("the ring about the unit circle")
+    class Ring {
+
+        // source: hand derivation; a pole 5e-9 off the circle lies in the ring 1 +- 1e-8 the contract names marginal
+        @ParameterizedTest(name = "pole at {0}")
+        @CsvSource({"1.000000005", "0.999999995", "-1.000000005", "-0.999999995"})
+        void a_pole_inside_the_ring_is_marginal(double p) {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(p, 0)), join(at(0.2, 0)), 0));
+            assertThat(s.verdict()).isEqualTo(Stability.MARGINAL);
+            assertThat(s.unstablePoles()).isZero();
+            assertThat(s.largestPoleMagnitude().getAsDouble()).isEqualTo(1.0);
+            assertThat(s.explanation()).contains("on the unit circle").contains("1.0E-8");
+        }
+
+        // source: hand derivation; poles 3e-8 off the circle are outside the ring on either side
+        @Test
+        void a_pole_just_outside_the_ring_is_decided() {
+            LoopStability out = SampledStability.of(RootPlacedLoop.of(join(at(1 + 3e-8, 0)), join(at(0.2, 0)), 0));
+            assertThat(out.verdict()).isEqualTo(Stability.UNSTABLE);
+            assertThat(out.unstablePoles()).isEqualTo(1);
+            assertLargest(out, 1 + 3e-8);
+            LoopStability in = SampledStability.of(RootPlacedLoop.of(join(at(1 - 3e-8, 0)), join(at(0.2, 0)), 0));
+            assertThat(in.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(in, 1 - 3e-8);
+        }
+
+        // source: hand derivation; an integrator (open-loop pole at z = 1) with the closed loop well inside
+        @Test
+        void an_open_loop_pole_on_the_circle_does_not_make_the_loop_marginal() {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(0.6, 0), at(0.4, 0)),
+                    join(at(1.0, 0), at(0.7, 0)), 0));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(s, 0.6);
+        }
+    }
+
+    @Nested
+    @DisplayName("the count outside a circle")
+    class Count {
+
+        // source: hand derivation; the count outside |z| = 1 + offset is the chosen poles beyond that radius.
+        // Closed-loop radii 0.1, 0.5 (pair), 0.6, 0.7, 1.2 (pair). The circles at 0.8 and 1.5 pass through
+        // open-loop poles (the pair 0.8 e^(+-2i), the real 1.5), where the count must still be the closed-loop one.
+        @ParameterizedTest(name = "offset {0}: {1} outside")
+        @CsvSource({"-0.999, 7", "-0.95, 7", "-0.75, 6", "-0.45, 4", "-0.35, 3", "-0.25, 2", "-0.2, 2", "0.1, 2",
+                "0.5, 0", "2.5, 0"})
+        void poles_outside_each_circle_are_counted(double offset, int expected) {
+            double[][] closed = concat(join(at(0.1, 0)), pair(0.5, 1.2), join(at(-0.6, 0)), pair(1.2, 0.5),
+                    join(at(0.7, 0)));
+            double[][] open = concat(join(at(0.9, 0), at(1.5, 0), at(-0.3, 0)), pair(0.8, 2.0), pair(2.0, 0.3));
+            int count = SampledStability.polesOutside(RootPlacedLoop.of(closed, open, 0), offset);
+            assertThat(count).isEqualTo(expected);
+        }
+    }
+}
