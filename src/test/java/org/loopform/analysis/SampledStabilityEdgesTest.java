@@ -147,4 +147,84 @@ class SampledStabilityEdgesTest {
             assertThat(count).isEqualTo(expected);
         }
     }
+
+    @Nested
+    @DisplayName("Newton's step towards a pole")
+    class Newton {
+
+        // source: hand derivation; 1 + L = C / D vanishes at the chosen pair 0.9 e^(+-i), so Newton's method on
+        // f(w) = 1 + L(e^w) converges to w = ln 0.9 + i (Newton's method for analytic functions, common practice)
+        @ParameterizedTest(name = "from ln r = {0}, theta = {1}")
+        @CsvSource({"-0.1, 1.0", "-0.2, 1.1", "-0.05, 0.95", "-0.1054, 1.3"})
+        void newton_converges_to_the_real_part_of_a_chosen_zero(double x, double theta) {
+            SampledLoop loop = RootPlacedLoop.of(concat(pair(0.9, 1.0), join(at(0.2, 0))),
+                    join(at(0.5, 0), at(-0.5, 0), at(0.1, 0)), 0);
+            assertThat(SampledStability.newton(loop, x, theta)).isCloseTo(Math.log(0.9), within(1e-12));
+        }
+
+        // source: hand derivation; the same for a real pole outside the circle, 1 + L = (z - 3) / z
+        @Test
+        void newton_converges_outside_the_circle() {
+            SampledLoop loop = RootPlacedLoop.of(join(at(3, 0)), new double[0][], 1);
+            assertThat(SampledStability.newton(loop, 1.0, 0.05)).isCloseTo(Math.log(3), within(1e-12));
+        }
+
+        // source: hand derivation; L = 0.5 everywhere (R = 0.5, no delay) has f' = 0: Newton has no step to take
+        @Test
+        void newton_gives_up_on_a_flat_loop() {
+            SampledLoop flat = new SampledLoop() {
+                @Override
+                public void at(double radiusOffset, double theta, double[] out) {
+                    out[0] = 0.5;
+                    out[1] = 0;
+                    out[2] = 0.5;
+                    out[3] = 0;
+                }
+
+                @Override
+                public java.util.List<org.apache.commons.math3.complex.Complex> openLoopPoles() {
+                    return java.util.List.of();
+                }
+
+                @Override
+                public int delayScans() {
+                    return 0;
+                }
+            };
+            assertThat(SampledStability.newton(flat, -0.1, 1.0)).isNaN();
+            // and with no closed-loop pole at all the verdict is stable (1 + L = 1.5 never vanishes)
+            assertThat(SampledStability.of(flat).verdict()).isEqualTo(Stability.STABLE);
+        }
+    }
+
+    @Nested
+    @DisplayName("the sentence")
+    class Sentence {
+
+        // source: hand derivation; one pole at z = 2 (1 + L = (z - 2) / (z - 0.2)), printed with six significant digits
+        @Test
+        void one_pole_outside_is_named_in_the_singular_with_its_magnitude() {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(2, 0)), join(at(0.2, 0)), 0));
+            assertThat(s.explanation()).isEqualTo(
+                    "One closed-loop pole lies outside the unit circle (largest |z| = 2.00000): the loop runs away.");
+        }
+
+        // source: hand derivation; the pair 3 e^(+-0.5 i) and 0.1: two poles outside, the largest of magnitude 3
+        @Test
+        void several_poles_outside_are_counted_in_the_sentence() {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(concat(pair(3, 0.5), join(at(0.1, 0))),
+                    join(at(0.2, 0), at(0.3, 0), at(0.4, 0)), 0));
+            assertThat(s.explanation()).isEqualTo(
+                    "2 closed-loop poles lie outside the unit circle (largest |z| = 3.00000): the loop runs away.");
+        }
+
+        // source: hand derivation; poles 0.25 and -0.5: stable, the largest 0.5
+        @Test
+        void a_stable_loop_names_its_largest_pole() {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(0.25, 0), at(-0.5, 0)),
+                    join(at(0.9, 0), at(0.8, 0)), 0));
+            assertThat(s.explanation()).isEqualTo(
+                    "Every closed-loop pole lies inside the unit circle (largest |z| = 0.500000).");
+        }
+    }
 }
