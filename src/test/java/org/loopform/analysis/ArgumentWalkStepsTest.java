@@ -223,4 +223,17 @@ class ArgumentWalkStepsTest {
         assertThat(flat.asked).containsExactly(1.0, 2.0, 3.0);
         assertThat(walk.evaluations()).isEqualTo(3);
     }
+
+    // source: hand derivation; |1 + 0.9 e^(i t)|^2 = 1.81 + 1.8 cos t is smallest at t = pi (0.1), and pi is a seed
+    @Test
+    void the_closest_point_is_where_one_plus_l_is_smallest() {
+        ArgumentWalk walk = new ArgumentWalk((t, out) -> {
+            out[0] = 0.9 * Math.cos(t);
+            out[1] = 0.9 * Math.sin(t);
+            out[2] = out[0];
+            out[3] = out[1];
+        }, 0.0);
+        walk.change(new double[] {0, 1, Math.PI, 5, 2 * Math.PI});
+        assertThat(walk.closestT()).isEqualTo(Math.PI);
+    }
 }

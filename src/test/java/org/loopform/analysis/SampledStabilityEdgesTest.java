@@ -107,6 +107,21 @@ class SampledStabilityEdgesTest {
             assertThat(s.explanation()).contains("on the unit circle").contains("1.0E-8");
         }
 
+        // source: hand derivation; a pole exactly on the ring's inner or outer circle (z = 1 -+ 1e-8, on the
+        // positive real axis where the count's path starts, or at 1 rad) lies in the closed ring: never stable
+        @ParameterizedTest(name = "offset {0}, angle {1} rad")
+        @CsvSource({"-1e-8, 0", "1e-8, 0", "-1e-8, 1", "1e-8, 1", "-1e-8, 3.141592653589793"})
+        void a_pole_on_the_ring_edge_is_not_stable(double offset, double angle) {
+            double r = 1 + offset;
+            double[][] closed = angle == 0 || angle == Math.PI
+                    ? join(at(r * Math.cos(angle), 0), at(0.3, 0)) : pair(r, angle);
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, join(at(0.5, 0), at(0.6, 0)), 0));
+            assertThat(s.verdict()).isNotEqualTo(Stability.STABLE);
+            if (offset < 0) {
+                assertThat(s.verdict()).isEqualTo(Stability.MARGINAL);
+            }
+        }
+
         // source: hand derivation; poles 3e-8 off the circle are outside the ring on either side
         @Test
         void a_pole_just_outside_the_ring_is_decided() {
