@@ -242,4 +242,56 @@ class SampledStabilityEdgesTest {
                     "Every closed-loop pole lies inside the unit circle (largest |z| = 0.500000).");
         }
     }
+
+    @Nested
+    @DisplayName("a pole-zero pair the loop cancels")
+    class Cancelled {
+
+        // source: hand derivation; 1 + L = (z - q)(z - 0.3) / ((z - q)(z - 0.5)): q is an open-loop pole the
+        // controller's zero cancels. The closed loop keeps the mode z = q (the class contract: the count keeps a
+        // cancelled pair on both sides; an unstable cancelled mode is internally unstable, Astrom and Murray,
+        // Feedback Systems, 2008, ch. 11 on pole-zero cancellations - from memory for the chapter), and
+        // 1 + L has no zero there, so Newton cannot find it and the bracket must.
+        @ParameterizedTest(name = "cancelled mode at {0}")
+        @CsvSource({"1.5, UNSTABLE", "-3, UNSTABLE", "1.02, UNSTABLE", "0.8, STABLE", "0.995, STABLE", "1.000000005, MARGINAL"})
+        void the_cancelled_mode_is_counted(double q, Stability verdict) {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(q, 0), at(0.3, 0)),
+                    join(at(q, 0), at(0.5, 0)), 0));
+            assertThat(s.verdict()).isEqualTo(verdict);
+            if (verdict != Stability.MARGINAL) {
+                assertThat(s.unstablePoles()).isEqualTo(Math.abs(q) > 1 ? 1 : 0);
+                assertLargest(s, Math.abs(q));
+            }
+        }
+    }
+
+    @Nested
+    @DisplayName("open-loop poles that need many seed points")
+    class Seeds {
+
+        // source: hand derivation; an open-loop pair 0.5 e^(+-i 1e-45), a double pole at 0.5 for every purpose,
+        // seeds the walk down to angle 1e-45 (46 decades of points); the closed-loop poles are 0.2 and -0.6
+        @Test
+        void a_pair_at_a_tiny_angle_is_walked_to_the_same_answer() {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(0.2, 0), at(-0.6, 0)),
+                    pair(0.5, 1e-45), 0));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(s, 0.6);
+            LoopStability unstable = SampledStability.of(RootPlacedLoop.of(join(at(0.2, 0), at(-1.6, 0)),
+                    pair(0.5, 1e-45), 0));
+            assertThat(unstable.unstablePoles()).isEqualTo(1);
+            assertLargest(unstable, 1.6);
+        }
+
+        // source: hand derivation; open-loop poles 1e-9 (relative) inside the unit circle and inside the ring's
+        // circles, closed-loop poles 0.4 e^(+-0.9 i)
+        @Test
+        void open_loop_poles_hugging_the_circles_do_not_move_the_answer() {
+            double[][] open = concat(pair(1 - 1e-8 + 1e-17, 0.3), pair(1 + 1e-8 - 5e-18, 2.2));
+            double[][] closed = concat(pair(0.4, 0.9), pair(0.35, 2.0));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, open, 0));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(s, 0.4);
+        }
+    }
 }
