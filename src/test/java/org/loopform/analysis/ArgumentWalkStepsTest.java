@@ -236,4 +236,33 @@ class ArgumentWalkStepsTest {
         walk.change(new double[] {0, 1, Math.PI, 5, 2 * Math.PI});
         assertThat(walk.closestT()).isEqualTo(Math.PI);
     }
+
+    // source: the JDK's Math.atan2 (fdlibm, outside the project), whose sign the two predicates promise to
+    // give without the arctangent, on every pair of signed zeros, small, unit and large values (whose ratios do
+    // not underflow: atan2(1e-320, 1e300) rounds to 0, a sign no cross and dot product of a walk's points carries)
+    @Test
+    void the_turn_signs_are_those_of_atan2() {
+        double[] values = {0.0, -0.0, 1e-150, -1e-150, 1.0, -1.0, 1e150, -1e150};
+        for (double y : values) {
+            for (double x : values) {
+                double a = Math.atan2(y, x);
+                assertThat(ArgumentWalk.positiveTurn(y, x)).as("atan2(%s, %s) > 0", y, x).isEqualTo(a > 0);
+                assertThat(ArgumentWalk.negativeTurn(y, x)).as("atan2(%s, %s) < 0", y, x).isEqualTo(a < 0);
+            }
+        }
+    }
+
+    // source: hand derivation; 1 + L = 1 + 3 e^(i t) goes once round 0 counter-clockwise over [0, 2 pi] and
+    // crosses the negative real axis at t = pi, exactly where |R| jumps tenfold: that step can never meet the
+    // magnitude rule, so the walk stops cutting it at its smallest step and must still add the crossing
+    @Test
+    void a_step_stopped_at_the_smallest_size_still_adds_its_crossing() {
+        ArgumentWalk walk = new ArgumentWalk((t, out) -> {
+            out[0] = 3 * Math.cos(t);
+            out[1] = 3 * Math.sin(t);
+            out[2] = t < Math.PI ? 1 : 10;
+            out[3] = 0;
+        }, 0.0);
+        assertThat(walk.change(seeds(0, 17))).isCloseTo(2 * Math.PI, within(1e-9));
+    }
 }
