@@ -294,4 +294,34 @@ class SampledStabilityEdgesTest {
             assertLargest(s, 0.4);
         }
     }
+
+    @Nested
+    @DisplayName("a pole nearer the circle than the largest")
+    class Decoy {
+
+        // source: hand derivation; closed-loop pairs 1.0001 e^(+-2i) and 1.003 e^(+-0.5i) (open-loop poles 0.5,
+        // 0.4, -0.3, 0.2): the first lies nearest the unit circle, so a step towards the nearest zero finds it,
+        // but 1.003 is the largest and four poles lie outside
+        @Test
+        void an_unstable_loop_reports_the_largest_not_the_nearest() {
+            double[][] closed = concat(pair(1.0001, 2.0), pair(1.003, 0.5));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed,
+                    join(at(0.5, 0), at(0.4, 0), at(-0.3, 0), at(0.2, 0)), 0));
+            assertThat(s.verdict()).isEqualTo(Stability.UNSTABLE);
+            assertThat(s.unstablePoles()).isEqualTo(4);
+            assertLargest(s, 1.003);
+        }
+
+        // source: hand derivation; closed-loop pairs 0.9995 e^(+-i) and 0.999 e^(+-2.5i), with open-loop poles
+        // 0.9996 e^(+-i) beside the first (so |1 + L| is near 1 there) and 0.2, 0.3 e^(+-2i): 1 + L is smallest on
+        // the unit circle near the second, yet the largest pole is 0.9995
+        @Test
+        void a_stable_loop_reports_the_largest_not_the_nearest_zero() {
+            double[][] closed = concat(pair(0.9995, 1.0), pair(0.999, 2.5));
+            double[][] open = concat(pair(0.9996, 1.0), pair(0.3, 2.0));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, open, 0));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(s, 0.9995);
+        }
+    }
 }
