@@ -283,6 +283,27 @@ class SampledStabilityEdgesTest {
             assertLargest(unstable, 1.6);
         }
 
+        // source: hand derivation; a double open-loop pair 0.99999 e^(+-i phi), phi = 4.5 pi / 16 = 0.8836 midway
+        // between two of the walk's fixed points (pi / 4 = 0.785 below, 5 pi / 16 = 0.982 above, no other between):
+        // seen only from those points, R turns by nearly 2 pi between them and looks as if it had not turned at all.
+        // The closed-loop poles are the unstable pair 1.2 e^(+-0.3 i) and 0.5 e^(+-2.5 i): two lie outside, and a
+        // walk that missed the double pole's turn would count none (a false pass)
+        @Test
+        void a_double_open_loop_pole_next_to_the_circle_is_not_stepped_over() {
+            double phi = 4.5 * Math.PI / 16;
+            double[][] open = concat(pair(0.99999, phi), pair(0.99999, phi));
+            double[][] closed = concat(pair(1.2, 0.3), pair(0.5, 2.5));
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(closed, open, 0));
+            assertThat(s.verdict()).isEqualTo(Stability.UNSTABLE);
+            assertThat(s.unstablePoles()).isEqualTo(2);
+            assertLargest(s, 1.2);
+            // and outside the circle, with the closed loop stable: the two turns it would miss are counted
+            LoopStability stable = SampledStability.of(RootPlacedLoop.of(concat(pair(0.6, 0.3), pair(0.5, 2.5)),
+                    concat(pair(1.00001, phi), pair(1.00001, phi)), 0));
+            assertThat(stable.verdict()).isEqualTo(Stability.STABLE);
+            assertLargest(stable, 0.6);
+        }
+
         // source: hand derivation; open-loop poles 1e-9 (relative) inside the unit circle and inside the ring's
         // circles, closed-loop poles 0.4 e^(+-0.9 i)
         @Test
