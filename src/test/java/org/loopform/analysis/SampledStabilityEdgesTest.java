@@ -164,6 +164,26 @@ class SampledStabilityEdgesTest {
     }
 
     @Nested
+    @DisplayName("a circle through an open-loop pole")
+    class ThroughAPole {
+
+        // source: hand derivation; the circle |z| = 1.5 passes through the open-loop pole 1.5, and the closed-loop
+        // pole 1.5 (1 - 1e-9) lies a hair inside it (with 0.3 far inside): no pole lies outside |z| = 1.5, nor
+        // outside |z| = 0.75 e^(+-2.2 i)'s circle through the other open-loop pair. The count must move its circle
+        // off the open-loop pole outward, past no closed-loop pole, never inward across one
+        @Test
+        void the_circle_steps_outward_off_the_pole() {
+            double[][] closed = concat(join(at(1.5 * (1 - 1e-9), 0), at(0.3, 0)), pair(0.75 * (1 - 1e-9), 2.2));
+            double[][] open = concat(join(at(1.5, 0), at(0.5, 0)), pair(0.75, 2.2));
+            SampledLoop loop = RootPlacedLoop.of(closed, open, 0);
+            assertThat(SampledStability.polesOutside(loop, 0.5)).isZero();
+            assertThat(SampledStability.polesOutside(loop, -0.25)).isEqualTo(1);
+            // and a hair further in, the pole just inside is counted
+            assertThat(SampledStability.polesOutside(loop, 0.5 - 1e-7)).isEqualTo(1);
+        }
+    }
+
+    @Nested
     @DisplayName("Newton's step towards a pole")
     class Newton {
 
