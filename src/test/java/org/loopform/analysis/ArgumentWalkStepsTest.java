@@ -254,7 +254,8 @@ class ArgumentWalkStepsTest {
 
     // source: hand derivation; 1 + L = 1 + 3 e^(i t) goes once round 0 counter-clockwise over [0, 2 pi] and
     // crosses the negative real axis at t = pi, exactly where |R| jumps tenfold: that step can never meet the
-    // magnitude rule, so the walk stops cutting it at its smallest step and must still add the crossing
+    // magnitude rule, so the walk stops cutting it at its smallest step and must still add the crossing (the
+    // seeds start at 0.1, so no seed sits on pi and the stopped step straddles the crossing)
     @Test
     void a_step_stopped_at_the_smallest_size_still_adds_its_crossing() {
         ArgumentWalk walk = new ArgumentWalk((t, out) -> {
@@ -263,6 +264,21 @@ class ArgumentWalkStepsTest {
             out[2] = t < Math.PI ? 1 : 10;
             out[3] = 0;
         }, 0.0);
-        assertThat(walk.change(seeds(0, 17))).isCloseTo(2 * Math.PI, within(1e-9));
+        assertThat(walk.change(seeds(0.1, 17))).isCloseTo(2 * Math.PI, within(1e-9));
+    }
+
+    // source: hand derivation; 1 + L = t on [0, 1] vanishes at the path's first point, where no step towards 0
+    // ever shrinks below its position's relative size: the walk must still end (by its depth cap), with the
+    // closest point t = 0, where |1 + L| = 0
+    @Test
+    void a_zero_at_the_start_of_the_path_still_ends_the_walk() {
+        ArgumentWalk walk = new ArgumentWalk((t, out) -> {
+            out[0] = t - 1;
+            out[1] = 0;
+            out[2] = out[0];
+            out[3] = 0;
+        }, 0.0);
+        walk.change(new double[] {0, 1});
+        assertThat(walk.closestT()).isEqualTo(0.0);
     }
 }
