@@ -25,8 +25,15 @@ public final class SampledStability {
 
     static final double MARGINAL_TOLERANCE = 1e-8;
     static final double RELATIVE_LOG_TOLERANCE = 1e-6;
-    /** Beyond e^40 (or below e^-40) the magnitude is reported at the bound. */
+    /** Beyond e^40 the magnitude is reported at the bound. */
     static final double LARGEST_LOG_RADIUS = 40;
+    /**
+     * Below e^-25 (1.4e-11) the magnitude is reported at the bound. The loop is evaluated on circles
+     * given by their offset from 1 ({@link SampledLoop#at}), and 1 + (e^x - 1) keeps the radius to
+     * about 1.1e-16 absolute: at e^-25 that is 8e-6 of r, 3e-7 of |ln r|, within the stated accuracy;
+     * further in the radius is lost to rounding (at e^-37 it is 0) and a count there means nothing.
+     */
+    static final double SMALLEST_LOG_RADIUS = -25;
     static final int BASE_POINTS = 16;
     /** A circle this close (relative) to an open-loop pole's radius is moved just outside it. */
     static final double POLE_CLEARANCE = 1e-9;
@@ -99,15 +106,15 @@ public final class SampledStability {
         } else {
             out = -MARGINAL_TOLERANCE;
             in = -1e-3;
-            while (in > -LARGEST_LOG_RADIUS && c.outsideLog(in) == 0) {
+            while (in > SMALLEST_LOG_RADIUS && c.outsideLog(in) == 0) {
                 out = in;
                 in *= 10;
             }
-            if (in <= -LARGEST_LOG_RADIUS) {
-                if (c.outsideLog(-LARGEST_LOG_RADIUS) == 0) {
-                    return -LARGEST_LOG_RADIUS;
+            if (in <= SMALLEST_LOG_RADIUS) {
+                if (c.outsideLog(SMALLEST_LOG_RADIUS) == 0) {
+                    return SMALLEST_LOG_RADIUS;
                 }
-                in = -LARGEST_LOG_RADIUS;
+                in = SMALLEST_LOG_RADIUS;
             }
         }
         for (int step = 0; step < 200; step++) {
@@ -156,7 +163,7 @@ public final class SampledStability {
         double start = Math.log1p(offset);
         double proposal = newton(c.loop, start, c.closestTheta);
         boolean side = outward ? proposal > start : proposal < start;
-        if (side && Math.abs(proposal) < LARGEST_LOG_RADIUS) {
+        if (side && proposal < LARGEST_LOG_RADIUS && proposal > SMALLEST_LOG_RADIUS) {
             double eps = 0.5 * Math.max(1e-12, RELATIVE_LOG_TOLERANCE * Math.abs(proposal));
             if (c.outsideLog(proposal + eps) == 0 && c.outsideLog(proposal - eps) > 0) {
                 return proposal;
@@ -196,7 +203,7 @@ public final class SampledStability {
                         Math.atan2(p.getImaginary(), p.getReal()), LARGEST_LOG_RADIUS, p), start);
             }
         }
-        if (!(best < start) || !(Math.abs(best) < LARGEST_LOG_RADIUS)) {
+        if (!(best < start) || !(best > SMALLEST_LOG_RADIUS)) {
             return Double.NaN;
         }
         double eps = 0.5 * Math.max(1e-12, RELATIVE_LOG_TOLERANCE * Math.abs(best));

@@ -74,11 +74,22 @@ class SampledStabilityEdgesTest {
         // source: hand derivation; 1 + L = (z - p) / z, a gain behind one scan of delay (L = -p z^-1):
         // poles far out, up to just inside the bound e^40, and far in are located
         @ParameterizedTest(name = "ln|p| = {0}")
-        @CsvSource({"39", "35", "12", "3", "-3", "-9.5"})
+        @CsvSource({"39", "35", "12", "3", "-3", "-9.5", "-12", "-20", "-24.9"})
         void far_poles_are_located(double logRadius) {
             double p = Math.exp(logRadius);
             LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(p, 0)), new double[0][], 1));
             assertLargest(s, p);
+        }
+
+        // source: hand derivation; 1 + L = (z - p) / z with p = e^-30, and deadbeat (p = 0): below the floor
+        // e^-25 the magnitude is reported at the floor (a radius passed as its offset from 1 keeps about
+        // 1.1e-16 absolute, so e^-30 = 9.4e-14 would be known only to 1e-3), never as a smaller made-up figure
+        @ParameterizedTest(name = "p = {0}")
+        @CsvSource({"9.357622968840175e-14", "0"})
+        void below_e_to_the_minus_25_the_magnitude_is_held_at_the_floor(double p) {
+            LoopStability s = SampledStability.of(RootPlacedLoop.of(join(at(p, 0)), new double[0][], 1));
+            assertThat(s.verdict()).isEqualTo(Stability.STABLE);
+            assertThat(s.largestPoleMagnitude().getAsDouble()).isEqualTo(Math.exp(SampledStability.SMALLEST_LOG_RADIUS));
         }
 
         // source: hand derivation; the largest of several poles at different radii, the rest far inside it
