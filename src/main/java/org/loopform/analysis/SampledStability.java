@@ -44,7 +44,22 @@ public final class SampledStability {
     }
 
     public static LoopStability of(SampledLoop loop) {
+        return decide(new Counter(loop));
+    }
+
+    /**
+     * The circles walked to decide {@code loop} (for tests of the quick paths: a loop whose largest pole
+     * Newton's method reaches is decided in four walks when stable - at 1 + and 1 - the tolerance and
+     * either side of the pole - and in three when unstable with that pole within 1 % of the circle, where
+     * Newton's travel outward is bounded; the bracketing search takes six to thirty).
+     */
+    static int circlesWalked(SampledLoop loop) {
         Counter counter = new Counter(loop);
+        decide(counter);
+        return counter.walks;
+    }
+
+    private static LoopStability decide(Counter counter) {
         int outside = counter.outside(MARGINAL_TOLERANCE);
         if (outside > 0) {
             double largest = Math.exp(largestLogRadius(counter, true));
@@ -291,6 +306,8 @@ public final class SampledStability {
         private final SampledLoop loop;
         private final List<Complex> poles;
         private boolean unresolved;
+        /** How many circles have been walked (a remembered count is not walked again). */
+        private int walks;
         /** After a count: the angle on that circle where |1 + L| was smallest. */
         private double closestTheta;
 
@@ -336,6 +353,7 @@ public final class SampledStability {
         }
 
         private int walkOutside(double offset) {
+            walks++;
             // a circle through an open-loop pole has no winding number: step just outside the pole
             for (Complex p : poles) {
                 double r = p.abs();
