@@ -1,3 +1,4 @@
+// source: the invented records examples/records/generate.py (numpy, independent of loopform) wrote from known controllers
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;

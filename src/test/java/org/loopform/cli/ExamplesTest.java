@@ -1,3 +1,4 @@
+// source: plumbing (the README's and examples/README.md's commands run as written); record values from examples/records/generate.py (numpy, independent of loopform)
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,3 +1,4 @@
+// source: deviations of the PI law before and after rounding evaluated independently with numpy (figures beside each check); severity thresholds: loopform policy (common practice)
 package org.loopform.form;
 
 import static org.assertj.core.api.Assertions.assertThat;
