@@ -91,7 +91,8 @@ public final class LoopCheck {
                 comparison.map(c -> c.design().margins()), comparison.map(c -> c.target().margins()),
                 Optional.of(discretization),
                 mismatchBand.highRadPerSecond(), comparison.map(c -> c.target().stability().isStable()).orElse(true),
-                sourceFacts(loop, conversion), sourceDiscretization(loop, conversion, mismatchBand)), policy));
+                sourceFacts(loop, conversion), departs(discretization, policy)
+                        ? sourceDiscretization(loop, conversion, mismatchBand) : Optional.empty()), policy));
         compared.ifPresent(c -> {
             findings.addAll(c.stepFindings());
             findings.addAll(responseFindings(c.comparison(), h, policy));
@@ -111,6 +112,15 @@ public final class LoopCheck {
                     + " --scan for every loop");
         }
         return loop.targetScanSeconds();
+    }
+
+    /**
+     * Whether the new controller as run departs from its own law enough for the discretization rule to
+     * speak; only then does it read the old controller's own departure (computed for that alone).
+     */
+    private static boolean departs(LawDeviation discretization, CheckPolicy policy) {
+        return discretization.gainDb() > policy.mismatchWarnDb()
+                || discretization.phaseDegrees() > policy.mismatchWarnDegrees();
     }
 
     /**

@@ -45,7 +45,8 @@ public final class CheckRules {
      * What the rules look at. The loops' margins are there only with a process model (absent without
      * one); {@code mismatch} is the controller as run against its own continuous law, absent where
      * it was not computed; {@code sourceMismatch} the same for the old controller at its own scan
-     * (absent for a continuous design), so that a condition it already had is said so.
+     * (absent for a continuous design, and where the new controller's departure is within the policy,
+     * the only case the rule reads it), so that a condition it already had is said so.
      */
     public record Inputs(FormDefinition targetForm, double scanSeconds, ScanFacts facts,
                          Optional<LoopMargins> designLoop, Optional<LoopMargins> targetLoop,
