@@ -42,6 +42,8 @@ public final class ContinuousStability {
     static final double ROOT_AXIS_TOLERANCE = 1e-9;
     /** Log-spaced base points per decade along the path. */
     static final int POINTS_PER_DECADE = 10;
+    /** A high-frequency loop gain within this of 1 is taken as 1: the neutral chain on the axis. */
+    static final double HIGH_FREQUENCY_GAIN_TOLERANCE = 1e-12;
     private static final double[] WINDOW = {-8, -4, -2, -1, -0.5, -0.25, 0, 0.25, 0.5, 1, 2, 4, 8};
 
     private ContinuousStability() {
@@ -76,13 +78,13 @@ public final class ContinuousStability {
         }
         if (relativeDegree == 0) {
             double c = Math.abs(num.coefficient(num.degree()) / den.coefficient(den.degree()));
-            if (c > 1 + 1e-12) {
+            if (c > 1 + HIGH_FREQUENCY_GAIN_TOLERANCE) {
                 return new LoopStability(Stability.UNSTABLE, StabilityTest.HIGH_FREQUENCY_GAIN, Integer.MAX_VALUE,
                         OptionalDouble.empty(), "The loop gain stays at " + String.format(java.util.Locale.ROOT,
                         "%.4g", c) + " (above 1) at high frequency behind a dead time: the closed loop has"
                         + " infinitely many unstable poles. Filter the derivative.");
             }
-            if (c >= 1 - 1e-12) {
+            if (c >= 1 - HIGH_FREQUENCY_GAIN_TOLERANCE) {
                 return new LoopStability(Stability.MARGINAL, StabilityTest.HIGH_FREQUENCY_GAIN, 0,
                         OptionalDouble.empty(), "The loop gain stays at 1 at high frequency behind a dead time: a"
                         + " chain of closed-loop poles lies on the imaginary axis. Filter the derivative.");
@@ -189,7 +191,7 @@ public final class ContinuousStability {
     }
 
     /** Every root of p lies within 1 + max |a_k / a_n| (Cauchy's bound). */
-    private static double cauchyBound(Polynomial p) {
+    static double cauchyBound(Polynomial p) {
         int n = p.degree();
         if (n < 1) {
             return 0;

@@ -229,7 +229,7 @@ public final class SampledStability {
     }
 
     /** The larger of two proposals that lie inside {@code start} (NaN for none). */
-    private static double larger(double best, double proposal, double start) {
+    static double larger(double best, double proposal, double start) {
         if (!(proposal < start)) {
             return best;
         }
@@ -301,6 +301,19 @@ public final class SampledStability {
         out[1] = dr * fi + di * fr;
     }
 
+    /** 10^(k / POINTS_PER_DECADE), from a table for the usual k (the same values Math.pow gives). */
+    static double decadeStep(int k) {
+        return k < DECADE_STEPS.length ? DECADE_STEPS[k] : Math.pow(10, (double) k / POINTS_PER_DECADE);
+    }
+
+    private static final double[] DECADE_STEPS = new double[POINTS_PER_DECADE * 40];
+
+    static {
+        for (int k = 0; k < DECADE_STEPS.length; k++) {
+            DECADE_STEPS[k] = Math.pow(10, (double) k / POINTS_PER_DECADE);
+        }
+    }
+
     /** Counts closed-loop poles outside circles about 0. */
     private static final class Counter {
         private final SampledLoop loop;
@@ -337,19 +350,6 @@ public final class SampledStability {
         Counter(SampledLoop loop) {
             this.loop = loop;
             this.poles = List.copyOf(loop.openLoopPoles());
-        }
-
-        /** 10^(k / POINTS_PER_DECADE), from a table for the usual k (the same values Math.pow gives). */
-        private static double decadeStep(int k) {
-            return k < DECADE_STEPS.length ? DECADE_STEPS[k] : Math.pow(10, (double) k / POINTS_PER_DECADE);
-        }
-
-        private static final double[] DECADE_STEPS = new double[POINTS_PER_DECADE * 40];
-
-        static {
-            for (int k = 0; k < DECADE_STEPS.length; k++) {
-                DECADE_STEPS[k] = Math.pow(10, (double) k / POINTS_PER_DECADE);
-            }
         }
 
         private int walkOutside(double offset) {
