@@ -227,10 +227,9 @@ final class MarginSearch {
         loop.at(omega, reIm);
         double phaseRadians = phase[k] + ArgumentWalk.turn(re[k], im[k], reIm[0], reIm[1]);
         double marginDegrees = 180 + Math.toDegrees(phaseRadians);
+        // in (-180, 180] even after rounding: with n = ceil(fl(fl(m - 180) / 360)), fl(m - 180) > 360 (n - 1),
+        // so m - 180 > 360 (n - 1) (rounding is monotone and 360 (n - 1) is a double): m - 360 n > -180
         double wrappedDegrees = marginDegrees - 360 * Math.ceil((marginDegrees - 180) / 360);
-        if (wrappedDegrees <= -180) {
-            wrappedDegrees += 360; // rounding at the branch cut
-        }
         // the extra dead time turns this crossover clockwise by omega * tau until it reaches -1
         double turnToLimitDegrees = wrappedDegrees < 0 ? wrappedDegrees + 360 : wrappedDegrees;
         gainCrossovers.add(new GainCrossover(omega, wrappedDegrees, Math.toRadians(turnToLimitDegrees) / omega));

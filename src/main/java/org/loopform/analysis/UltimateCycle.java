@@ -8,11 +8,15 @@ import java.util.Objects;
  * The ultimate gain and frequency of a process: the proportional gain {@code Ku} that puts the
  * loop with a P controller at the stability limit, and the frequency {@code wu} at which it
  * then oscillates. {@code Ku = 1 / |P(i wu)|} where the phase of {@code P} is -180 degrees;
- * with several such frequencies, the one giving the smallest {@code Ku}. The ultimate period
+ * with several such frequencies, the one giving the smallest {@code Ku} (the lowest of those that
+ * tie within 1e-9 relative). The ultimate period
  * is {@code Tu = 2 pi / wu}. Definition from Ziegler and Nichols, "Optimum settings for
  * automatic controllers", Trans. ASME 64, 1942.
  */
 public record UltimateCycle(double ultimateGain, double ultimateRadPerSecond) {
+
+    /** Ultimate gains this close, relative, are one gain: the lower frequency is the ultimate one. */
+    private static final double TIE_RELATIVE = 1e-9;
 
     public UltimateCycle {
         if (!(ultimateGain > 0) || Double.isInfinite(ultimateGain)) {
@@ -35,7 +39,9 @@ public record UltimateCycle(double ultimateGain, double ultimateRadPerSecond) {
         LoopMargins margins = MarginAnalysis.over(band).analyze(process);
         PhaseCrossover lowest = null;
         for (PhaseCrossover c : margins.phaseCrossovers()) {
-            if (lowest == null || c.gainFactor() < lowest.gainFactor()) {
+            // the crossovers come in rising frequency; a tie (a pure dead time reaches -180 deg at every odd
+            // multiple of pi / L with one gain) goes to the lowest, the oscillation's fundamental
+            if (lowest == null || c.gainFactor() < lowest.gainFactor() * (1 - TIE_RELATIVE)) {
                 lowest = c;
             }
         }

@@ -25,6 +25,21 @@ class MarginSearchEdgesTest {
         return new TransferFunction(Polynomial.constant(gainPerSecond), Polynomial.ofAscending(0, 1));
     }
 
+    // source: hand derivation. L = k/s^2 (a double integrator under proportional control) is real and
+    // negative at every frequency: |L| = 1 at w = sqrt(k) with phase -180 deg, so the loop sits on -1
+    // there (closed-loop poles +-i sqrt(k)): PM 0 deg and no extra dead time needed, DM 0 s.
+    @Test
+    void a_plot_on_the_negative_real_axis_has_no_phase_margin_and_no_delay_margin() {
+        for (double k : new double[] {1, 4, 0.25}) {
+            TransferFunction doubleIntegrator = new TransferFunction(Polynomial.constant(k), Polynomial.ofAscending(0, 0, 1));
+            LoopMargins margins = MarginAnalysis.over(FrequencyBand.of(0.01, 100)).analyze(LoopResponse.of(doubleIntegrator));
+
+            assertThat(margins.crossoverRadPerSecond().getAsDouble()).isCloseTo(Math.sqrt(k), within(1e-9));
+            assertThat(margins.phaseMarginDegrees().getAsDouble()).isCloseTo(0, within(1e-9));
+            assertThat(margins.delayMarginSeconds().getAsDouble()).isCloseTo(0, within(1e-9));
+        }
+    }
+
     @Nested
     @DisplayName("a crossing at an end of the band")
     class BandEnds {

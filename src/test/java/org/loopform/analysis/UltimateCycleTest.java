@@ -1,3 +1,4 @@
+// source: hand derivations and textbook examples named beside each check
 package org.loopform.analysis;
 
 import org.loopform.lti.FrequencyBand;
@@ -25,6 +26,20 @@ class UltimateCycleTest {
         assertThat(cycle.ultimateGain()).isCloseTo(8.0, within(8.0 * RELATIVE));
         assertThat(cycle.ultimatePeriodSeconds())
                 .isCloseTo(2 * Math.PI / Math.sqrt(3), within(RELATIVE * 2 * Math.PI / Math.sqrt(3)));
+    }
+
+    // Derived exactly: a pure dead time K e^(-s L) has |P| = K everywhere and phase -w L, -180 deg at
+    // w = pi / L, 3 pi / L, 5 pi / L...: every crossing has Ku = 1 / K, and the loop at that gain
+    // oscillates first at the lowest, Tu = 2 L (the classic result for a dead-time process).
+    @Test
+    void pure_dead_time_has_ku_one_over_k_and_tu_twice_the_dead_time() {
+        for (double deadTime : new double[] {1, 7, 0.3}) {
+            UltimateCycle cycle = UltimateCycle.of(LoopResponse.of(TransferFunction.gain(2), deadTime),
+                    FrequencyBand.of(0.1 / deadTime, 30 / deadTime));
+
+            assertThat(cycle.ultimateGain()).isCloseTo(0.5, within(0.5 * RELATIVE));
+            assertThat(cycle.ultimatePeriodSeconds()).isCloseTo(2 * deadTime, within(RELATIVE * 2 * deadTime));
+        }
     }
 
     // Derived exactly: -4 atan(w) = -180 deg at w = 1, |P| = 1/(sqrt 2)^4 = 1/4.
