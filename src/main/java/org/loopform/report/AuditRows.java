@@ -17,6 +17,7 @@ import org.loopform.findings.Severity;
 import org.loopform.findings.Topic;
 import org.loopform.form.Conversion;
 import org.loopform.form.FormCodec;
+import org.loopform.form.FormDefinition;
 import org.loopform.form.FormUnits;
 import org.loopform.form.WrittenTuning;
 import org.loopform.tuning.PublishedTuning;
@@ -73,8 +74,10 @@ public final class AuditRows {
         return Double.isFinite(v) ? Numbers.significant(v, 6) : "";
     }
 
-    static String values(Map<String, String> given) {
-        return given.entrySet().stream().map(e -> e.getKey() + "=" + e.getValue()).collect(Collectors.joining("; "));
+    /** The source values as the user wrote them, each bare number followed by the source form's unit. */
+    static String values(Map<String, String> given, FormDefinition from) {
+        return given.entrySet().stream().map(e -> e.getKey() + "=" + FormUnits.asWritten(from, e.getKey(), e.getValue()))
+                .collect(Collectors.joining("; "));
     }
 
     static String written(WrittenTuning t, Conversion c, boolean entered) {
@@ -108,7 +111,7 @@ public final class AuditRows {
         PublishedTuning rule = o.row().ruleTuning();
         r.add(v.from().id());
         // a new loop tuned by rule: its source values are the rule's, as published, with their units
-        r.add(rule == null ? values(c.loop().tuning()) : RuleTuningText.values(rule));
+        r.add(rule == null ? values(c.loop().tuning(), v.from()) : RuleTuningText.values(rule));
         r.add(v.to().id());
         r.add(Numbers.plain(c.scanSeconds()));
         r.add(Boolean.toString(v.exact()));

@@ -5,7 +5,6 @@ import java.io.Reader;
 import java.io.Writer;
 import java.util.Comparator;
 import java.util.Locale;
-import java.util.Map;
 import java.util.stream.Collectors;
 import org.loopform.audit.LoopOutcome;
 import org.loopform.check.CheckResult;
@@ -45,8 +44,8 @@ final class HtmlIndex {
         // a new loop tuned by rule: the rule and its values as published stand where the old tuning would
         String oldForm = o.row().tunedByRule() ? "rule " + RuleTuningText.title(o.row().ruleTuning()) : c.from().id();
         String oldValues = o.row().tunedByRule() ? RuleTuningText.values(o.row().ruleTuning())
-                : r.loop().tuning().entrySet().stream().map(e -> e.getKey() + " " + e.getValue().trim()
-                + unitOf(c, e)).collect(Collectors.joining(", "));
+                : r.loop().tuning().entrySet().stream().map(e -> e.getKey() + " "
+                + FormUnits.asWritten(c.from(), e.getKey(), e.getValue())).collect(Collectors.joining(", "));
         StringBuilder newValues = new StringBuilder();
         c.entered().values().forEach((k, x) -> {
             if (newValues.length() > 0) {
@@ -69,16 +68,6 @@ final class HtmlIndex {
                 .append(Html.esc(newValues.toString())).append("</td><td>").append(Html.esc(shorten(worst)))
                 .append("</td></tr>\n");
         return sb.toString();
-    }
-
-    private static String unitOf(Conversion c, Map.Entry<String, String> e) {
-        try {
-            Double.parseDouble(e.getValue().trim());
-            String u = FormUnits.of(c.from(), e.getKey());
-            return u.isEmpty() ? "" : " " + u;
-        } catch (NumberFormatException x) {
-            return ""; // the value carries its own unit, as written
-        }
     }
 
     private static String shorten(String s) {

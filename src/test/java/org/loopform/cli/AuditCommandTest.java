@@ -43,6 +43,9 @@ class AuditCommandTest {
         assertThat(json.get("loops").get(2).get("design").isNull()).isTrue();
         assertThat(json.get("summary").get("loops").asInt()).isEqualTo(3);
         assertThat(Files.readAllLines(out.resolve("loops.csv")).get(0)).startsWith("tag,verdict,where");
+        // the source values as written, each bare number with the source form's unit (ideal: s/repeat, s)
+        assertThat(Files.readAllLines(out.resolve("loops.csv")).get(1))
+                .contains(",ideal,kc=0.5 %/%; ti=10 s/repeat; td=0 s,");
         // FIC-1: kc 0.5 -> pb 200 %, ti 10 s -> reset 6 repeats/min (pb = 100/kc, reset = 1/ti: common practice)
         assertThat(Files.readString(out.resolve("entry-sheet.csv"))).contains("FIC-1,ideal-pb-repeats,pb,200,%")
                 .contains("FIC-1,ideal-pb-repeats,reset,6,repeats/min");

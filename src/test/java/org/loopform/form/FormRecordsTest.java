@@ -159,6 +159,17 @@ class FormRecordsTest {
             assertThat(FormUnits.of(a, "ti")).isEqualTo("s/repeat");
         }
 
+        // A source value is shown as the user wrote it; a bare number gets the form's unit, so no
+        // figure is printed without one (a value written with its own unit keeps it).
+        @Test
+        void a_source_value_as_written_carries_a_unit() {
+            FormDefinition a = TestForms.unfiltered(Structure.IDEAL);
+            assertThat(FormUnits.asWritten(a, "ti", " 120 ")).isEqualTo("120 s/repeat");
+            assertThat(FormUnits.asWritten(a, "ti", "2min")).isEqualTo("2min");
+            assertThat(FormUnits.asWritten(a, "ti", "2 min")).isEqualTo("2 min");
+            assertThat(FormUnits.asWritten(a, "nothing-like-it", "3")).isEqualTo("3");
+        }
+
         @Test
         void reverse_action_is_a_positive_gain() {
             assertThat(Action.REVERSE.sign()).isEqualTo(1.0);
