@@ -202,8 +202,8 @@ public final class ChainSection {
                 .append(RuleTuningText.title(t)).append(" (").append(sourceShort(t)).append("): ")
                 .append(RuleTuningText.values(t)).append("; in ").append(c.check().conversion().to().id()).append(" at ")
                 .append(Numbers.plain(c.check().scanSeconds())).append(" s: ").append(c.check().verdict().id())
-                .append(c.robust() == null ? "" : ", worst Ms over the fit's 95 % box "
-                        + Numbers.significant(c.robust().worstMs(), 3))
+                .append(c.robust() == null ? "" : ", worst Ms at the " + c.robust().corners().size()
+                        + " corners of the fit's 95 % box " + Numbers.significant(c.robust().worstMs(), 3) + " (ratio)")
                 .append(nl).append("  (report.html, section \"").append(c.loop().tag())
                 .append(", a new loop: from a bump test to a checked tuning\")").append(nl);
         return sb.toString();

@@ -31,6 +31,9 @@ class DemoChainTest {
     void runTheDemoAndFitTheRecord(@TempDir Path dir) throws Exception {
         demo = CliRun.of("demo", "--out", dir.resolve("demo").toString());
         assertThat(demo.exitCode()).as(demo.err()).isEqualTo(0);
+        // an FOPDT fit has three uncertain parameters: its box has 2^3 = 8 corners, and the summary line says
+        // the worst Ms is the corners' (a sample of the box, not a bound over it)
+        assertThat(demo.out()).containsPattern("worst Ms at the 8 corners of the fit's 95 % box [0-9.]+ \\(ratio\\)");
         loopsJson = dir.resolve("demo").resolve("loops.json");
         String html = Files.readString(dir.resolve("demo").resolve("report.html"));
         int start = html.indexOf("<section id=\"chain\"");
