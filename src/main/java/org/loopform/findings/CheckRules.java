@@ -86,7 +86,7 @@ public final class CheckRules {
     static final double NOT_WORSE_SHARE = 0.1;
 
     /**
-     * The words and severity of a derivative finding when the old controller (a sampled source) had the same
+     * The words and severity of a finding when the old controller (a sampled source) had the same
      * condition: info when the migration does not make it worse (its figure grows by at most
      * {@link #NOT_WORSE_SHARE}), otherwise the severity stands and the text says the old figure.
      */
@@ -105,6 +105,7 @@ public final class CheckRules {
         List<Finding> out = new ArrayList<>();
         scanAllowed(in, out);
         sampling(in, policy, out);
+        integralWithoutProcess(in, out);
         derivative(in, policy, out);
         discretization(in, policy, out);
         robustness(in, policy, out);
@@ -137,6 +138,36 @@ public final class CheckRules {
                     + " crossover. Use a scan of at most " + Numbers.significant(p.samplingWarn() / wc, 3) + " s"
                     + allowedAdvice(in, p.samplingWarn() / wc) + "."));
         }
+    }
+
+    /** The integral time below which, in scans, an integral is flagged when no process model shows the loop. */
+    static final double INTEGRAL_SCANS_WARN = 1.0;
+
+    /**
+     * Without a process model there is no crossover for the sampling rule to read, and a loop list
+     * whose integral times were typed in the wrong unit (minutes read as seconds) would pass on its
+     * conversion alone. An integral time shorter than the scan is flagged: each scan the integral adds
+     * h / Ti times the proportional action, and the law's integral corner 1/Ti lies above what the scan
+     * resolves (common practice: an integral time of several scans at least).
+     */
+    private static void integralWithoutProcess(Inputs in, List<Finding> out) {
+        if (in.loopSeen().isPresent()) {
+            return; // the margins and the sampling rule judge the loop itself
+        }
+        double ratio = in.facts().integralStepRatio();
+        if (!(ratio > INTEGRAL_SCANS_WARN)) {
+            return;
+        }
+        Finding f = new Finding(Topic.SAMPLING, Severity.WARN, ratio, INTEGRAL_SCANS_WARN, "ratio", SAMPLING_PRACTICE,
+                "The integral time (Ti = " + Numbers.significant(in.facts().integralTimeSeconds(), 3) + " s, in the"
+                + " ideal form's terms) is shorter than the scan (" + Numbers.plain(in.scanSeconds()) + " s): each scan"
+                + " the integral adds h / Ti = " + Numbers.significant(ratio, 3) + " times the proportional action, so"
+                + " the controller at this scan is not the law the tuning states. Check the integral's unit first (a"
+                + " time in minutes read as seconds, a rate read as a time); give the loop a process model to have its"
+                + " stability checked.");
+        Optional<ScanFacts> old = in.sourceFacts().filter(s -> s.integralStepRatio() > INTEGRAL_SCANS_WARN);
+        out.add(old.isPresent() ? againstSource(f, old.get().integralStepRatio(), old.get().scanSeconds(), "h / Ti")
+                : f);
     }
 
     /** ", for example 0.5 s, the longest this form allows below it" where the form lists its scans. */

@@ -4,7 +4,7 @@ import org.loopform.form.Discretization;
 import org.loopform.form.PidSetting;
 
 /**
- * What a scan time does to a setting's derivative: N h / Td (which equals h / Tf when
+ * What a scan time does to a setting's integral (h / Ti) and derivative: N h / Td (which equals h / Tf when
  * Tf = Td / N), the discrete filter pole, whether the derivative rings or does not decay, and the
  * phase lead it keeps. Filter poles per discretization as in Wittenmark, Astrom and Arzen,
  * "Computer Control: An Overview", IFAC Professional Brief, 2002, Table 3: forward 1 - h/Tf
@@ -15,9 +15,11 @@ import org.loopform.form.PidSetting;
  * @param filterSeconds         derivative filter time constant Tf, s (0: none)
  * @param derivativeTimeSeconds derivative time Td, s (0: no derivative action)
  * @param method                the derivative discretization
+ * @param integralTimeSeconds   the integral time Ti of the law in the ideal form's terms (kp / ki of its parallel
+ *                              writing; for the series form Ti + Td), s; infinite without integral action
  */
 public record ScanFacts(double scanSeconds, double filterSeconds, double derivativeTimeSeconds,
-                        Discretization method) {
+                        Discretization method, double integralTimeSeconds) {
 
     public ScanFacts {
         ScanController.checkScan(scanSeconds);
@@ -30,11 +32,43 @@ public record ScanFacts(double scanSeconds, double filterSeconds, double derivat
         if (method == null) {
             throw new IllegalArgumentException("scan facts need the derivative discretization");
         }
+        if (!(integralTimeSeconds > 0)) {
+            throw new IllegalArgumentException("integral time must be > 0 s, or infinite without integral action (got "
+                    + integralTimeSeconds + " s)");
+        }
+    }
+
+    /** The facts of a setting without integral action (or whose integral is not looked at). */
+    public ScanFacts(double scanSeconds, double filterSeconds, double derivativeTimeSeconds, Discretization method) {
+        this(scanSeconds, filterSeconds, derivativeTimeSeconds, method, Double.POSITIVE_INFINITY);
     }
 
     /** The facts for {@code setting} run with derivative discretization {@code method} at scan time h. */
     public static ScanFacts of(PidSetting setting, Discretization method, double scanSeconds) {
-        return new ScanFacts(scanSeconds, setting.filterSeconds(), Math.abs(setting.derivativeTimeSeconds()), method);
+        return new ScanFacts(scanSeconds, setting.filterSeconds(), Math.abs(setting.derivativeTimeSeconds()), method,
+                idealIntegralSeconds(setting));
+    }
+
+    /**
+     * The law's integral time in the ideal form's terms: Ti itself; kp / ki for the parallel
+     * structure; Ti + Td for the series one, whose ideal equivalent has Ti' = Ti + Td (Astrom and
+     * Hagglund, PID Controllers, 1995, sec. 3.4). Infinite without integral action.
+     */
+    static double idealIntegralSeconds(PidSetting setting) {
+        if (!setting.hasIntegral()) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double ti = switch (setting.structure()) {
+            case PARALLEL -> Math.abs(setting.gain() / setting.integral());
+            case IDEAL -> setting.integral();
+            case SERIES -> setting.integral() + setting.derivative();
+        };
+        return ti > 0 ? ti : Double.POSITIVE_INFINITY;
+    }
+
+    /** h / Ti: how many times the proportional action the integral adds each scan; 0 without integral action. */
+    public double integralStepRatio() {
+        return scanSeconds / integralTimeSeconds;
     }
 
     public boolean hasDerivative() {

@@ -181,6 +181,21 @@ class CheckCommandTest {
             assertThat(json.get("target").isNull()).isTrue();
             assertThat(json.get("controller_mismatch").get("gain_db").isNumber()).isTrue();
         }
+
+        // ti 0.2 min/repeat typed as 0.2 into a form in seconds: 0.2 s at a 0.5 s scan, h / Ti = 2.5.
+        // Without a process the conversion alone would pass; the integral shorter than a scan warns
+        // (common practice: an integral time of several scans at least).
+        @Test
+        void without_a_model_an_integral_shorter_than_the_scan_is_not_a_pass() throws IOException {
+            Path file = loopFile(LOOP.replace("process: {model: fopdt, gain: 2.0, time_constant: 60 s, dead_time: 10 s}\n",
+                    "").replace("ti: 60", "ti: 0.2"));
+            CliRun run = check(file, "--format", "json");
+
+            assertThat(run.exitCode()).as(run.err()).isEqualTo(0);
+            JsonNode json = JSON.readTree(run.out());
+            assertThat(json.get("verdict").asText()).isEqualTo("warn");
+            assertThat(json.get("findings").toString()).contains("h / Ti = 2.5");
+        }
     }
 
     @Nested
