@@ -62,6 +62,9 @@ public final class AuditSummary {
     /** What the records showed; null for an audit without records. */
     private final ReplaySummary replay;
     private int exact;
+    /** Checked loops without a process model (only the conversion and the sampling rules), and those of them that pass. */
+    private int withoutProcess;
+    private int passWithoutProcess;
     private int badRowCount;
     private long badRowProblemCount;
 
@@ -106,6 +109,12 @@ public final class AuditSummary {
         if (r.conversion().exact()) {
             exact++;
         }
+        if (!r.hasProcess()) {
+            withoutProcess++;
+            if (r.verdict() == Verdict.PASS) {
+                passWithoutProcess++;
+            }
+        }
         int fails = 0;
         int warns = 0;
         Finding headline = null;
@@ -143,6 +152,16 @@ public final class AuditSummary {
 
     public int exactConversions() {
         return exact;
+    }
+
+    /** Checked loops without a process model: their stability, margins and responses were not checked. */
+    public int withoutProcess() {
+        return withoutProcess;
+    }
+
+    /** Of {@link #withoutProcess()}, those whose verdict is pass: a pass on the conversion and sampling alone. */
+    public int passWithoutProcess() {
+        return passWithoutProcess;
     }
 
     public int count(Verdict v) {

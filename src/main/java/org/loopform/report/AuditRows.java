@@ -313,6 +313,8 @@ public final class AuditRows {
         n.put("checked", s.checked());
         n.put("bad_rows", s.badRowCount());
         n.put("exact_conversions", s.exactConversions());
+        n.put("without_process_model", s.withoutProcess());
+        n.put("pass_without_process_model", s.passWithoutProcess());
         ObjectNode v = n.putObject("verdicts");
         for (Verdict x : Verdict.values()) {
             v.put(x.id(), s.count(x));
@@ -348,6 +350,14 @@ public final class AuditRows {
         return n;
     }
 
+    /** What a pass means for the loops without a process model, for the summaries. */
+    public static String noProcessSentence(AuditSummary s) {
+        int n = s.withoutProcess();
+        return n + (n == 1 ? " loop has" : " loops have") + " no process model: only the conversion, the new controller"
+                + " as it will run and the sampling rules were checked, not stability, margins or responses ("
+                + s.passWithoutProcess() + " of them pass on that alone).";
+    }
+
     /**
      * The stdout summary: counts, the worst loops, bad rows. {@code outFolder} is the folder written,
      * or null when nothing was (no {@code --out}, or no loop could be checked): the text then points
@@ -360,6 +370,9 @@ public final class AuditRows {
                 .append(s.count(Verdict.WARN)).append(" warn, ").append(s.count(Verdict.FAIL)).append(" fail, ")
                 .append(s.badRowCount()).append(" bad rows; ").append(s.exactConversions()).append(" of ")
                 .append(s.checked()).append(" conversions exact.").append(nl);
+        if (s.withoutProcess() > 0) {
+            sb.append(noProcessSentence(s)).append(nl);
+        }
         Map<Topic, int[]> topics = s.byTopic();
         if (!topics.isEmpty()) {
             sb.append(nl);

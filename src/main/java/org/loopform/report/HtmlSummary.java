@@ -143,6 +143,7 @@ final class HtmlSummary {
                 .append(" loops</td><td class=\"num\">100 %</td></tr>\n</tbody></table>\n<p class=\"note\">")
                 .append(s.exactConversions()).append(" of ").append(s.checked())
                 .append(" checked loops convert exactly; the others take the nearest setting the new form can hold."
+                        + (s.withoutProcess() > 0 ? " " + Html.esc(AuditRows.noProcessSentence(s)) : "")
                         + "</p></div>\n");
         sb.append("<div><h3>Findings by topic and severity</h3>\n");
         Map<Topic, int[]> byTopic = s.byTopic();

@@ -42,6 +42,11 @@ class AuditCommandTest {
         assertThat(json.get("loops").get(2).get("tag").asText()).isEqualTo("PIC-3");
         assertThat(json.get("loops").get(2).get("design").isNull()).isTrue();
         assertThat(json.get("summary").get("loops").asInt()).isEqualTo(3);
+        // PIC-3 has no process model: the summary counts it, and says what its verdict rests on
+        assertThat(json.get("summary").get("without_process_model").asInt()).isEqualTo(1);
+        assertThat(json.get("summary").get("pass_without_process_model").asInt())
+                .isEqualTo(json.get("loops").get(2).get("verdict").asText().equals("pass") ? 1 : 0);
+        assertThat(r.out()).contains("1 loop has no process model: only the conversion");
         assertThat(Files.readAllLines(out.resolve("loops.csv")).get(0)).startsWith("tag,verdict,where");
         // the source values as written, each bare number with the source form's unit (ideal: s/repeat, s)
         assertThat(Files.readAllLines(out.resolve("loops.csv")).get(1))
