@@ -41,7 +41,8 @@ public final class CheckReport {
         StringBuilder sb = new StringBuilder();
         sb.append(r.loop().tag()).append(": ").append(c.from().id()).append(" -> ").append(c.to().id()).append(" at a ")
                 .append(Numbers.plain(r.scanSeconds())).append(" s scan").append("    verdict: ")
-                .append(r.verdict().id().toUpperCase(java.util.Locale.ROOT)).append(nl).append(nl);
+                .append(r.verdict().id().toUpperCase(java.util.Locale.ROOT))
+                .append(r.hasProcess() ? "" : " (no process model: stability not checked)").append(nl).append(nl);
         TextTable values = new TextTable("enter", "value", "unit", "converted");
         c.entered().values().forEach((k, v) -> values.row(k, c.refusal(k) != null ? "do not enter"
                 : FormCodec.show(c.to(), k, v, 6), FormUnits.of(c.to(), k),

@@ -195,6 +195,7 @@ class CheckCommandTest {
             JsonNode json = JSON.readTree(run.out());
             assertThat(json.get("verdict").asText()).isEqualTo("warn");
             assertThat(json.get("findings").toString()).contains("h / Ti = 2.5");
+            assertThat(check(file).out()).contains("verdict: WARN (no process model: stability not checked)");
         }
     }
 
