@@ -72,17 +72,4 @@ class IntegralScanRuleTest {
         assertThat(f.get(0).severity()).isEqualTo(Severity.INFO);
         assertThat(f.get(0).message()).contains("h / Ti = 4").contains("does not make it worse");
     }
-
-    // The integral time read in the ideal form's terms: series Ti' 0.5 s, Td' 0.3 s -> Ti = 0.8 s;
-    // parallel kp 2 %/%, ki 4 /s -> Ti = kp / ki = 0.5 s.
-    @Test
-    void the_integral_time_is_the_ideal_forms() {
-        ScanFacts series = at(new PidSetting(Structure.SERIES, 1, 0.5, 0.3, 0.03, 1, 0), 1.0);
-        ScanFacts parallel = at(new PidSetting(Structure.PARALLEL, 2, 4, 0, 0, 1, 0), 1.0);
-
-        assertThat(series.integralTimeSeconds()).isCloseTo(0.8, within(1e-12));
-        assertThat(series.integralStepRatio()).isCloseTo(1.25, within(1e-12));
-        assertThat(parallel.integralTimeSeconds()).isCloseTo(0.5, within(1e-12));
-        assertThat(at(new PidSetting(Structure.PARALLEL, 2, 0, 0, 0, 1, 0), 1.0).integralStepRatio()).isZero();
-    }
 }
