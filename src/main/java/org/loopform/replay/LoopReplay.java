@@ -158,6 +158,14 @@ public final class LoopReplay {
                 findings.add(ReplayRules.explanation(ranked, tried, asFound, policy));
             }
         }
+        if (sourceRun.ranAway()) {
+            findings.add(ReplayRules.runaway("The old controller as listed", atSource.timeSeconds(sourceRun.runawayScan())
+                    - atSource.timeSeconds(0), Severity.WARN));
+        }
+        if (targetRun.ranAway()) {
+            findings.add(ReplayRules.runaway("The new controller as entered", atTarget.timeSeconds(targetRun.runawayScan())
+                    - atTarget.timeSeconds(0), Severity.FAIL));
+        }
         if (asLeft != null) {
             findings.add(ReplayRules.asLeft(asLeft, asFoundSeverity == Severity.INFO ? null : asFoundSeverity == Severity.FAIL
                     || !quiet ? ReplayRules.AsLeftBasis.NOT_REPRODUCED : ReplayRules.AsLeftBasis.QUIET, policy));
@@ -207,6 +215,9 @@ public final class LoopReplay {
                 r = run(c.form(), c.setting(), s);
             } catch (IllegalArgumentException e) {
                 continue; // a scan the candidate's algorithm cannot run (an unstable filter pole, say)
+            }
+            if (r.ranAway()) {
+                continue; // a controller that runs away on the record is not what ran there
             }
             Agreement a = Agreement.of(r.output(), s.output, r.compared(), s::timeSeconds);
             if (a != null) {

@@ -174,6 +174,21 @@ final class ReplayRules {
         QUIET
     }
 
+    /**
+     * A controller whose output stops being a number on the record, {@code afterSeconds} from its start: its own
+     * arithmetic overflowed, which only an unstable element of the controller does on bounded signals (a
+     * forward-difference derivative filter with h > 2 Tf: Wittenmark, Astrom and Arzen, Computer Control: An
+     * Overview, IFAC Professional Brief, 2002, Table 3). The comparisons stop there.
+     */
+    static Finding runaway(String which, double afterSeconds, Severity s) {
+        return new Finding(Topic.REPLAY, s, afterSeconds, null, "s", "Wittenmark, Astrom & Arzen, Computer Control:"
+                + " An Overview, IFAC 2002, Table 3 (forward-difference filter pole 1 - h/Tf)", which + " runs away on this record: "
+                + Numbers.significant(afterSeconds, 4) + " s into it its output is no longer a number (its own"
+                + " arithmetic overflowed; on bounded signals only an unstable element of the controller does that, such"
+                + " as a forward-difference derivative filter with a scan above twice its filter time). The comparisons"
+                + " stop there." + (s == Severity.FAIL ? " Do not deploy it at this scan." : ""));
+    }
+
     /** The as-left finding; {@code unconfirmed} is null when the record reproduced the old controller. */
     static Finding asLeft(Agreement a, AsLeftBasis unconfirmed, CheckPolicy p) {
         double warn = p.get(PolicyKey.REPLAY_AS_LEFT_RMS_WARN_PCT);

@@ -10,10 +10,18 @@ import org.loopform.scan.ScanController;
  * The first {@code warmupScans} scans track too: the derivative and filter states then start
  * from the logged signals, and the integral from the logged output at the first compared scan.
  *
- * @param output   the replayed output, % of span (the logged one where tracking)
- * @param compared true where the scan is automatic and past the warm-up
+ * @param output      the replayed output, % of span (the logged one where tracking)
+ * @param compared    true where the scan is automatic and past the warm-up
+ * @param runawayScan the scan at which the controller's own arithmetic overflowed (its output not a number:
+ *                    a forward-difference derivative filter with h > 2 Tf grows each scan), or -1; from it on
+ *                    the output holds its last value and no scan is compared
  */
-record ReplayRun(double[] output, boolean[] compared) {
+record ReplayRun(double[] output, boolean[] compared, int runawayScan) {
+
+    /** True when the controller ran away on the record ({@link #runawayScan}). */
+    boolean ranAway() {
+        return runawayScan >= 0;
+    }
 
     static ReplayRun of(ScanController controller, ScanSeries s, int warmupScans, double lowPercent,
                         double highPercent) {
@@ -23,6 +31,11 @@ record ReplayRun(double[] output, boolean[] compared) {
         controller.reset(clamp(s.output[0], lowPercent, highPercent), s.setpoint[0], s.pv[0]);
         for (int k = 0; k < n; k++) {
             double u = controller.update(s.setpoint[k], s.pv[k]);
+            if (!Double.isFinite(u)) {
+                double last = k > 0 ? y[k - 1] : clamp(s.output[0], lowPercent, highPercent);
+                java.util.Arrays.fill(y, k, n, last);
+                return new ReplayRun(y, compared, k);
+            }
             if (k < warmupScans || !s.automatic[k]) {
                 controller.track(s.output[k]);
                 u = controller.outputPercent();
@@ -31,7 +44,7 @@ record ReplayRun(double[] output, boolean[] compared) {
             }
             y[k] = u;
         }
-        return new ReplayRun(y, compared);
+        return new ReplayRun(y, compared, -1);
     }
 
     private static double clamp(double v, double low, double high) {

@@ -268,6 +268,16 @@ public final class LoopSimulator {
         boolean stops = stopLow > Double.NEGATIVE_INFINITY || stopHigh < Double.POSITIVE_INFINITY;
         for (int k = 0; k <= steps; k++) {
             double out = c.update(r, pv);
+            if (!Double.isFinite(out) || !Double.isFinite(pv)) {
+                // the controller's own arithmetic overflowed (a forward-difference derivative filter with
+                // h > 2 Tf grows each scan, and no output limit bounds its state): an unstable loop, which
+                // the stability test reports; the run ends at the last finite sample
+                if (stops) {
+                    return null;
+                }
+                response.endHere();
+                break;
+            }
             if (stops && (out <= stopLow || out >= stopHigh || c.limitsActedLastScan())) {
                 return null;
             }

@@ -230,6 +230,18 @@ public final class SampledResponse {
             count = processValuesPercent.length;
         }
 
+        /**
+         * Ends the response at the samples recorded so far (at least 2): a run whose controller's own
+         * arithmetic overflowed (an unstable derivative filter, say) has nothing to record past that point.
+         */
+        public void endHere() {
+            if (count < 2) {
+                throw new IllegalStateException("a response needs at least 2 samples (recorded " + count + ")");
+            }
+            processValuesPercent = java.util.Arrays.copyOf(processValuesPercent, count);
+            controllerOutputsPercent = java.util.Arrays.copyOf(controllerOutputsPercent, count);
+        }
+
         /** Records the next sample, at the next instant of the recorder's grid. */
         public void add(double processValuePercent, double controllerOutputPercent) {
             processValuesPercent[count] = processValuePercent;
