@@ -23,7 +23,10 @@ import java.util.OptionalDouble;
  *       set the margin. Empty when there is no gain crossover ({@code phaseMarginNote} says why).
  *   <li>{@code crossoverRadPerSecond}: the gain crossover where that phase margin is read.
  *   <li>{@code delayMarginSeconds}: the smallest {@code ((PM_j mod 360) in rad) / omega_j} over
- *       the gain crossovers j, the least extra dead time that puts a crossover on -1.
+ *       the gain crossovers j, the least extra dead time that puts a crossover on -1; exact for a
+ *       continuous loop, and for a sampled loop only when it is a whole number of scans, so a check
+ *       replaces it there ({@link #withDelayMarginSeconds}) by the exact one, found with the process
+ *       sampled again at each extra dead time.
  *   <li>{@code maximumSensitivity}: {@code Ms = max |1 / (1 + L)|} over the band, and
  *       {@code maximumSensitivityRadPerSecond} where it peaks.
  *   <li>{@code phaseCrossovers}, {@code gainCrossovers}: every crossing found, in rising frequency.
@@ -129,9 +132,9 @@ public record LoopMargins(
     /**
      * The delay margin in scans of {@code scanSeconds}, for a sampled loop: {@code DM / h}. A
      * whole number k of extra scans of dead time multiplies {@code L(z)} by {@code z^-k}, which
-     * is {@code e^(-i omega k h)} on the unit circle, so the figure is exact when it is whole and
+     * is {@code e^(-i omega k h)} on the unit circle, so {@code PM / omega} is exact when it is whole and
      * an estimate between whole scans (Astrom and Wittenmark, Computer-Controlled Systems, 3rd
-     * ed., 1997, ch. 2-3 - from memory).
+     * ed., 1997, ch. 2-3 - from memory); a check's sampled loops carry the exact margin instead.
      */
     public OptionalDouble delayMarginScans(double scanSeconds) {
         if (!(scanSeconds > 0) || Double.isInfinite(scanSeconds)) {
@@ -139,6 +142,20 @@ public record LoopMargins(
         }
         return delayMarginSeconds.isPresent()
                 ? OptionalDouble.of(delayMarginSeconds.getAsDouble() / scanSeconds) : OptionalDouble.empty();
+    }
+
+    /**
+     * These figures with the delay margin replaced, for a loop whose delay margin is found by a
+     * finer method than {@code PM / omega} (a sampled loop, whose process is sampled again at
+     * each extra dead time); the per-crossover figures are kept as read.
+     */
+    public LoopMargins withDelayMarginSeconds(double seconds) {
+        if (delayMarginSeconds.isEmpty()) {
+            throw new IllegalStateException("a loop without a gain crossover has no delay margin to replace");
+        }
+        return new LoopMargins(gainMargin, phaseCrossoverRadPerSecond, lowerGainMargin, phaseMarginDegrees,
+                crossoverRadPerSecond, OptionalDouble.of(seconds), maximumSensitivity, maximumSensitivityRadPerSecond,
+                gainMarginNote, phaseMarginNote, phaseCrossovers, gainCrossovers);
     }
 
     /** True when both margins that exist are on the safe side: gain margin above 1, phase margin above 0. */

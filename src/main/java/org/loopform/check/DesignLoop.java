@@ -58,10 +58,15 @@ final class DesignLoop {
         if (sourceScan != null) {
             PulseLaw pulse = sourcePulse(loop, conversion, sourceScan);
             SampledStateSpace sampled = process.sampled(sourceScan);
-            LoopMargins margins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
-                    0.1 / sourceScan), sourceScan)).analyze(LoopBand.sampledLoop(pulse, sampled));
+            MarginAnalysis analysis = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
+                    0.1 / sourceScan), sourceScan));
+            LoopMargins margins = analysis.analyze(LoopBand.sampledLoop(pulse, sampled));
             // stability from the closed-loop poles, never from the margins alone (the sampling is immutable: shared)
             LoopStability stability = SampledStability.of(new SampledOpenLoop(pulse, sampled));
+            if (stability.isStable()) {
+                margins = SampledDelayMargin.exact(margins, pulse, process.rationalPart(), process.deadTimeSeconds(),
+                        sourceScan, analysis);
+            }
             return new DesignLoop(loop, conversion, process, margins, stability);
         }
         LoopResponse response = LoopBand.continuousLoop(law, process);

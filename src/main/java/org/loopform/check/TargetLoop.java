@@ -43,10 +43,16 @@ final class TargetLoop {
     static TargetLoop of(FormDefinition form, PidSetting entered, PulseLaw pulse, double scanSeconds,
                          ProcessModel process, double lowRadPerSecond) {
         SampledStateSpace sampled = process.sampled(scanSeconds);
-        LoopMargins margins = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
-                0.1 / scanSeconds), scanSeconds)).analyze(LoopBand.sampledLoop(pulse, sampled));
+        MarginAnalysis analysis = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
+                0.1 / scanSeconds), scanSeconds));
+        LoopMargins margins = analysis.analyze(LoopBand.sampledLoop(pulse, sampled));
         // stability from the closed-loop poles, never from the margins alone
         LoopStability stability = SampledStability.of(new SampledOpenLoop(pulse, sampled));
+        if (stability.isStable()) {
+            // PM / omega_c is exact only for whole scans of extra dead time; the policy reads this one in scans
+            margins = SampledDelayMargin.exact(margins, pulse, process.rationalPart(), process.deadTimeSeconds(),
+                    scanSeconds, analysis);
+        }
         return new TargetLoop(form, entered, scanSeconds, process, sampled, margins, stability);
     }
 

@@ -170,7 +170,11 @@ class OctaveCrossCheckTest {
                 expect(target, "crossover_rad_s", row.get("crossover_rad_s"), EXACT_RELATIVE, problems);
             }
         }
-        expect(target, "delay_margin_s", row.get("delay_margin_s"), EXACT_RELATIVE, problems);
+        // delay_margin_s is not compared: the golden's column is PM / wc of the response, which is the
+        // least extra dead time only for whole extra scans; loopform now gives the exact one, with the
+        // process sampled again at fractional extra dead times, which the package's c2d cannot do (the
+        // script's own note); numpy's closed-loop eigenvalues check it in StabilityCrossCheckTest,
+        // CrossingGoldenTest, LoopCheckGoldenTest and check.SampledDelayMarginTest
         assertThat(problems).as("%s disagrees with Octave (%s)", row, row.get("note")).isEmpty();
     }
 
