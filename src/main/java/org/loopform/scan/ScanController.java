@@ -169,9 +169,9 @@ public final class ScanController {
 
     /** One scan: reads setpoint and PV (%), returns the output (%) written this scan. */
     public double update(double setpointPercent, double pvPercent) {
-        setpointDerivative = bounded(flushSubnormal(pole * setpointDerivative
-                + differenceGain * (setpointPercent - previousSetpoint)));
-        pvDerivative = bounded(flushSubnormal(pole * pvDerivative + differenceGain * (pvPercent - previousPv)));
+        setpointDerivative = flushSubnormal(pole * setpointDerivative
+                + differenceGain * (setpointPercent - previousSetpoint));
+        pvDerivative = flushSubnormal(pole * pvDerivative + differenceGain * (pvPercent - previousPv));
         double setpointPath = setpointPercent + setpointLead * setpointDerivative;
         double pvPath = pvPercent + measurementLead * pvDerivative;
         double proportional = kp * (b * setpointPath - pvPath);
@@ -258,21 +258,6 @@ public final class ScanController {
     private static double flushSubnormal(double state) {
         return Math.abs(state) < Double.MIN_NORMAL ? 0.0 : state;
     }
-
-    /**
-     * A filter state beyond {@value #STATE_BOUND_PERCENT} % is held there. Only a derivative filter
-     * that is itself unstable gets there (forward difference with h > 2 Tf, pole 1 - h/Tf below -1,
-     * which the check fails); its state would otherwise grow by |pole| each scan until it overflowed
-     * to infinity, and infinity less infinity is NaN, an output no target writes. Held, the output
-     * still sits at its limits, as the target's would until its own arithmetic overflowed.
-     */
-    private static double bounded(double state) {
-        return state > STATE_BOUND_PERCENT ? STATE_BOUND_PERCENT
-                : state < -STATE_BOUND_PERCENT ? -STATE_BOUND_PERCENT : state;
-    }
-
-    /** A bound far above any output span and far below overflow, so sums of a few such states stay finite. */
-    private static final double STATE_BOUND_PERCENT = 1e150;
 
     private double limit(double v) {
         // Math.max(low, Math.min(high, v)) by comparisons (Math.min and max are calls, not single

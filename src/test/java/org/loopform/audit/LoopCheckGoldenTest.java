@@ -75,7 +75,16 @@ class LoopCheckGoldenTest {
                     .isCloseTo(golden.phaseMarginDegrees().getAsDouble(), within(PHASE_DEGREES));
         }
         assertCloseRelative("crossover", m.crossoverRadPerSecond(), golden.crossover());
-        assertCloseRelative("delay margin", m.delayMarginSeconds(), golden.delayMargin());
+        if (golden.which().equals("target") && m.delayMarginSeconds().isPresent()
+                && m.delayMarginSeconds().getAsDouble() > 3 * result.scanSeconds()) {
+            // above 3 scans loopform keeps the reading PM / wc (check.SampledDelayMargin.MAX_EXACT_SCANS); the
+            // reference's margin is exact (closed-loop eigenvalues), and readings of 3 scans and more were seen
+            // within 0.8 % of it (write_stability_crosscheck.py's 225 target loops)
+            assertThat(m.delayMarginSeconds().getAsDouble()).as("delay margin (read)")
+                    .isCloseTo(golden.delayMargin().getAsDouble(), within(0.01 * golden.delayMargin().getAsDouble()));
+        } else {
+            assertCloseRelative("delay margin", m.delayMarginSeconds(), golden.delayMargin());
+        }
         assertThat(m.maximumSensitivity()).as("Ms").isCloseTo(golden.ms(), within(RELATIVE * golden.ms()));
         // |1 + L| is flat at its minimum, so both minimizers place it to about 1e-8 relative only (measured 3e-8)
         assertThat(m.maximumSensitivityRadPerSecond()).as("Ms frequency")
