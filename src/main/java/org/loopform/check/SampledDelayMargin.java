@@ -1,7 +1,6 @@
 package org.loopform.check;
 
 import java.util.OptionalDouble;
-import java.util.function.Predicate;
 import org.loopform.analysis.GainCrossover;
 import org.loopform.analysis.LoopMargins;
 import org.loopform.analysis.MarginAnalysis;
@@ -47,7 +46,7 @@ final class SampledDelayMargin {
      * reading of 3 scans or more lay within 0.8 % (0.057 scans) of the exact margin, while below 2 scans
      * the exact margin was 0.34 to 5.6 times the reading. The policy's default thresholds are 1 and 2 scans.
      * The exact search costs some 30 to 70 margin analyses, so it runs only where it can matter: a 2,000-loop
-     * audit took 4.9 times the CPU with the bound at 20 scans (bench/jar-pair.sh).
+     * audit took 4.9 times the CPU with the bound at 20 scans, 1.35 times with this one (bench/jar-pair.sh).
      */
     static final double MAX_EXACT_SCANS = 3;
     /** Steps of the fractional dead time over one scan. */
@@ -90,13 +89,32 @@ final class SampledDelayMargin {
     }
 
     private Point at(double fractionSeconds, LoopMargins known) {
-        SampledStateSpace sampled = ZeroOrderHold.of(rational, deadTimeSeconds + fractionSeconds, scanSeconds);
+        SampledStateSpace sampled = sampledAt(fractionSeconds);
         LoopMargins m = known != null ? known : analysis.analyze(LoopBand.sampledLoop(pulse, sampled));
+        return new Point(fractionSeconds, scans(m), stable(sampled));
+    }
+
+    private SampledStateSpace sampledAt(double fractionSeconds) {
+        return ZeroOrderHold.of(rational, deadTimeSeconds + fractionSeconds, scanSeconds);
+    }
+
+    /** F: the least PM / omega_c over the gain crossovers, in scans (infinite without one). */
+    private double scans(LoopMargins m) {
         double least = Double.POSITIVE_INFINITY;
         for (GainCrossover c : m.gainCrossovers()) {
             least = Math.min(least, c.delayMarginSeconds());
         }
-        return new Point(fractionSeconds, least / scanSeconds, stable(sampled));
+        return least / scanSeconds;
+    }
+
+    /** F at a fractional dead time, without the pole count (a bisection on F needs only F). */
+    private double scansAt(double fractionSeconds) {
+        return scans(analysis.analyze(LoopBand.sampledLoop(pulse, sampledAt(fractionSeconds))));
+    }
+
+    /** Whether L_delta is stable, without its margins (a bisection on stability needs only that). */
+    private boolean stableAt(double fractionSeconds) {
+        return stable(sampledAt(fractionSeconds));
     }
 
     private boolean stable(SampledStateSpace sampled) {
@@ -111,7 +129,7 @@ final class SampledDelayMargin {
             // j = 0: L_delta itself turns unstable within this step (a crossover through -1, or |L| passing 1
             // where the response is real and negative, at z = -1, which gives birth to a crossover there)
             if (previous.stable() && !current.stable()) {
-                best = Math.min(best, boundary(previous, current, Point::stable));
+                best = Math.min(best, boundary(previous, current, this::stableAt));
                 break;  // every later event is at least this far: j h + delta with j >= 1 exceeds a scan
             }
             // j >= 1: F passes the whole number j within this step
@@ -121,7 +139,7 @@ final class SampledDelayMargin {
                 double j = Math.max(1.0, Math.ceil(low));
                 if (j <= high) {
                     boolean previousAbove = previous.scans() >= j;
-                    double delta = boundary(previous, current, p -> (p.scans() >= j) == previousAbove);
+                    double delta = boundary(previous, current, d -> (scansAt(d) >= j) == previousAbove);
                     best = Math.min(best, j * scanSeconds + delta);
                 }
             }
@@ -131,12 +149,12 @@ final class SampledDelayMargin {
     }
 
     /** The fractional dead time where {@code sameAsLow} stops holding, between two points where it changes. */
-    private double boundary(Point low, Point high, Predicate<Point> sameAsLow) {
+    private double boundary(Point low, Point high, java.util.function.DoublePredicate sameAsLow) {
         double a = low.fractionSeconds();
         double b = high.fractionSeconds();
         for (int i = 0; i < BISECTIONS; i++) {
             double mid = 0.5 * (a + b);
-            if (sameAsLow.test(at(mid, null))) {
+            if (sameAsLow.test(mid)) {
                 a = mid;
             } else {
                 b = mid;
