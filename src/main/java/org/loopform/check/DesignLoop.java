@@ -52,7 +52,8 @@ final class DesignLoop {
     }
 
     /** The design loop of {@code loop} with {@code process}, its crossings searched above {@code lowRadPerSecond}. */
-    static DesignLoop of(LoopSpec loop, Conversion conversion, ProcessModel process, double lowRadPerSecond) {
+    static DesignLoop of(LoopSpec loop, Conversion conversion, ProcessModel process, double lowRadPerSecond,
+                         double exactDelayMarginBelowScans) {
         ControlLaw law = conversion.sourceLaw();
         Double sourceScan = loop.sourceScanSeconds();
         if (sourceScan != null) {
@@ -65,7 +66,7 @@ final class DesignLoop {
             LoopStability stability = SampledStability.of(new SampledOpenLoop(pulse, sampled));
             if (stability.isStable()) {
                 margins = SampledDelayMargin.exact(margins, pulse, process.rationalPart(), process.deadTimeSeconds(),
-                        sourceScan, analysis);
+                        sourceScan, analysis, exactDelayMarginBelowScans);
             }
             return new DesignLoop(loop, conversion, process, margins, stability);
         }

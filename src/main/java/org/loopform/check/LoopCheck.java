@@ -76,7 +76,8 @@ public final class LoopCheck {
             findings.add(StabilityRule.notJudged());
         }
         Optional<Compared> compared = loop.hasProcess()
-                ? Optional.of(compare(loop, conversion, entered, targetPulse, lawBand, horizonSeconds, findings))
+                ? Optional.of(compare(loop, conversion, entered, targetPulse, lawBand, horizonSeconds, findings,
+                        SampledDelayMargin.exactBelowScans(policy)))
                 : Optional.empty();
         Optional<LoopComparison> comparison = compared.map(Compared::comparison);
         FrequencyBand mismatchBand = mismatchBand(lawBand, designLaw, h,
@@ -216,14 +217,15 @@ public final class LoopCheck {
      * stability findings to {@code findings} (they come before the margin rules').
      */
     private static Compared compare(LoopSpec loop, Conversion conversion, PidSetting entered, PulseLaw targetPulse,
-                                    FrequencyBand lawBand, double horizonSeconds, List<Finding> findings) {
+                                    FrequencyBand lawBand, double horizonSeconds, List<Finding> findings,
+                                    double exactDelayMarginBelowScans) {
         ProcessModel p = loop.process();
         ControlLaw designLaw = conversion.sourceLaw();
         double h = loop.targetScanSeconds();
         double low = LoopBand.belowLowestCrossover(LoopBand.bandBottom(lawBand, p), LoopBand.continuousLoop(designLaw, p),
                 p.integrators() + (designLaw.terms().hasIntegral() ? 1 : 0));
-        DesignLoop design = DesignLoop.of(loop, conversion, p, low);
-        TargetLoop target = TargetLoop.of(loop.targetForm(), entered, targetPulse, h, p, low);
+        DesignLoop design = DesignLoop.of(loop, conversion, p, low, exactDelayMarginBelowScans);
+        TargetLoop target = TargetLoop.of(loop.targetForm(), entered, targetPulse, h, p, low, exactDelayMarginBelowScans);
         ActionRule.check(designLaw.terms(), p.lowFrequencyGain(), p.integrators()).ifPresent(findings::add);
         findings.addAll(StabilityRule.evaluate(design.stability(), target.stability()));
 

@@ -49,6 +49,15 @@ final class SampledDelayMargin {
      * audit took 4.9 times the CPU with the bound at 20 scans, 1.35 times with this one (bench/jar-pair.sh).
      */
     static final double MAX_EXACT_SCANS = 3;
+    /**
+     * Below how many scans the margin is searched exactly under {@code policy}: {@link #MAX_EXACT_SCANS}, or a
+     * scan above the policy's delay-margin warning when that is higher, so that a reading near any threshold
+     * the policy judges is never the one judged.
+     */
+    static double exactBelowScans(org.loopform.findings.CheckPolicy policy) {
+        return Math.max(MAX_EXACT_SCANS, policy.delayMarginWarnScans() + 1);
+    }
+
     /** Steps of the fractional dead time over one scan. */
     static final int FRACTION_STEPS = 16;
     /** Halvings of a step: 2^-24 of a 16th of a scan (4e-9 scans), far below any printed digit. */
@@ -74,9 +83,9 @@ final class SampledDelayMargin {
      * {@code pulse} and {@code rational e^(-s L)} at {@code scanSeconds}; unchanged when it has none.
      */
     static LoopMargins exact(LoopMargins margins, PulseLaw pulse, TransferFunction rational, double deadTimeSeconds,
-                             double scanSeconds, MarginAnalysis analysis) {
+                             double scanSeconds, MarginAnalysis analysis, double belowScans) {
         if (margins.delayMarginSeconds().isEmpty()
-                || margins.delayMarginSeconds().getAsDouble() > MAX_EXACT_SCANS * scanSeconds) {
+                || margins.delayMarginSeconds().getAsDouble() > belowScans * scanSeconds) {
             return margins;
         }
         OptionalDouble exact = new SampledDelayMargin(pulse, rational, deadTimeSeconds, scanSeconds, analysis)

@@ -41,7 +41,7 @@ final class TargetLoop {
 
     /** The target loop running {@code pulse} at {@code scanSeconds}, its crossings searched above {@code lowRadPerSecond}. */
     static TargetLoop of(FormDefinition form, PidSetting entered, PulseLaw pulse, double scanSeconds,
-                         ProcessModel process, double lowRadPerSecond) {
+                         ProcessModel process, double lowRadPerSecond, double exactDelayMarginBelowScans) {
         SampledStateSpace sampled = process.sampled(scanSeconds);
         MarginAnalysis analysis = MarginAnalysis.over(FrequencyBand.belowNyquist(Math.min(lowRadPerSecond,
                 0.1 / scanSeconds), scanSeconds));
@@ -51,7 +51,7 @@ final class TargetLoop {
         if (stability.isStable()) {
             // PM / omega_c is exact only for whole scans of extra dead time; the policy reads this one in scans
             margins = SampledDelayMargin.exact(margins, pulse, process.rationalPart(), process.deadTimeSeconds(),
-                    scanSeconds, analysis);
+                    scanSeconds, analysis, exactDelayMarginBelowScans);
         }
         return new TargetLoop(form, entered, scanSeconds, process, sampled, margins, stability);
     }

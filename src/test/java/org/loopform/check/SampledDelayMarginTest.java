@@ -75,4 +75,22 @@ class SampledDelayMarginTest {
         assertThat(result.targetMargins().delayMarginSeconds().orElseThrow()).isCloseTo(20.543, within(0.02));
         assertThat(result.verdict()).isEqualTo(Verdict.FAIL);
     }
+
+    // A policy that judges the delay margin at 4 scans gets it exact up to 5 scans. Loop random-integrating-017
+    // of the stability cross-check (invented; write_stability_crosscheck.py, exact margin from the closed-loop
+    // eigenvalues 3.046220356286363 s at a 0.788 s scan, 3.866 scans): the reading PM / wc is 3.876 scans, on the
+    // unsafe side; under the default policy (thresholds 1 and 2 scans) it is kept, within 1 %.
+    @Test
+    void a_policy_that_judges_more_scans_gets_them_exact() throws URISyntaxException {
+        Path file = Path.of(SampledDelayMarginTest.class.getResource("/crosscheck/loops/random-integrating-017.yaml")
+                .toURI());
+        double exact = 3.046220356286363;
+
+        CheckResult strict = LoopCheck.run(LoopFileReader.readOne(file, file.toString()),
+                CheckPolicy.DEFAULT.with(java.util.Map.of("delay_margin_warn_scans", 4.0)));
+        CheckResult usual = LoopCheck.run(LoopFileReader.readOne(file, file.toString()), CheckPolicy.DEFAULT);
+
+        assertThat(strict.targetMargins().delayMarginSeconds().orElseThrow()).isCloseTo(exact, within(1e-5 * exact));
+        assertThat(usual.targetMargins().delayMarginSeconds().orElseThrow()).isCloseTo(exact, within(0.01 * exact));
+    }
 }
