@@ -1,3 +1,4 @@
+// source: Astrom & Hagglund, PID Controllers: Theory, Design and Tuning, 2nd ed., ISA 1995, sec. 3.4 (series-ideal relations), worked by hand in the class comment
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;

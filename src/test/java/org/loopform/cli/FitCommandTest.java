@@ -1,3 +1,4 @@
+// plumbing: the fit command's files and options (the fit itself is checked against its sources in identify/); "twice the gain and twice the dead time fail" is common practice
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;

@@ -1,4 +1,4 @@
-// plumbing: no published source needed
+// source: OWASP, "CSV Injection" guidance (cells beginning with =, +, -, @ neutralised); otherwise plumbing
 package org.loopform.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
