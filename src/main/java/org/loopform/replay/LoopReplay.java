@@ -146,6 +146,10 @@ public final class LoopReplay {
             // a match within the thresholds confirms the list only on a record that moves and that no
             // other reading explains clearly better; otherwise the list is not confirmed
             asFoundSeverity = matched == Severity.INFO && (outdone || quiet) ? Severity.WARN : matched;
+            if (sourceRun.ranAway()) {
+                // a controller whose output stops being a number cannot be the one that wrote the log
+                asFoundSeverity = Severity.FAIL;
+            }
             String source = loop.sourceForm().id() + " " + tuningText(loop.tuning()) + ", scan "
                     + Numbers.significant(sourceScan, 4) + " s";
             findings.add(ReplayRules.asFoundFinding(source, asFound, asFoundSeverity, outdone,
@@ -160,7 +164,7 @@ public final class LoopReplay {
         }
         if (sourceRun.ranAway()) {
             findings.add(ReplayRules.runaway("The old controller as listed", atSource.timeSeconds(sourceRun.runawayScan())
-                    - atSource.timeSeconds(0), Severity.WARN));
+                    - atSource.timeSeconds(0), Severity.FAIL));
         }
         if (targetRun.ranAway()) {
             findings.add(ReplayRules.runaway("The new controller as entered", atTarget.timeSeconds(targetRun.runawayScan())

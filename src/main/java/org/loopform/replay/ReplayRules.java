@@ -186,7 +186,8 @@ final class ReplayRules {
                 + Numbers.significant(afterSeconds, 4) + " s into it its output is no longer a number (its own"
                 + " arithmetic overflowed; on bounded signals only an unstable element of the controller does that, such"
                 + " as a forward-difference derivative filter with a scan above twice its filter time). The comparisons"
-                + " stop there." + (s == Severity.FAIL ? " Do not deploy it at this scan." : ""));
+                + " stop there." + (which.startsWith("The new") ? " Do not deploy it at this scan."
+                : " It cannot be the controller that wrote this log: check the listed form, values and scan."));
     }
 
     /** The as-left finding; {@code unconfirmed} is null when the record reproduced the old controller. */

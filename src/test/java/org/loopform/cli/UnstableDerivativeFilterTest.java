@@ -86,6 +86,29 @@ class UnstableDerivativeFilterTest {
         assertThat(run.out()).contains("[fail] replay: The new controller as entered runs away on this record");
     }
 
+    // The same controller listed as the old one: it cannot have written the log, whatever its first scans matched.
+    @Test
+    void a_replay_of_it_as_the_old_controller_refutes_it() throws Exception {
+        Files.writeString(dir.resolve("forward.yaml"), FORM);
+        Path record = Path.of("examples/records/replay/TIC-301.csv").toAbsolutePath();
+        Path loop = Files.writeString(dir.resolve("tic.yaml"), """
+                # INVENTED loop for a test (the record is the invented example's)
+                tag: TIC-301
+                process: {model: fopdt, gain: 1.5, time_constant: 300 s, dead_time: 30 s}
+                tuning: {form: forward.yaml, kc: 1.67, ti: 360, td: 6, n: 10, scan: 5 s}
+                target: {form: ideal, scan: 1 s}
+                ranges: {pv: 0..150, output: 0..100}
+                """);
+
+        CliRun run = CliRun.of("replay", record.toString(), "--loop", loop.toString(), "--format", "json");
+
+        assertThat(run.exitCode()).as(run.err()).isEqualTo(1);
+        JsonNode json = new ObjectMapper().readTree(run.out());
+        assertThat(json.toString()).contains("The old controller as listed runs away on this record")
+                .contains("cannot be the controller that wrote this log");
+        assertThat(json.findValue("as_found_verdict").asText()).isEqualTo("refuted");
+    }
+
     @Test
     void an_audit_of_it_is_a_failing_loop_not_a_bad_row() throws Exception {
         Files.writeString(dir.resolve("forward.yaml"), FORM);
